@@ -1,0 +1,12 @@
+// Public API of the fault engine. Everything else under src/engine is internal and may change.
+export * from "./types.ts";
+export { compileNetwork } from "./network/compileNetwork.ts";
+export { solveFault } from "./fault/solveFault.ts";
+export { sweepFaults } from "./fault/sweepFaults.ts";
+export { sweepDeviceCurrents } from "./fault/sweepDeviceCurrents.ts";
+export { runLoadFlow } from "./loadflow/runLoadFlow.ts";
+export { loadCurrents } from "./loadflow/loadCurrents.ts";
+export { voltageFactor, transformerKT, generatorKG, peakFactor, breakingFactorMu, thermalFactorM } from "./iec60909/factors.ts";
+export { handleRequest, createHandlerState, type HandlerState } from "./rpc/handleRequest.ts";
+export { transferables } from "./rpc/protocol.ts";
+export type { EngineRequest, EngineResponse, EngineEvent } from "./rpc/protocol.ts";

@@ -27,13 +27,14 @@ export function connectivity(ctx: RuleContext): Message[] {
   for (const s of project.scenarios) {
     const label = ctx.label({ ...s, kind: "scenario" });
     for (const island of findIslands(project, s)) {
-      if (island.sources.length > 0) continue;
+      // a bus connected to nothing is reported once above, not again per scenario
+      if (island.sources.length > 0 || island.buses.every((b) => !attached.has(b))) continue;
       const named = island.buses.slice(0, NAMED_BUSES).map((b) => ctx.label(ctx.byId.get(b) ?? { id: b }).replace(/^Bus /, ""));
       const more = island.buses.length > NAMED_BUSES ? ` and ${island.buses.length - NAMED_BUSES} more` : "";
-      const noun = island.buses.length === 1 ? "bus" : "buses";
+      const [noun, verb] = island.buses.length === 1 ? ["bus", "forms"] : ["buses", "form"];
       out.push(
         warningMessage(
-          `${label}: ${noun} ${named.join(", ")}${more} form a part of the network with no source in service (dead in this scenario; see outOfService and switchStates)`,
+          `${label}: ${noun} ${named.join(", ")}${more} ${verb} a part of the network with no source in service (dead in this scenario; see outOfService and switchStates)`,
           s.id,
           "outOfService",
         ),

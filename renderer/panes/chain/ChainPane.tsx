@@ -1,0 +1,161 @@
+// The chain pane: the primary/backup chain of the faulted location along every source path, as a
+// table grouped by path. Arrow keys step through it (Up/Down along a path, Left/Right between paths);
+// the current step is highlighted and reported so the canvas and the time-current pane follow.
+import { useEffect, useId, useMemo, useRef, useState, type KeyboardEvent } from "react";
+import type { DeviceResponse, FaultChains, Verdict } from "../../../src/study/types.ts";
+import { clampCursor, cursorForDevice, isChainKey, moveChainCursor, type ChainCursor } from "./chainCursor.ts";
+import { linkStatuses } from "./linkStatus.ts";
+import { STATUS_LABEL, type VerdictStatus } from "../shared/verdictStatus.ts";
+import { formatCurrent_A, formatTime_s } from "../shared/formatQuantity.ts";
+import "../panes.css";
+
+export interface ChainPaneProps {
+  /** Chains of the selected fault case (src/study FaultChains); null when no case is selected. */
+  chains: FaultChains | null;
+  /** Label of the selected case, shown in the header. */
+  caseLabel?: string;
+  /** Device responses of the case: supply the operating time (relay or trip-unit time, fuse melting time). */
+  responses?: readonly DeviceResponse[];
+  /** Verdicts (any case; only those of this case are used) that colour each step. */
+  verdicts?: readonly Verdict[];
+  /** Device of the current step as the shell knows it (e.g. picked on the canvas); the pane follows it. */
+  selectedDeviceId?: string | null;
+  /** The current step changed (keyboard or click): highlight this device everywhere. */
+  onStepChange?: (deviceId: string) => void;
+}
+
+const KIND_LABEL: Record<string, string> = { grid: "utility tie", generator: "generator", inverter: "inverter" };
+
+export function ChainPane(props: ChainPaneProps) {
+  const { chains, responses = [], verdicts = [], selectedDeviceId = null, onStepChange } = props;
+  const paths = useMemo(() => chains?.paths ?? [], [chains]);
+  const [cursor, setCursor] = useState<ChainCursor | null>(null);
+  const bodyRef = useRef<HTMLDivElement>(null);
+  const baseId = `chain${useId().replace(/[^A-Za-z0-9]/g, "")}`;
+
+  const operate = useMemo(() => new Map(responses.map((r) => [r.device, r.tOperate_s])), [responses]);
+  const statuses = useMemo(() => (chains ? linkStatuses(verdicts, chains.caseId) : new Map<string, VerdictStatus>()), [verdicts, chains]);
+
+  // Follow the shell's selection; keep the current path when the device is on it.
+  useEffect(() => {
+    setCursor((c) => {
+      if (selectedDeviceId) {
+        const here = c ? paths[c.path]?.links[c.step]?.device : undefined;
+        if (here === selectedDeviceId) return c;
+        const found = cursorForDevice(paths, selectedDeviceId, c?.path ?? -1);
+        if (found) return found;
+      }
+      return clampCursor(paths, c);
+    });
+  }, [paths, selectedDeviceId]);
+
+  const rowId = (p: number, s: number) => `${baseId}-${p}-${s}`;
+
+  useEffect(() => {
+    if (!cursor) return;
+    const el = document.getElementById(`${baseId}-${cursor.path}-${cursor.step}`);
+    el?.scrollIntoView?.({ block: "nearest" });
+  }, [cursor, baseId]);
+
+  const go = (next: ChainCursor | null) => {
+    if (!next) return;
+    const same = cursor !== null && next.path === cursor.path && next.step === cursor.step;
+    setCursor(next);
+    const device = paths[next.path]?.links[next.step]?.device;
+    if (device && !same) onStepChange?.(device);
+  };
+
+  const onKeyDown = (e: KeyboardEvent<HTMLDivElement>) => {
+    if (!isChainKey(e.key)) return;
+    e.preventDefault();
+    go(moveChainCursor(paths, cursor, e.key));
+  };
+
+  return (
+    <section className="islet-pane chain-pane" aria-label="Primary and backup chain">
+      <header className="pane-header">
+        <h2 className="pane-title">Chain</h2>
+        {props.caseLabel ? <span className="pane-subtitle" title={props.caseLabel}>{props.caseLabel}</span> : null}
+        <span className="pane-spacer" />
+        {paths.length > 0 ? <span className="pane-chip">{paths.length === 1 ? "1 source path" : `${paths.length} source paths`}</span> : null}
+      </header>
+      {!chains ? (
+        <div className="pane-empty">Select a fault case to see its primary and backup devices.</div>
+      ) : paths.every((p) => p.links.length === 0) ? (
+        <div className="pane-empty">No protective device lies between this fault and any source.</div>
+      ) : (
+        <div
+          className="chain-body"
+          ref={bodyRef}
+          tabIndex={0}
+          role="grid"
+          aria-label="Chain steps: Up and Down step along a path, Left and Right change path"
+          aria-activedescendant={cursor ? rowId(cursor.path, cursor.step) : undefined}
+          onKeyDown={onKeyDown}
+        >
+          <table className="chain-table">
+            <thead>
+              <tr>
+                <th>Device</th>
+                <th>Role</th>
+                <th className="num">Current</th>
+                <th className="num">Operating</th>
+                <th className="num">Clearing</th>
+                <th className="num" title="Next device's fastest clearing minus this device's slowest clearing">
+                  Margin to next
+                </th>
+              </tr>
+            </thead>
+            {paths.map((path, pi) => (
+              <tbody key={`${path.source}-${pi}`}>
+                <tr className={`chain-group-row${cursor?.path === pi ? " is-active" : ""}`}>
+                  <td colSpan={6}>
+                    From {path.sourceName || path.source} <span className="verdict-group-counts">{KIND_LABEL[path.sourceKind] ?? path.sourceKind}</span>
+                  </td>
+                </tr>
+                {path.links.length === 0 ? (
+                  <tr>
+                    <td colSpan={6} className="pane-empty">
+                      no protective device on this path
+                    </td>
+                  </tr>
+                ) : null}
+                {path.links.map((link, si) => {
+                  const isCurrent = cursor?.path === pi && cursor.step === si;
+                  const status = statuses.get(link.device);
+                  return (
+                    <tr
+                      key={`${link.device}-${si}`}
+                      id={rowId(pi, si)}
+                      role="row"
+                      aria-selected={isCurrent}
+                      className={`chain-step${isCurrent ? " is-current" : ""}`}
+                      onClick={() => {
+                        bodyRef.current?.focus();
+                        go({ path: pi, step: si });
+                      }}
+                    >
+                      <td>
+                        <span className={`status-dot${status ? ` is-${status}` : ""}`} title={status ? STATUS_LABEL[status] : "no verdict"} />
+                        <span className="chain-indent">{link.depth > 0 ? "↳" : ""}</span>
+                        {link.deviceName || link.device}
+                      </td>
+                      <td>
+                        <span className={`chain-role is-${link.role}`}>{link.depth === 0 ? "primary" : link.depth === 1 ? "backup" : `backup ${link.depth}`}</span>
+                      </td>
+                      <td className="num">{formatCurrent_A(link.current_A)}</td>
+                      <td className="num">{operate.has(link.device) ? formatTime_s(operate.get(link.device)) : "—"}</td>
+                      <td className="num">{link.tClear_s === null ? "does not operate" : formatTime_s(link.tClear_s)}</td>
+                      <td className="num">{formatTime_s(link.marginToNext_s)}</td>
+                    </tr>
+                  );
+                })}
+              </tbody>
+            ))}
+          </table>
+        </div>
+      )}
+      <div className="chain-hint">↑↓ step along a path · ←→ change path · the coloured dot is the worst verdict naming the device in this case</div>
+    </section>
+  );
+}

@@ -1,0 +1,527 @@
+// The time-current pane: log-log plot of the devices on the selected path as tolerance bands,
+// equipment withstand curves, inrush points and fault-current marks; pointer read-out; drag a curve
+// to change its pickup (horizontal) or time multiplier (vertical); export to SVG and PNG.
+import { memo, useCallback, useEffect, useId, useMemo, useRef, useState, type PointerEvent as ReactPointerEvent, type ReactElement } from "react";
+import { scaleLog, type ScaleLogarithmic } from "d3";
+import type { TccBand, TccEquipmentCurve, TccExportFile, TccFaultMark, TccMarkerPoint, TccSettingPatch } from "./tccTypes.ts";
+import { bandPath, linePath, regionAbovePath, toScreen } from "./bandPath.ts";
+import { curveTimeAt } from "./curveTimeAt.ts";
+import { decadeDomain, logTicks, tickLabel } from "./logTicks.ts";
+import { hitTest, type HitTarget } from "./hitTest.ts";
+import { dragAxis, settingFromDrag, type DragAxis, type DragLimits } from "./dragSetting.ts";
+import { deviceColor } from "./deviceColors.ts";
+import { plotLayout, scenarioDash, type PlotLayout } from "./plotLayout.ts";
+import { exportPlot, NO_EXPORT_ATTR } from "./svgExport.ts";
+import { CAUTION_TEXT } from "../shared/caution.ts";
+import { formatCurrent_A, formatTime_s, trimNumber } from "../shared/formatQuantity.ts";
+import { useElementSize } from "../shared/useElementSize.ts";
+import "../panes.css";
+
+export interface TccPaneProps {
+  /** Voltage in kV every current on the plot is referred to; shown in the header and on the axis. */
+  referenceVoltage_kV: number;
+  /** Header title, e.g. the faulted location and the selected path. */
+  title?: string;
+  /** Device characteristics on the selected path, drawn in this order (later on top). */
+  bands: readonly TccBand[];
+  /** Equipment withstand curves (transformer and cable damage) and motor starting curves. */
+  equipment?: readonly TccEquipmentCurve[];
+  /** Single points such as transformer inrush. */
+  markers?: readonly TccMarkerPoint[];
+  /** Fault currents of the selected case in each scenario (vertical dashed marks). */
+  faultMarks?: readonly TccFaultMark[];
+  /** Device of the current chain step: drawn on top, thicker; the others are dimmed. */
+  highlightDeviceId?: string | null;
+  /** Time axis range in s (default 0.01 to 1000). */
+  timeDomain_s?: readonly [number, number];
+  /** Current axis range in A (default: whole decades around the data). */
+  currentDomain_A?: readonly [number, number];
+  /** Bounds and rounding of values produced by dragging. */
+  dragLimits?: DragLimits;
+  /** A drag changes a setting: called on every move with final=false and once more with final=true
+   * at the end (also on Escape, with the original values), so the shell can make one undoable edit. */
+  onSettingChange?: (deviceId: string, functionId: string, patch: TccSettingPatch, options: { final: boolean }) => void;
+  /** A click (no drag) on a curve. */
+  onDeviceSelect?: (deviceId: string) => void;
+  /** Export: the pane hands over the file; the shell saves it through the host adapter. Without it, no export buttons. */
+  onExport?: (file: TccExportFile) => void;
+  /** Reported when an export fails (e.g. the browser cannot rasterise the SVG). */
+  onExportError?: (message: string) => void;
+  /** Base of the suggested export file name (default "time-current"). */
+  exportName?: string;
+}
+
+type Scale = ScaleLogarithmic<number, number>;
+
+interface DragState {
+  pointerId: number;
+  /** Settings when the drag began: the shell may re-render with new ones while dragging. */
+  pickup_A: number;
+  multiplier?: number;
+  bandIndex: number;
+  x0: number;
+  y0: number;
+  current0_A: number;
+  time0_s: number;
+  axis: DragAxis | null;
+  patch: TccSettingPatch | null;
+  moved: boolean;
+}
+
+const DEFAULT_TIME: readonly [number, number] = [0.01, 1000];
+
+export function TccPane(props: TccPaneProps) {
+  const { bands, equipment = [], markers = [], faultMarks = [], highlightDeviceId = null, onSettingChange, onExport } = props;
+  const boxRef = useRef<HTMLDivElement>(null);
+  const svgRef = useRef<SVGSVGElement>(null);
+  const { width, height } = useElementSize(boxRef);
+  const layout = useMemo(() => plotLayout(Math.max(width, 320), Math.max(height, 240)), [width, height]);
+  const [pointer, setPointer] = useState<{ x: number; y: number } | null>(null);
+  const [hoverIndex, setHoverIndex] = useState<number | null>(null);
+  const [drag, setDrag] = useState<DragState | null>(null);
+  const [busy, setBusy] = useState(false);
+  // Ids of clip path and hatch patterns, unique per pane instance so two plots on one page never share them.
+  const uid = `tcc${useId().replace(/[^A-Za-z0-9]/g, "")}`;
+
+  const currentDomain = useMemo<[number, number]>(() => {
+    if (props.currentDomain_A) return [props.currentDomain_A[0], props.currentDomain_A[1]];
+    const values: number[] = [];
+    for (const b of bands) {
+      values.push(b.pickup_A);
+      for (const p of b.max) values.push(p[0]);
+    }
+    for (const m of faultMarks) values.push(m.current_A * 1.5);
+    for (const e of equipment) for (const p of e.points) values.push(p[0]);
+    for (const m of markers) values.push(m.current_A);
+    return decadeDomain(values, 2, [10, 10000]);
+  }, [props.currentDomain_A, bands, faultMarks, equipment, markers]);
+  const timeDomain = props.timeDomain_s ?? DEFAULT_TIME;
+
+  const x = useMemo(() => scaleLog().domain(currentDomain).range([layout.left, layout.right]), [currentDomain, layout]);
+  const y = useMemo(() => scaleLog().domain([timeDomain[0], timeDomain[1]]).range([layout.bottom, layout.top]), [timeDomain, layout]);
+
+  const colors = useMemo(() => deviceColorMap(bands), [bands]);
+  const targets = useMemo<HitTarget[]>(
+    () =>
+      bands.map((b, index) => ({
+        index,
+        nominal: toScreen(b.nominal, x, y),
+        band: [...toScreen(b.min, x, y), ...toScreen(b.max, x, y).reverse()],
+      })),
+    [bands, x, y],
+  );
+
+  const localPoint = (e: ReactPointerEvent<SVGSVGElement>) => {
+    const r = e.currentTarget.getBoundingClientRect();
+    return { x: e.clientX - r.left, y: e.clientY - r.top };
+  };
+  const inPlot = (p: { x: number; y: number }) => p.x >= layout.left && p.x <= layout.right && p.y >= layout.top && p.y <= layout.bottom;
+
+  const onPointerDown = (e: ReactPointerEvent<SVGSVGElement>) => {
+    if (e.button !== 0) return;
+    const p = localPoint(e);
+    if (!inPlot(p)) return;
+    const index = hitTest(p.x, p.y, targets);
+    if (index === null) return;
+    e.currentTarget.setPointerCapture(e.pointerId);
+    const band = bands[index];
+    setDrag({ pointerId: e.pointerId, pickup_A: band.pickup_A, multiplier: band.multiplier, bandIndex: index, x0: p.x, y0: p.y, current0_A: x.invert(p.x), time0_s: y.invert(p.y), axis: null, patch: null, moved: false });
+  };
+
+  const onPointerMove = (e: ReactPointerEvent<SVGSVGElement>) => {
+    const p = localPoint(e);
+    setPointer(inPlot(p) ? p : null);
+    if (!drag) {
+      setHoverIndex(inPlot(p) ? hitTest(p.x, p.y, targets) : null);
+      return;
+    }
+    if (e.pointerId !== drag.pointerId) return;
+    const band = bands[drag.bandIndex];
+    if (!band) return;
+    const axis = drag.axis ?? dragAxis(p.x - drag.x0, p.y - drag.y0, band.draggable ?? {});
+    if (!axis) {
+      if (Math.hypot(p.x - drag.x0, p.y - drag.y0) >= 4) setDrag({ ...drag, moved: true });
+      return;
+    }
+    const patch = settingFromDrag(axis, drag, x.invert(clampPx(p.x, layout.left, layout.right)), y.invert(clampPx(p.y, layout.top, layout.bottom)), props.dragLimits);
+    const changed = !drag.patch || drag.patch.pickup_A !== patch.pickup_A || drag.patch.multiplier !== patch.multiplier;
+    setDrag({ ...drag, axis, patch, moved: true });
+    if (changed) onSettingChange?.(band.deviceId, band.functionId, patch, { final: false });
+  };
+
+  const endDrag = (e: ReactPointerEvent<SVGSVGElement>) => {
+    if (!drag || e.pointerId !== drag.pointerId) return;
+    const band = bands[drag.bandIndex];
+    if (band && drag.patch) onSettingChange?.(band.deviceId, band.functionId, drag.patch, { final: true });
+    else if (band && !drag.moved) props.onDeviceSelect?.(band.deviceId);
+    setDrag(null);
+  };
+
+  const cancelDrag = useCallback(() => {
+    if (!drag) return;
+    const band = bands[drag.bandIndex];
+    if (band && drag.patch) {
+      const original: TccSettingPatch = drag.axis === "pickup" ? { pickup_A: drag.pickup_A } : { multiplier: drag.multiplier };
+      onSettingChange?.(band.deviceId, band.functionId, original, { final: true });
+    }
+    setDrag(null);
+  }, [drag, bands, onSettingChange]);
+
+  // Escape abandons a drag wherever the keyboard focus is.
+  useEffect(() => {
+    if (!drag) return;
+    const onKey = (e: KeyboardEvent) => {
+      if (e.key === "Escape") cancelDrag();
+    };
+    window.addEventListener("keydown", onKey);
+    return () => window.removeEventListener("keydown", onKey);
+  }, [drag, cancelDrag]);
+
+  const startExport = async (kind: "svg" | "png") => {
+    if (!svgRef.current || !onExport || busy) return;
+    setBusy(true);
+    try {
+      onExport(await exportPlot(svgRef.current, kind, props.exportName ?? "time-current"));
+    } catch (err) {
+      props.onExportError?.(err instanceof Error ? err.message : String(err));
+    } finally {
+      setBusy(false);
+    }
+  };
+
+  const activeIndex = drag?.bandIndex ?? hoverIndex;
+  const activeBand = activeIndex !== null ? bands[activeIndex] : undefined;
+  const cursor = drag?.axis === "pickup" ? "ew-resize" : drag?.axis === "multiplier" ? "ns-resize" : activeBand && activeBand.draggable && (activeBand.draggable.pickup || activeBand.draggable.multiplier) ? "move" : "crosshair";
+
+  return (
+    <section className="islet-pane tcc-pane" aria-label="Time-current plot">
+      <header className="pane-header">
+        <h2 className="pane-title">Time-current</h2>
+        {props.title ? <span className="pane-subtitle">{props.title}</span> : null}
+        <span className="pane-chip" title="All currents on the plot are referred to this voltage">
+          currents at {trimNumber(props.referenceVoltage_kV, 4)} kV
+        </span>
+        <span className="pane-spacer" />
+        {onExport ? (
+          <>
+            <button type="button" className="pane-button" disabled={busy} onClick={() => void startExport("svg")}>
+              Export SVG
+            </button>
+            <button type="button" className="pane-button" disabled={busy} onClick={() => void startExport("png")}>
+              Export PNG
+            </button>
+          </>
+        ) : null}
+      </header>
+      <div className="tcc-plot-box" ref={boxRef}>
+        {width > 0 && height > 0 ? (
+          <svg
+            ref={svgRef}
+            className="tcc-svg"
+            width={layout.width}
+            height={layout.height}
+            style={{ cursor }}
+            role="img"
+            aria-label={`Time-current plot, currents at ${props.referenceVoltage_kV} kV`}
+            onPointerDown={onPointerDown}
+            onPointerMove={onPointerMove}
+            onPointerUp={endDrag}
+            onPointerCancel={endDrag}
+            onPointerLeave={() => {
+              if (!drag) {
+                setPointer(null);
+                setHoverIndex(null);
+              }
+            }}
+          >
+            <PlotStatic
+              layout={layout}
+              x={x}
+              y={y}
+              bands={bands}
+              equipment={equipment}
+              markers={markers}
+              faultMarks={faultMarks}
+              colors={colors}
+              highlightDeviceId={highlightDeviceId}
+              referenceVoltage_kV={props.referenceVoltage_kV}
+              uid={uid}
+            />
+            {drag && drag.patch && bands[drag.bandIndex] ? (
+              <DragGhost uid={uid} band={bands[drag.bandIndex]} patch={drag.patch} x={x} y={y} layout={layout} color={colors.get(bands[drag.bandIndex].deviceId) ?? "currentColor"} />
+            ) : null}
+            {pointer ? <PointerReadout pointer={pointer} x={x} y={y} layout={layout} bands={bands} colors={colors} /> : null}
+          </svg>
+        ) : null}
+      </div>
+    </section>
+  );
+}
+
+function clampPx(v: number, lo: number, hi: number): number {
+  return Math.min(hi, Math.max(lo, v));
+}
+
+/** One colour per device (a relay's several functions share it), in order of first appearance. */
+function deviceColorMap(bands: readonly TccBand[]): Map<string, string> {
+  const m = new Map<string, string>();
+  for (const b of bands) if (!m.has(b.deviceId)) m.set(b.deviceId, deviceColor(m.size));
+  return m;
+}
+
+interface StaticProps {
+  layout: PlotLayout;
+  x: Scale;
+  y: Scale;
+  bands: readonly TccBand[];
+  equipment: readonly TccEquipmentCurve[];
+  markers: readonly TccMarkerPoint[];
+  faultMarks: readonly TccFaultMark[];
+  colors: Map<string, string>;
+  highlightDeviceId: string | null;
+  referenceVoltage_kV: number;
+  /** Prefix of the SVG ids (clip path, hatch patterns). */
+  uid: string;
+}
+
+/** Everything that does not move with the pointer, memoised so the read-out stays cheap. */
+const PlotStatic = memo(function PlotStatic(p: StaticProps) {
+  const { layout: L, x, y } = p;
+  const xt = logTicks(x.domain()[0], x.domain()[1]);
+  const yt = logTicks(y.domain()[0], y.domain()[1]);
+  const scenarioIds = [...new Set(p.faultMarks.map((m) => m.scenarioId ?? ""))];
+  const order = p.bands.map((b, k) => k).sort((a, b) => Number(p.bands[a].deviceId === p.highlightDeviceId) - Number(p.bands[b].deviceId === p.highlightDeviceId));
+  const anyHighlight = p.highlightDeviceId !== null && p.bands.some((b) => b.deviceId === p.highlightDeviceId);
+
+  return (
+    <g>
+      <defs>
+        <clipPath id={`${p.uid}-clip`}>
+          <rect x={L.left} y={L.top} width={L.right - L.left} height={L.bottom - L.top} />
+        </clipPath>
+        <pattern id={`${p.uid}-hatch-transformer`} width="7" height="7" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
+          <line x1="0" y1="0" x2="0" y2="7" className="tcc-hatch-line tcc-hatch-transformer" />
+        </pattern>
+        <pattern id={`${p.uid}-hatch-cable`} width="7" height="7" patternUnits="userSpaceOnUse" patternTransform="rotate(-45)">
+          <line x1="0" y1="0" x2="0" y2="7" className="tcc-hatch-line tcc-hatch-cable" />
+        </pattern>
+      </defs>
+      <rect className="tcc-plot-bg" x={L.left} y={L.top} width={L.right - L.left} height={L.bottom - L.top} />
+      <g className="tcc-grid">
+        {xt.minor.map((v) => (
+          <line key={`xm${v}`} className="tcc-grid-minor" x1={x(v)} x2={x(v)} y1={L.top} y2={L.bottom} />
+        ))}
+        {yt.minor.map((v) => (
+          <line key={`ym${v}`} className="tcc-grid-minor" y1={y(v)} y2={y(v)} x1={L.left} x2={L.right} />
+        ))}
+        {xt.major.map((v) => (
+          <line key={`xM${v}`} className="tcc-grid-major" x1={x(v)} x2={x(v)} y1={L.top} y2={L.bottom} />
+        ))}
+        {yt.major.map((v) => (
+          <line key={`yM${v}`} className="tcc-grid-major" y1={y(v)} y2={y(v)} x1={L.left} x2={L.right} />
+        ))}
+      </g>
+      <g className="tcc-axis">
+        {xt.major.map((v) => (
+          <text key={`xl${v}`} className="tcc-tick-label" x={x(v)} y={L.bottom + 15} textAnchor="middle">
+            {tickLabel(v)}
+          </text>
+        ))}
+        {yt.major.map((v) => (
+          <text key={`yl${v}`} className="tcc-tick-label" x={L.left - 6} y={y(v) + 4} textAnchor="end">
+            {tickLabel(v)}
+          </text>
+        ))}
+        <text className="tcc-axis-title" x={(L.left + L.right) / 2} y={L.axisTitleY} textAnchor="middle">
+          Current (A) referred to {trimNumber(p.referenceVoltage_kV, 4)} kV
+        </text>
+        <text className="tcc-axis-title" transform={`translate(14 ${(L.top + L.bottom) / 2}) rotate(-90)`} textAnchor="middle">
+          Time (s)
+        </text>
+      </g>
+
+      <g clipPath={`url(#${p.uid}-clip)`}>
+        {p.equipment.map((e) => {
+          const cls = `tcc-equipment tcc-${e.kind}`;
+          return (
+            <g key={e.id} className={cls}>
+              {e.kind !== "motor-start" ? (
+                <path className="tcc-damage-region" d={regionAbovePath(e.points, x, y, L.top)} fill={`url(#${p.uid}-hatch-${e.kind === "cable-damage" ? "cable" : "transformer"})`} />
+              ) : null}
+              <path className="tcc-equipment-line" d={linePath(e.points, x, y)} />
+            </g>
+          );
+        })}
+        {p.markers.map((m) => (
+          <g key={m.id} className="tcc-marker" transform={`translate(${x(m.current_A)} ${y(m.time_s)})`}>
+            <path d="M-5,0L0,-5L5,0L0,5Z" className="tcc-marker-shape" />
+            <text x={8} y={-6} className="tcc-marker-label">
+              {m.name}
+            </text>
+          </g>
+        ))}
+        {p.faultMarks.map((m) => {
+          const xi = x(m.current_A);
+          return (
+            <g key={m.id} className="tcc-fault-mark">
+              <line x1={xi} x2={xi} y1={L.top} y2={L.bottom} strokeDasharray={scenarioDash(scenarioIds.indexOf(m.scenarioId ?? ""))} className="tcc-fault-line" />
+              <text className="tcc-fault-label" transform={`translate(${xi - 4} ${L.top + 6}) rotate(-90)`} textAnchor="end">
+                {m.label} · {formatCurrent_A(m.current_A)}
+              </text>
+            </g>
+          );
+        })}
+        {order.map((k) => {
+          const b = p.bands[k];
+          const color = p.colors.get(b.deviceId) ?? "currentColor";
+          const hl = b.deviceId === p.highlightDeviceId;
+          const cls = `tcc-device${hl ? " is-highlight" : ""}${anyHighlight && !hl ? " is-dimmed" : ""}`;
+          return (
+            <g key={`${b.deviceId}/${b.functionId}`} className={cls} data-device-id={b.deviceId}>
+              <path className="tcc-band" d={bandPath(b.min, b.max, x, y)} style={{ fill: color }} />
+              <path className="tcc-nominal" d={linePath(b.nominal, x, y)} style={{ stroke: color }} />
+            </g>
+          );
+        })}
+      </g>
+      <rect className="tcc-plot-frame" x={L.left} y={L.top} width={L.right - L.left} height={L.bottom - L.top} />
+      <Legend {...p} />
+      <text className="tcc-caution" x={L.left} y={L.cautionY}>
+        {CAUTION_TEXT}
+      </text>
+    </g>
+  );
+});
+
+function Legend(p: StaticProps) {
+  const L = p.layout;
+  const rows: { key: string; swatch: ReactElement; title: string; detail: string; highlight: boolean }[] = [];
+  for (const b of p.bands) {
+    const color = p.colors.get(b.deviceId) ?? "currentColor";
+    const detail = [b.functionLabel, `pickup ${formatCurrent_A(b.pickup_A)}`, b.multiplier !== undefined ? `×${trimNumber(b.multiplier, 3)}` : ""].filter(Boolean).join(" · ");
+    rows.push({
+      key: `${b.deviceId}/${b.functionId}`,
+      swatch: (
+        <g>
+          <rect width={18} height={10} y={-8} className="tcc-band" style={{ fill: color }} />
+          <line x1={0} x2={18} y1={-3} y2={-3} className="tcc-nominal" style={{ stroke: color }} />
+        </g>
+      ),
+      title: b.deviceName,
+      detail,
+      highlight: b.deviceId === p.highlightDeviceId,
+    });
+  }
+  for (const e of p.equipment) {
+    rows.push({
+      key: e.id,
+      swatch: (
+        <g className={`tcc-equipment tcc-${e.kind}`}>
+          {e.kind !== "motor-start" ? <rect width={18} height={10} y={-8} className="tcc-damage-region" fill={`url(#${p.uid}-hatch-${e.kind === "cable-damage" ? "cable" : "transformer"})`} /> : null}
+          <line x1={0} x2={18} y1={-3} y2={-3} className="tcc-equipment-line" />
+        </g>
+      ),
+      title: e.name,
+      detail: e.kind === "transformer-damage" ? "through-fault withstand" : e.kind === "cable-damage" ? "conductor withstand I²t" : "motor starting",
+      highlight: false,
+    });
+  }
+  for (const m of p.markers) {
+    rows.push({
+      key: m.id,
+      swatch: (
+        <g className="tcc-marker" transform="translate(9 -3)">
+          <path d="M-5,0L0,-5L5,0L0,5Z" className="tcc-marker-shape" />
+        </g>
+      ),
+      title: m.name,
+      detail: `${formatCurrent_A(m.current_A)} for ${formatTime_s(m.time_s)}`,
+      highlight: false,
+    });
+  }
+  const rowH = 30;
+  const maxRows = Math.max(1, Math.floor((L.bottom - L.top - 18) / rowH));
+  const shown = rows.slice(0, maxRows);
+  const maxChars = Math.max(12, Math.floor((L.legendWidth - 26) / 5.6));
+  return (
+    <g className="tcc-legend" transform={`translate(${L.legendX} ${L.top})`}>
+      <text className="tcc-legend-heading" y={10}>
+        Legend
+      </text>
+      {shown.map((r, k) => (
+        <g key={r.key} transform={`translate(0 ${30 + k * rowH})`} className={r.highlight ? "tcc-legend-row is-highlight" : "tcc-legend-row"}>
+          {r.swatch}
+          <text x={24} y={0} className="tcc-legend-title">
+            {ellipsis(r.title, maxChars - 2)}
+          </text>
+          <text x={24} y={12} className="tcc-legend-detail">
+            {ellipsis(r.detail, maxChars)}
+          </text>
+        </g>
+      ))}
+      {rows.length > shown.length ? (
+        <text className="tcc-legend-detail" y={30 + shown.length * rowH}>
+          + {rows.length - shown.length} more
+        </text>
+      ) : null}
+    </g>
+  );
+}
+
+function ellipsis(s: string, n: number): string {
+  return s.length <= n ? s : `${s.slice(0, Math.max(1, n - 1))}…`;
+}
+
+/** The dragged curve moved by the pending change: an exact preview for inverse-time curves (see dragSetting.ts). */
+function DragGhost(p: { uid: string; band: TccBand; patch: TccSettingPatch; x: Scale; y: Scale; layout: PlotLayout; color: string }) {
+  const fi = p.patch.pickup_A !== undefined ? p.patch.pickup_A / p.band.pickup_A : 1;
+  const ft = p.patch.multiplier !== undefined && p.band.multiplier ? p.patch.multiplier / p.band.multiplier : 1;
+  const moved = p.band.nominal.map(([i, t]) => [i * fi, t * ft] as const);
+  const label = p.patch.pickup_A !== undefined ? `pickup ${formatCurrent_A(p.patch.pickup_A)}` : `multiplier ${trimNumber(p.patch.multiplier ?? 0, 3)}`;
+  return (
+    <g {...{ [NO_EXPORT_ATTR]: "true" }} className="tcc-ghost" clipPath={`url(#${p.uid}-clip)`}>
+      <path d={linePath(moved, p.x, p.y)} style={{ stroke: p.color }} className="tcc-ghost-line" />
+      <text x={p.layout.left + 8} y={p.layout.top + 16} className="tcc-ghost-label">
+        {p.band.deviceName}: {label}
+      </text>
+    </g>
+  );
+}
+
+/** Cross-hair and the read-out box: pointer current and time, and each curve's time at that current. */
+function PointerReadout(p: { pointer: { x: number; y: number }; x: Scale; y: Scale; layout: PlotLayout; bands: readonly TccBand[]; colors: Map<string, string> }) {
+  const { pointer, layout: L } = p;
+  const i_A = p.x.invert(pointer.x);
+  const t_s = p.y.invert(pointer.y);
+  const lines = p.bands.map((b) => ({ key: `${b.deviceId}/${b.functionId}`, name: b.deviceName, color: p.colors.get(b.deviceId) ?? "currentColor", t: curveTimeAt(b.nominal, i_A), below: b.nominal.length > 0 && i_A < b.nominal[0][0] }));
+  const boxW = 200;
+  const boxH = 34 + lines.length * 14;
+  const bx = pointer.x + 14 + boxW > L.right ? pointer.x - 14 - boxW : pointer.x + 14;
+  const by = Math.min(Math.max(pointer.y + 14, L.top), L.bottom - boxH);
+  return (
+    <g {...{ [NO_EXPORT_ATTR]: "true" }} className="tcc-readout" pointerEvents="none">
+      <line className="tcc-crosshair" x1={pointer.x} x2={pointer.x} y1={L.top} y2={L.bottom} />
+      <line className="tcc-crosshair" y1={pointer.y} y2={pointer.y} x1={L.left} x2={L.right} />
+      <g transform={`translate(${bx} ${by})`}>
+        <rect className="tcc-readout-box" width={boxW} height={boxH} rx={4} />
+        <text className="tcc-readout-head" x={8} y={15}>
+          {formatCurrent_A(i_A)} · {formatTime_s(t_s)}
+        </text>
+        <text className="tcc-readout-sub" x={8} y={28}>
+          curve times at this current
+        </text>
+        {lines.map((l, k) => (
+          <g key={l.key} transform={`translate(8 ${42 + k * 14})`}>
+            <rect width={8} height={8} y={-7} style={{ fill: l.color }} />
+            <text x={14} className="tcc-readout-line">
+              {ellipsis(l.name, 20)}
+            </text>
+            <text x={boxW - 16} className="tcc-readout-line" textAnchor="end">
+              {l.t !== null ? formatTime_s(l.t) : l.below ? "no trip" : "—"}
+            </text>
+          </g>
+        ))}
+      </g>
+    </g>
+  );
+}

@@ -1,0 +1,20 @@
+// What the study needs from the protective-device models: the operating answer on a tolerance band
+// and the lowest pickup per measured quantity. protectionModel.ts binds it to src/protection.
+import type { ProtectiveDevice } from "../model/schema.ts";
+import type { Band, Measurement, OperatingResult, TravelState } from "../protection/types.ts";
+
+export interface DevicePickups {
+  phase_A: number | null;
+  residual_A: number | null;
+  negative_A: number | null;
+}
+
+export interface DeviceModel {
+  operate(device: ProtectiveDevice, m: Measurement, band: Band): OperatingResult;
+  /** Lowest nominal pickup of the enabled elements per measured quantity, A (null: no such element). */
+  pickups(device: ProtectiveDevice): DevicePickups;
+  /** Time still needed to operate from a travel state at a steady measurement (nominal band). */
+  timeToOperate(state: TravelState, device: ProtectiveDevice, m: Measurement): OperatingResult;
+  /** Advance a travel state by dt_s at a steady measurement (nominal band). */
+  accumulate(state: TravelState, device: ProtectiveDevice, m: Measurement, dt_s: number): TravelState;
+}

@@ -1,0 +1,63 @@
+// Binds the study's DeviceModel to src/protection. A device with impossible settings does not operate
+// in the study; the settings error is reported once through `warn`, naming the device and the field.
+import type { ProtectiveDevice } from "../model/schema.ts";
+import { accumulate, operatingTime, SettingsError, timeToOperate, type Band, type Measurement, type OperatingResult, type TravelState } from "../protection/index.ts";
+import { deviceElements } from "../protection/deviceElements.ts";
+import type { DeviceModel, DevicePickups } from "./deviceModel.ts";
+
+export function protectionModel(warn: (text: string) => void = () => {}): DeviceModel {
+  const pickups = new Map<string, DevicePickups>();
+  const broken = new Set<string>();
+  const refuse = (device: ProtectiveDevice, err: unknown): void => {
+    if (broken.has(device.id)) return;
+    broken.add(device.id);
+    const text = err instanceof SettingsError ? err.message : err instanceof Error ? err.message : String(err);
+    warn(`${text} (left out of the study)`);
+  };
+  const none: OperatingResult = { picked: false, trip_s: Infinity, clearing_s: Infinity, reason: "settings error" };
+  return {
+    operate(device: ProtectiveDevice, m: Measurement, band: Band): OperatingResult {
+      if (broken.has(device.id)) return none;
+      try {
+        return operatingTime(device, m, { band });
+      } catch (err) {
+        refuse(device, err);
+        return none;
+      }
+    },
+    timeToOperate(state: TravelState, device: ProtectiveDevice, m: Measurement): OperatingResult {
+      if (broken.has(device.id)) return none;
+      try {
+        return timeToOperate(state, device, m);
+      } catch (err) {
+        refuse(device, err);
+        return none;
+      }
+    },
+    accumulate(state: TravelState, device: ProtectiveDevice, m: Measurement, dt_s: number): TravelState {
+      if (broken.has(device.id)) return state;
+      try {
+        return accumulate(state, device, m, dt_s);
+      } catch (err) {
+        refuse(device, err);
+        return state;
+      }
+    },
+    pickups(device: ProtectiveDevice): DevicePickups {
+      const known = pickups.get(device.id);
+      if (known) return known;
+      const p: DevicePickups = { phase_A: null, residual_A: null, negative_A: null };
+      try {
+        for (const el of deviceElements(device)) {
+          const key = el.quantity === "phase" ? "phase_A" : el.quantity === "residual" ? "residual_A" : "negative_A";
+          const a = el.pickup_A("nominal");
+          if (a > 0 && Number.isFinite(a) && (p[key] === null || a < p[key]!)) p[key] = a;
+        }
+      } catch (err) {
+        refuse(device, err);
+      }
+      pickups.set(device.id, p);
+      return p;
+    },
+  };
+}

@@ -1,0 +1,261 @@
+// The whole protection study: fault cases in every scenario, device responses, chains, verdicts
+// (sensitivity, selectivity, speed, blinding, sympathetic tripping), clearing timelines and the matrix.
+// Pure and deterministic; progress, cancellation and yielding to the host are passed in.
+import type { Project, ProtectiveDevice, Scenario } from "../model/schema.ts";
+import { buildChains } from "./chains.ts";
+import type { DeviceModel } from "./deviceModel.ts";
+import { deviceResponse } from "./deviceResponse.ts";
+import { deviceSides } from "./deviceSides.ts";
+import { caseId, caseLabel, faultLocations, locationKey } from "./faultCases.ts";
+import { studyMatrix } from "./matrix.ts";
+import { scenarioNetwork, type ScenarioNetwork } from "./scenarioNetwork.ts";
+import { findSourcePaths, type SourcePath } from "./sourcePaths.ts";
+import type { FaultSnapshot, StudySolver } from "./studySolver.ts";
+import { clearingTimeline } from "./timeline.ts";
+import {
+  FAULT_TYPES,
+  STUDY_CAUTION,
+  type CaseResult,
+  type ClearingTimeline,
+  type DeviceResponse,
+  type FaultCase,
+  type FaultLimit,
+  type FaultLocation,
+  type FaultType,
+  type StudyOptions,
+  type StudyResult,
+  type Verdict,
+} from "./types.ts";
+import { blindingPairs, blindingVerdict, infeedsByBus, type BlindingPair } from "./verdicts/blinding.ts";
+import { loadVerdicts, sensitivityVerdicts, ZoneMinimum } from "./verdicts/sensitivity.ts";
+import { selectivityVerdicts } from "./verdicts/selectivity.ts";
+import { speedVerdicts } from "./verdicts/speed.ts";
+import { sympatheticVerdicts } from "./verdicts/sympathetic.ts";
+
+export interface StudyDeps {
+  solver: StudySolver;
+  model: DeviceModel;
+}
+
+export interface StudyHooks {
+  onProgress?: (done: number, total: number, phase: "cases" | "verdicts" | "timelines") => void;
+  /** Checked between cases; true stops the study with StudyCancelled. */
+  isCancelled?: () => boolean;
+  /** Lets the host breathe between batches of cases (a worker reads its messages here). */
+  yieldNow?: () => Promise<void>;
+}
+
+export class StudyCancelled extends Error {
+  constructor() {
+    super("study cancelled");
+    this.name = "StudyCancelled";
+  }
+}
+
+/** Everything the study keeps of one case while the scenario is being worked through. */
+interface CaseWork {
+  result: CaseResult;
+  responses: Map<string, DeviceResponse>;
+  paths: SourcePath[];
+}
+
+/** One case: device responses, chains, roles and the verdicts that need only this case. */
+export function analyseCase(
+  project: Project,
+  net: ScenarioNetwork,
+  sides: ReturnType<typeof deviceSides>,
+  fc: FaultCase,
+  paths: SourcePath[],
+  snapshot: Pick<FaultSnapshot, "iFault_A" | "readings">,
+  model: DeviceModel,
+): { work: CaseWork; verdicts: Verdict[] } {
+  const responses = new Map<string, DeviceResponse>();
+  for (const id of net.deviceEdge.keys()) responses.set(id, deviceResponse(net.devices.get(id)!, snapshot.readings[id], model));
+  const { chains, sympatheticCandidates } = buildChains(fc.id, net, paths, responses, sides);
+  for (const path of chains.paths)
+    for (const l of path.links) {
+      const r = responses.get(l.device)!;
+      if (l.role === "primary" || r.role === "none") r.role = l.role;
+      if (!r.onPathsOf.includes(path.source)) r.onPathsOf.push(path.source);
+    }
+  // devices carrying current that are on no chain at all (healthy feeders with motors or sources)
+  for (const r of responses.values()) if (r.role === "none" && r.onPathsOf.length === 0 && r.iPhase_A + r.iResidual_A > 0) sympatheticCandidates.add(r.device);
+  for (const d of sympatheticCandidates) {
+    const r = responses.get(d)!;
+    if (r.role === "none" && r.direction !== "forward") r.role = "sympathetic";
+  }
+  const verdicts = [
+    ...selectivityVerdicts(fc, chains, responses, net.devices, project.criteria),
+    ...speedVerdicts(fc, chains, responses, net.elements, project.criteria),
+    ...sympatheticVerdicts(fc, chains, sympatheticCandidates, responses, net.devices, model, project.criteria),
+  ];
+  const result: CaseResult = {
+    faultCase: fc,
+    iFault_A: snapshot.iFault_A,
+    responses: [...responses.values()],
+    chains,
+    verdictIds: verdicts.map((v) => v.id),
+  };
+  return { work: { result, responses, paths }, verdicts };
+}
+
+function pickTimelineCase(works: CaseWork[], verdicts: Map<string, Verdict>): CaseWork | null {
+  let best: CaseWork | null = null;
+  let bestScore = -1;
+  for (const w of works) {
+    let fails = 0;
+    let warns = 0;
+    for (const id of w.result.verdictIds) {
+      const v = verdicts.get(id);
+      if (v?.status === "fail") fails++;
+      else if (v?.status === "warn") warns++;
+    }
+    const score = fails * 1000 + warns;
+    if (score > bestScore) {
+      best = w;
+      bestScore = score;
+    }
+  }
+  return best;
+}
+
+export async function runStudy(project: Project, deps: StudyDeps, options: StudyOptions = {}, hooks: StudyHooks = {}): Promise<StudyResult> {
+  const { solver, model } = deps;
+  const warnings: string[] = [];
+  const cases: CaseResult[] = [];
+  const verdictList: Verdict[] = [];
+  const verdictById = new Map<string, Verdict>();
+  const timelines: ClearingTimeline[] = [];
+  const scenarios = project.scenarios.filter((s) => !options.scenarios || options.scenarios.includes(s.id));
+  if (options.scenarios)
+    for (const id of options.scenarios) if (!project.scenarios.some((s) => s.id === id)) warnings.push(`Scenario ${id}: not found in the project`);
+  const types: FaultType[] = options.faultTypes ?? [...FAULT_TYPES];
+  const addVerdicts = (list: Verdict[]) => {
+    for (const v of list) {
+      if (verdictById.has(v.id)) continue;
+      verdictById.set(v.id, v);
+      verdictList.push(v);
+    }
+  };
+  // total for progress: locations x types x limits over scenarios
+  const plan = scenarios.map((s) => {
+    const locations = faultLocations(project, s, options);
+    const limits = s.limits.filter((l) => !options.limits || options.limits.includes(l));
+    return { scenario: s, locations, limits };
+  });
+  const total = plan.reduce((n, p) => n + p.locations.length * p.limits.length * types.length, 0);
+  let done = 0;
+  const elements = new Map(project.elements.map((e) => [e.id, e] as const));
+
+  for (const { scenario, locations, limits } of plan) {
+    const net = scenarioNetwork(project, scenario);
+    for (const d of net.idleDevices) {
+      const dev = net.devices.get(d);
+      if (dev && !scenario.outOfService.includes(d) && !scenario.outOfService.includes(dev.at.element) && elements.get(dev.at.element) === undefined)
+        warnings.push(`${d}: located at ${dev.at.element} (${dev.at.end}), which is not in the project`);
+    }
+    const sides = deviceSides(net);
+    const infeeds = infeedsByBus(net);
+    const pathsByLoc = new Map<string, SourcePath[]>();
+    for (const loc of locations) pathsByLoc.set(locationKey(loc), findSourcePaths(net, loc));
+    const sensLimit: FaultLimit = limits.includes("min") ? "min" : "max";
+    const zone = new ZoneMinimum(net.devices, model);
+    const works: CaseWork[] = [];
+    const blinding: { work: CaseWork; pairs: BlindingPair[]; locIndex: number; type: FaultType }[] = [];
+
+    for (const limit of limits) {
+      for (const type of types) {
+        const snaps = locations.length ? solver.solveMany(scenario, locations, type, limit) : [];
+        for (let i = 0; i < locations.length; i++) {
+          if (hooks.isCancelled?.()) throw new StudyCancelled();
+          const loc = locations[i];
+          const fc: FaultCase = {
+            id: caseId(scenario.id, loc, type, limit),
+            scenario: scenario.id,
+            location: loc,
+            faultType: type,
+            limit,
+            label: caseLabel(scenario, loc, type, limit, elements),
+          };
+          for (const m of snaps[i].messages) if (!warnings.includes(m)) warnings.push(m);
+          const paths = pathsByLoc.get(locationKey(loc))!;
+          const { work, verdicts } = analyseCase(project, net, sides, fc, paths, snaps[i], model);
+          addVerdicts(verdicts);
+          works.push(work);
+          cases.push(work.result);
+          if (limit === sensLimit) {
+            for (const p of work.result.chains.paths)
+              for (const l of p.links.slice(0, 2)) zone.add({ device: l.device, role: l.role, response: work.responses.get(l.device)!, faultCase: fc });
+            const pairs = blindingPairs(net, paths, work.result.chains, infeeds);
+            if (pairs.length) blinding.push({ work, pairs, locIndex: i, type });
+          }
+          done++;
+          if (done % 64 === 0) {
+            hooks.onProgress?.(done, total, "cases");
+            await hooks.yieldNow?.();
+          }
+        }
+      }
+    }
+    hooks.onProgress?.(done, total, "verdicts");
+
+    // blinding: re-solve the affected locations with each infeed switched out
+    const byInfeedType = new Map<string, { infeed: string; type: FaultType; items: { work: CaseWork; pair: BlindingPair; locIndex: number }[] }>();
+    for (const b of blinding)
+      for (const pair of b.pairs) {
+        const key = `${pair.infeed}|${b.type}`;
+        if (!byInfeedType.has(key)) byInfeedType.set(key, { infeed: pair.infeed, type: b.type, items: [] });
+        byInfeedType.get(key)!.items.push({ work: b.work, pair, locIndex: b.locIndex });
+      }
+    for (const group of byInfeedType.values()) {
+      if (hooks.isCancelled?.()) throw new StudyCancelled();
+      const variant: Scenario = { ...scenario, outOfService: [...scenario.outOfService, group.infeed] };
+      const locIdx = [...new Set(group.items.map((x) => x.locIndex))];
+      const locs: FaultLocation[] = locIdx.map((k) => locations[k]);
+      const snaps = solver.solveMany(variant, locs, group.type, sensLimit);
+      const snapAt = new Map(locIdx.map((k, j) => [k, snaps[j]] as const));
+      for (const item of group.items) {
+        const device = net.devices.get(item.pair.device) as ProtectiveDevice;
+        const without = deviceResponse(device, snapAt.get(item.locIndex)!.readings[device.id], model);
+        const v = blindingVerdict(item.work.result.faultCase, item.pair, item.work.responses.get(device.id)!, without, device, model, project.criteria);
+        addVerdicts([v]);
+        item.work.result.verdictIds.push(v.id);
+      }
+      await hooks.yieldNow?.();
+    }
+
+    // sensitivity against the end of each zone, then against load
+    const sens = sensitivityVerdicts(scenario, zone.observations(), net.devices, model, project.criteria);
+    addVerdicts(sens);
+    const workById = new Map(works.map((w) => [w.result.faultCase.id, w] as const));
+    for (const v of sens) if (v.caseId) workById.get(v.caseId)?.result.verdictIds.push(v.id);
+    const load = solver.loadCurrents(scenario);
+    if (load) addVerdicts(loadVerdicts(scenario, load, net.devices, model, project.criteria));
+    else warnings.push(`Scenario ${scenario.id} "${scenario.name}": no load flow, pickups were not checked against load current`);
+
+    // clearing timelines: the worst case of the scenario, plus the ones asked for
+    const wanted = new Set(options.timelineCases ?? []);
+    const chosen = works.filter((w) => wanted.has(w.result.faultCase.id));
+    const worst = pickTimelineCase(
+      works.filter((w) => w.result.faultCase.limit === sensLimit),
+      verdictById,
+    );
+    if (worst && !chosen.includes(worst)) chosen.unshift(worst);
+    for (const w of chosen) {
+      if (hooks.isCancelled?.()) throw new StudyCancelled();
+      timelines.push(clearingTimeline({ project, net, faultCase: w.result.faultCase, solver, model, idealDevices: w.result.chains.idealIsolation }));
+      hooks.onProgress?.(done, total, "timelines");
+      await hooks.yieldNow?.();
+    }
+  }
+  hooks.onProgress?.(total, total, "verdicts");
+  return {
+    project: project.meta.name,
+    cases,
+    verdicts: verdictList,
+    matrix: studyMatrix(scenarios, cases, verdictList, elements),
+    timelines,
+    warnings,
+    caution: STUDY_CAUTION,
+  };
+}

@@ -1,0 +1,35 @@
+// What the study needs from a network solver, stated once so the study logic can be tested on plain
+// data and the engine adapter (engineSolver.ts) is the only place that knows the engine's API.
+import type { Scenario } from "../model/schema.ts";
+import type { Measurement } from "../protection/types.ts";
+import type { CurrentDirection, FaultLimit, FaultLocation, FaultType } from "./types.ts";
+
+/** What one device measures in one fault state, and which way the current flows. */
+export interface DeviceReading {
+  m: Measurement;
+  direction: CurrentDirection;
+}
+
+/** One solved fault state: readings of every device with current (absent = no current). */
+export interface FaultSnapshot {
+  /** Largest phase current into the fault, A. */
+  iFault_A: number;
+  readings: Record<string, DeviceReading>;
+  /** Engine messages worth passing on (element named). */
+  messages: string[];
+}
+
+/** An element end opened by a device (the element the device looks into, at that end). */
+export interface OpenEnd {
+  element: string;
+  end: "from" | "to" | "terminal";
+}
+
+export interface StudySolver {
+  /** Faults of one type and limit at many locations of one scenario (the bulk of the study). */
+  solveMany(scenario: Scenario, locations: FaultLocation[], faultType: FaultType, limit: FaultLimit): FaultSnapshot[];
+  /** One fault with some element ends opened (clearing timeline). */
+  solveOne(scenario: Scenario, location: FaultLocation, faultType: FaultType, limit: FaultLimit, open: OpenEnd[]): FaultSnapshot;
+  /** Largest phase load current at each device (device id -> A) from a balanced load flow; null when it cannot run. */
+  loadCurrents(scenario: Scenario): Record<string, number> | null;
+}

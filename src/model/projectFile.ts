@@ -68,7 +68,9 @@ function loadUnguarded(text: string): LoadResult {
     ]);
   }
 
-  const warnings: string[] = [];
+  const warnings: string[] = protoKeyPaths(envelope).map(
+    (path) => `Project file: the field "__proto__" at ${path} is ignored (a reserved name in JavaScript; it is not kept on save)`,
+  );
   let current: JsonObject = envelope;
   if (version < FORMAT_VERSION) {
     try {
@@ -88,6 +90,21 @@ function loadUnguarded(text: string): LoadResult {
   if (errors.length > 0) return fail("invalidRecords", errors.map((m) => m.text));
   for (const m of messages) if (m.severity === "warning") warnings.push(m.text);
   return { ok: true, project: parsed.data, warnings };
+}
+
+/** Paths of "__proto__" keys, which JSON.parse keeps as data but the schemas cannot carry. */
+function protoKeyPaths(value: unknown, path = "", out: string[] = []): string[] {
+  if (typeof value !== "object" || value === null) return out;
+  if (Array.isArray(value)) {
+    value.forEach((v, i) => protoKeyPaths(v, `${path}[${i}]`, out));
+    return out;
+  }
+  for (const key of Object.keys(value)) {
+    const here = path === "" ? key : `${path}.${key}`;
+    if (key === "__proto__") out.push(here);
+    protoKeyPaths((value as Record<string, unknown>)[key], here, out);
+  }
+  return out;
 }
 
 /** Canonical text of a project: stable key order, 2-space indent, trailing newline. */

@@ -160,3 +160,14 @@ describe("newProject", () => {
     expect(PROJECT_FILE_EXTENSION).toBe(".islet");
   });
 });
+
+describe("a field named __proto__", () => {
+  it("is ignored with a warning naming its path, and pollutes nothing", () => {
+    const doc = smallDoc();
+    const text = JSON.stringify(doc).replace('"kind":"bus"', '"__proto__":{"polluted":1},"kind":"bus"');
+    const r = mustLoad(text);
+    expect(r.warnings).toEqual(['Project file: the field "__proto__" at elements[0].__proto__ is ignored (a reserved name in JavaScript; it is not kept on save)']);
+    expect(({} as Record<string, unknown>).polluted).toBeUndefined();
+    expect(Object.getPrototypeOf(r.project.elements[0])).toBe(Object.prototype);
+  });
+});

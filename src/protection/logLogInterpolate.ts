@@ -37,7 +37,8 @@ export function logLogCurrentForTime(points: readonly CurvePoint[], t_s: number)
     const [i2, t2] = points[k + 1];
     if (t_s <= t1 && t_s >= t2) {
       const f = Math.log(t_s / t1) / Math.log(t2 / t1);
-      return Math.exp(Math.log(i1) + f * Math.log(i2 / i1));
+      // clamp: rounding must not put the answer outside its segment (below the first point reads "no operation")
+      return Math.min(i2, Math.max(i1, Math.exp(Math.log(i1) + f * Math.log(i2 / i1))));
     }
   }
   return Infinity;

@@ -1,0 +1,68 @@
+// The study worker's request handler: plain data in and out, pure apart from the callbacks passed in.
+// A full study reports progress and checks the cancellation signal between cases; a case request
+// returns one fault case's device responses and chains (and optionally its clearing timeline).
+import { loadProject } from "../../model/projectFile.ts";
+import { projectSchema, type Project } from "../../model/schema.ts";
+import { analyseCase, runStudy, StudyCancelled } from "../runStudy.ts";
+import { engineSolver } from "../engineSolver.ts";
+import { protectionModel } from "../protectionModel.ts";
+import { scenarioNetwork } from "../scenarioNetwork.ts";
+import { deviceSides } from "../deviceSides.ts";
+import { enumerateFaultCases } from "../faultCases.ts";
+import { findSourcePaths } from "../sourcePaths.ts";
+import { clearingTimeline } from "../timeline.ts";
+import type { StudyProgress, StudyRequest, StudyResponse } from "../types.ts";
+
+export interface StudyRequestContext {
+  onProgress?: (p: StudyProgress) => void;
+  /** A cancellation signal (AbortSignal-like); checked between cases. */
+  signal?: { readonly aborted: boolean };
+  /** Lets the worker read its messages between batches of cases. */
+  yieldNow?: () => Promise<void>;
+}
+
+function readProject(input: unknown): { ok: true; project: Project } | { ok: false; message: string } {
+  if (typeof input === "string") {
+    const r = loadProject(input);
+    return r.ok ? { ok: true, project: r.project } : { ok: false, message: r.error.messages.join("\n") };
+  }
+  const parsed = projectSchema.safeParse(input);
+  if (parsed.success) return { ok: true, project: parsed.data };
+  return { ok: false, message: `Project: ${parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ")}` };
+}
+
+export async function handleStudyRequest(request: StudyRequest, ctx: StudyRequestContext = {}): Promise<StudyResponse> {
+  const { requestId } = request;
+  const read = readProject(request.project);
+  if (!read.ok) return { kind: "error", requestId, ok: false, message: read.message };
+  const project = read.project;
+  try {
+    if (request.kind === "full") {
+      const result = await runStudy(
+        project,
+        { solver: engineSolver(project), model: protectionModel() },
+        request.options ?? {},
+        {
+          onProgress: (done, total, phase) => ctx.onProgress?.({ requestId, done, total, phase }),
+          isCancelled: () => ctx.signal?.aborted === true,
+          yieldNow: ctx.yieldNow,
+        },
+      );
+      return { kind: "full", requestId, ok: true, result };
+    }
+    const fc = enumerateFaultCases(project).find((c) => c.id === request.caseId);
+    if (!fc) return { kind: "error", requestId, ok: false, message: `Fault case ${request.caseId}: not found in this project` };
+    const scenario = project.scenarios.find((s) => s.id === fc.scenario)!;
+    const solver = engineSolver(project);
+    const model = protectionModel();
+    const net = scenarioNetwork(project, scenario);
+    const paths = findSourcePaths(net, fc.location);
+    const snap = solver.solveOne(scenario, fc.location, fc.faultType, fc.limit, []);
+    const { work, verdicts } = analyseCase(project, net, deviceSides(net), fc, paths, snap, model);
+    const timeline = request.timeline ? clearingTimeline({ project, net, faultCase: fc, solver, model, idealDevices: work.result.chains.idealIsolation }) : null;
+    return { kind: "case", requestId, ok: true, result: work.result, verdicts, timeline };
+  } catch (err) {
+    if (err instanceof StudyCancelled) return { kind: "cancelled", requestId, ok: false };
+    return { kind: "error", requestId, ok: false, message: err instanceof Error ? err.message : String(err) };
+  }
+}

@@ -1,0 +1,59 @@
+// Shared helpers of the benchmark scripts: median timing with warm-up, PASS/MISS target lines, memory figures.
+// Target lines start with PASS or MISS so that scripts/bench.mjs can count them; a miss is reported, never thrown.
+
+export interface Timing {
+  median_ms: number;
+  min_ms: number;
+  runs: number;
+}
+
+export function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  const m = Math.floor(s.length / 2);
+  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
+}
+
+/** Runs fn `warmup` times untimed, then `runs` times timed with performance.now(); returns the median. */
+export function timeMedian(fn: () => unknown, opts: { warmup?: number; runs?: number } = {}): Timing {
+  const warmup = opts.warmup ?? 2;
+  const runs = Math.max(1, opts.runs ?? 7);
+  for (let i = 0; i < warmup; i++) fn();
+  const t: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = performance.now();
+    fn();
+    t.push(performance.now() - t0);
+  }
+  return { median_ms: median(t), min_ms: Math.min(...t), runs };
+}
+
+const fmt = (v: number) => (Math.abs(v) >= 100 ? v.toFixed(0) : Math.abs(v) >= 10 ? v.toFixed(1) : v.toPrecision(3));
+
+/** An informational figure. */
+export function figure(label: string, value: number, unit: string, note = ""): void {
+  console.log(`      ${label}: ${fmt(value)} ${unit}${note ? `  (${note})` : ""}`);
+}
+
+/** A figure with a target: prints PASS or MISS. `better` says whether lower or higher values are better. */
+export function target(label: string, value: number, unit: string, better: "lower" | "higher", limit: number): boolean {
+  const ok = Number.isFinite(value) && (better === "lower" ? value < limit : value >= limit);
+  const op = better === "lower" ? "<" : ">=";
+  console.log(`${ok ? "PASS" : "MISS"}  ${label}: ${fmt(value)} ${unit} (target ${op} ${fmt(limit)} ${unit})`);
+  return ok;
+}
+
+/** Heap in use after a full collection when the process runs with --expose-gc (scripts/bench.mjs passes it). */
+export function heapUsed_MB(): number {
+  const gc = (globalThis as { gc?: () => void }).gc;
+  if (gc) gc();
+  return process.memoryUsage().heapUsed / 2 ** 20;
+}
+
+/** Peak resident set size of the process so far. */
+export function peakRss_MB(): number {
+  return process.resourceUsage().maxRSS / 1024;
+}
+
+export function section(title: string): void {
+  console.log(`\n-- ${title}`);
+}

@@ -1,0 +1,141 @@
+// One factorised sequence network. A connected part with no shunt path in this sequence (an island of current
+// sources only, a zero-sequence part behind deltas) is "floating": it gets a 1 pu reference shunt at its first node
+// so the matrix is regular, and w = Z'[:, ref] is kept. Then Z' = G + w w^T, where G is the impedance matrix
+// grounded at the reference node, and the exact floating limits follow from G and w (see solveLinearFault).
+import type { Model, Seq } from "./model.ts";
+import type { EngineCache } from "./engineCache.ts";
+import { minimumDegree, type Ordering } from "../sparse/minimumDegree.ts";
+import { factorLdlt, solveLdlt, type LdltFactor, type SymmetricTriplets } from "../sparse/ldlt.ts";
+
+export type Variant = "iec" | "refined";
+
+export interface SequenceSystem {
+  seq: Seq;
+  n: number;
+  factor: LdltFactor;
+  /** Component index of each node in this sequence's graph. */
+  comp: Int32Array;
+  floating: boolean[];
+  /** w = Z'[:, ref] of each floating component (zero elsewhere). */
+  wre: Float64Array;
+  wim: Float64Array;
+}
+
+function modelOrdering(model: Model, cache: EngineCache): Ordering {
+  if (cache.ordering) return cache.ordering;
+  const n = model.nodes.length;
+  const nb: number[][] = Array.from({ length: n }, () => []);
+  for (const b of model.branches) {
+    nb[b.from].push(b.to);
+    nb[b.to].push(b.from);
+  }
+  cache.ordering = minimumDegree(n, nb);
+  return cache.ordering;
+}
+
+export function sequenceSystem(model: Model, cache: EngineCache, seq: Seq, variant: Variant): SequenceSystem {
+  const key = `${seq}:${variant}`;
+  const hit = cache.systems.get(key);
+  if (hit) return hit;
+  const n = model.nodes.length;
+  const a: SymmetricTriplets = { n, row: [], col: [], re: [], im: [] };
+  const put = (i: number, j: number, re: number, im: number) => {
+    a.row.push(i);
+    a.col.push(j);
+    a.re.push(re);
+    a.im.push(im);
+  };
+  // Components of this sequence's graph.
+  const parent = new Int32Array(n);
+  for (let i = 0; i < n; i++) parent[i] = i;
+  const find = (i: number): number => {
+    while (parent[i] !== i) {
+      parent[i] = parent[parent[i]];
+      i = parent[i];
+    }
+    return i;
+  };
+  const hasShunt = new Uint8Array(n);
+  for (const b of model.branches) {
+    const y = b.y[seq];
+    if (y) {
+      const t = b.t;
+      put(b.from, b.from, y.re / (t * t), y.im / (t * t));
+      put(b.to, b.to, y.re, y.im);
+      put(b.to, b.from, -y.re / t, -y.im / t);
+      const ra = find(b.from);
+      const rb = find(b.to);
+      if (ra !== rb) parent[rb] = ra;
+    } else {
+      put(b.to, b.from, 0, 0); // keep the symbolic pattern shared by all sequences
+    }
+    if (seq === 0 && b.y0From) {
+      put(b.from, b.from, b.y0From.re, b.y0From.im);
+      hasShunt[b.from] = 1;
+    }
+    if (seq === 0 && b.y0To) {
+      put(b.to, b.to, b.y0To.re, b.y0To.im);
+      hasShunt[b.to] = 1;
+    }
+  }
+  for (const s of model.shunts) {
+    if (s.refinedOnly && variant === "iec") continue;
+    const y = s.y[seq];
+    if (!y) continue;
+    put(s.node, s.node, y.re, y.im);
+    hasShunt[s.node] = 1;
+  }
+  const compOfRoot = new Map<number, number>();
+  const comp = new Int32Array(n);
+  const refs: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const r = find(i);
+    let c = compOfRoot.get(r);
+    if (c === undefined) {
+      c = refs.length;
+      compOfRoot.set(r, c);
+      refs.push(i);
+    }
+    comp[i] = c;
+  }
+  const compShunt = new Array<boolean>(refs.length).fill(false);
+  for (let i = 0; i < n; i++) if (hasShunt[i]) compShunt[comp[i]] = true;
+  const floating = compShunt.map((h) => !h);
+  for (let c = 0; c < refs.length; c++) if (floating[c]) put(refs[c], refs[c], 1, 0);
+  const factor = factorLdlt(a, modelOrdering(model, cache));
+  const wre = new Float64Array(n);
+  const wim = new Float64Array(n);
+  for (let c = 0; c < refs.length; c++) {
+    if (!floating[c]) continue;
+    const br = new Float64Array(n);
+    const bi = new Float64Array(n);
+    br[refs[c]] = 1;
+    solveLdlt(factor, br, bi);
+    for (let i = 0; i < n; i++) {
+      if (comp[i] === c) {
+        wre[i] = br[i];
+        wim[i] = bi[i];
+      }
+    }
+  }
+  const sys: SequenceSystem = { seq, n, factor, comp, floating, wre, wim };
+  cache.systems.set(key, sys);
+  return sys;
+}
+
+/** Z' b for b given (returns new arrays). */
+export function applyZ(sys: SequenceSystem, bre: Float64Array, bim: Float64Array): { re: Float64Array; im: Float64Array } {
+  const re = bre.slice();
+  const im = bim.slice();
+  solveLdlt(sys.factor, re, im);
+  return { re, im };
+}
+
+/** Column k of Z'. */
+export function zColumn(sys: SequenceSystem, k: number): { re: Float64Array; im: Float64Array } {
+  const re = new Float64Array(sys.n);
+  const im = new Float64Array(sys.n);
+  re[k] = 1;
+  solveLdlt(sys.factor, re, im);
+  return { re, im };
+}

@@ -239,13 +239,13 @@ const ELEMENTS: unknown[] = [
   fuse("F-TVIL", "Village transformer HV fuse", "T-VIL", "from", 40, "general-purpose"),
   // ---- LV breakers on the main switchboard ----
   lvBreaker("Q-T1", "Transformer 1 LV incomer", "T1", "to", 2500, { ir_x: 0.95, tr_s: 12, isd_x: 4, tsd_s: 0.3, ig_A: 1200, tg_s: 0.4 }),
-  lvBreaker("Q-T2", "Transformer 2 LV incomer", "T2", "to", 1600, { ir_x: 0.9, tr_s: 12, isd_x: 4, tsd_s: 0.3, ig_A: 800, tg_s: 0.4 }),
-  lvBreaker("Q-GEN", "Genset breaker", "GEN1", "terminal", 2000, { ir_x: 0.9, tr_s: 8, isd_x: 3, tsd_s: 0.2, ii_x: 10, ig_A: 600, tg_s: 0.3 }),
+  lvBreaker("Q-T2", "Transformer 2 LV incomer", "T2", "to", 1600, { ir_x: 0.95, tr_s: 12, isd_x: 4, tsd_s: 0.3, ig_A: 800, tg_s: 0.4 }),
+  lvBreaker("Q-GEN", "Genset breaker", "GEN1", "terminal", 2000, { ir_x: 0.95, tr_s: 8, isd_x: 3, tsd_s: 0.2, ii_x: 10, ig_A: 600, tg_s: 0.3 }),
   lvBreaker("Q-PV", "PV inverter breaker", "INV-PV", "terminal", 1600, { ir_x: 0.85, tr_s: 8, ii_x: 10 }),
   lvBreaker("Q-BESS", "Battery inverter breaker", "INV-BESS", "terminal", 1000, { ir_x: 0.9, tr_s: 8, ii_x: 10 }),
   lvBreaker("Q-MS", "Milking shed feeder breaker", "C-MS", "from", 400, { ir_x: 0.8, tr_s: 6, isd_x: 6, tsd_s: 0.1, ii_x: 12 }),
   lvBreaker("Q-PH", "Processing hall feeder breaker", "C-PH", "from", 630, { ir_x: 0.75, tr_s: 6, isd_x: 6, tsd_s: 0.1, ii_x: 12 }),
-  lvBreaker("Q-CS", "Cold store feeder breaker", "C-CS", "from", 630, { ir_x: 0.7, tr_s: 6, isd_x: 6, tsd_s: 0.1, ii_x: 12 }),
+  lvBreaker("Q-CS", "Cold store feeder breaker", "C-CS", "from", 630, { ir_x: 0.65, tr_s: 6, isd_x: 6, tsd_s: 0.1, ii_x: 12 }),
   lvBreaker("Q-WS", "Workshop feeder breaker", "C-WS", "from", 160, { ir_x: 0.8, tr_s: 5, ii_x: 10 }),
   // ---- fuses on final circuits ----
   fuse("F-OF", "Offices sub-board fuse", "C-OF", "from", 100, "general-purpose"),

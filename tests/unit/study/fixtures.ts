@@ -25,7 +25,7 @@ export function reading3ph(i_A: number, direction: "forward" | "reverse", v1_pu 
   return { m, direction };
 }
 
-export type CurrentTable = (scenario: Scenario, loc: FaultLocation) => Record<string, DeviceReading>;
+export type CurrentTable = (scenario: Scenario, loc: FaultLocation) => Partial<Record<string, DeviceReading>>;
 
 /**
  * A solver answering from a table. Any opened end kills every current (the tables describe radial
@@ -33,7 +33,7 @@ export type CurrentTable = (scenario: Scenario, loc: FaultLocation) => Record<st
  */
 export function tableSolver(table: CurrentTable, load: Record<string, number> | null = null): StudySolver & { calls: number } {
   const snap = (scenario: Scenario, loc: FaultLocation, open: OpenEnd[]): FaultSnapshot => {
-    const readings = open.length ? {} : table(scenario, loc);
+    const readings = (open.length ? {} : table(scenario, loc)) as Record<string, DeviceReading>;
     const iFault_A = Object.values(readings).reduce((m, r) => Math.max(m, ...r.m.phase_A), 0);
     return { iFault_A, readings, messages: [] };
   };

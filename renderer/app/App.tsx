@@ -1,0 +1,60 @@
+// The studio shell: command bar, parts palette, one-line, properties and operating modes,
+// the lower panes, and the status area with the caution.
+import { ReactFlowProvider, useReactFlow } from "@xyflow/react";
+import type { ElementKind } from "../../src/model/schema.ts";
+import { Toolbar } from "./Toolbar.tsx";
+import { StatusBar } from "./StatusBar.tsx";
+import { Notices } from "./Notices.tsx";
+import { BottomPanes, type PaneEntry } from "./BottomPanes.tsx";
+import { RecoveryOffer, type Recovery } from "./RecoveryOffer.tsx";
+import { useKeyboard } from "./useKeyboard.ts";
+import { OneLineCanvas } from "../canvas/OneLineCanvas.tsx";
+import { Palette } from "../canvas/Palette.tsx";
+import { Inspector } from "../inspector/Inspector.tsx";
+import { OperatingModes } from "../modes/OperatingModes.tsx";
+import { addElement, deviceLocationOn, isProtectiveKind } from "../canvas/editCommands.ts";
+import { useDocumentStore } from "../store/documentStore.ts";
+import { useSessionStore } from "../store/sessionStore.ts";
+
+function Workspace({ panes }: { panes: PaneEntry[] }) {
+  const flow = useReactFlow();
+  useKeyboard();
+  const onAdd = (kind: ElementKind) => {
+    if (isProtectiveKind(kind)) {
+      const { doc } = useDocumentStore.getState();
+      const host = doc.elements.find((e) => e.id === useSessionStore.getState().selection[0]);
+      addElement(kind, { x: 0, y: 0 }, host ? deviceLocationOn(host, false) : null);
+      return;
+    }
+    const el = document.querySelector(".canvas-wrap")?.getBoundingClientRect();
+    const p = flow.screenToFlowPosition({ x: (el?.left ?? 0) + (el?.width ?? 800) / 2, y: (el?.top ?? 0) + (el?.height ?? 600) / 2 });
+    addElement(kind, { x: Math.round(p.x / 10) * 10, y: Math.round(p.y / 10) * 10 });
+  };
+  return (
+    <div className="workspace">
+      <Palette onAdd={onAdd} />
+      <main className="center">
+        <OneLineCanvas />
+        <BottomPanes extra={panes} />
+      </main>
+      <aside className="side">
+        <Inspector />
+        <OperatingModes />
+      </aside>
+    </div>
+  );
+}
+
+export function App({ recovery, panes = [] }: { recovery: Recovery | null; panes?: PaneEntry[] }) {
+  return (
+    <ReactFlowProvider>
+      <div className="studio">
+        <Toolbar />
+        {recovery && <RecoveryOffer recovery={recovery} />}
+        <Workspace panes={panes} />
+        <StatusBar />
+        <Notices />
+      </div>
+    </ReactFlowProvider>
+  );
+}

@@ -1,0 +1,121 @@
+// The command bar: file, edit, arrange, fault and study commands, theme.
+import { useEffect, useState } from "react";
+import { useStore } from "zustand";
+import type { FileRef } from "../../src/model/hostContract.ts";
+import { FAULT_TYPES, type FaultLimit, type FaultType } from "../../src/study/types.ts";
+import { useDocumentStore, undo, redo } from "../store/documentStore.ts";
+import { useSessionStore } from "../store/sessionStore.ts";
+import { newDocument, openDocument, openDemo, openRecentDocument, saveDocument } from "../files/fileCommands.ts";
+import { currentHost } from "../host/currentHost.ts";
+import { alignSelection, copySelection, deleteSelection, paste, type AlignMode } from "../canvas/editCommands.ts";
+import { nodeSize } from "../canvas/toFlow.ts";
+import { autoLayout } from "../canvas/autoLayout.ts";
+import { faultAtSelection } from "./faultCommands.ts";
+
+const FAULT_WORDS: Record<FaultType, string> = { "3ph": "Three-phase", LL: "Line-line", LG: "Line-earth", LLG: "Line-line-earth" };
+
+function RecentMenu() {
+  const [files, setFiles] = useState<FileRef[] | null>(null);
+  return (
+    <details className="menu" onToggle={(e) => (e.currentTarget.open ? void currentHost().listRecent().then(setFiles) : setFiles(null))}>
+      <summary className="tool-button">Recent</summary>
+      <div className="menu-list" data-testid="recent-list">
+        {files === null || files.length === 0 ? (
+          <span className="menu-empty">No recent files</span>
+        ) : (
+          files.map((f) => (
+            <button key={f.key} className="menu-item" onClick={() => void openRecentDocument(f)}>
+              {f.name}
+            </button>
+          ))
+        )}
+      </div>
+    </details>
+  );
+}
+
+function arrangeAll(): void {
+  const { doc, applyChanges } = useDocumentStore.getState();
+  void autoLayout(doc).then((layout) => {
+    applyChanges([{ type: "moveNodes", places: layout }], { undoable: true });
+    const s = useSessionStore.getState();
+    s.set({ fitSeq: s.fitSeq + 1 });
+  });
+}
+
+function align(mode: AlignMode): void {
+  const { doc } = useDocumentStore.getState();
+  const sizes: Record<string, { w: number; h: number }> = {};
+  for (const e of doc.elements) sizes[e.id] = nodeSize(e, doc.layout[e.id]?.w);
+  alignSelection(mode, sizes);
+}
+
+export function Toolbar() {
+  const canUndo = useStore(useDocumentStore.temporal, (s) => s.pastStates.length > 0);
+  const canRedo = useStore(useDocumentStore.temporal, (s) => s.futureStates.length > 0);
+  const session = useSessionStore();
+  const hasSelection = session.selection.length > 0;
+  useEffect(() => {
+    document.documentElement.dataset.theme = session.theme;
+  }, [session.theme]);
+  return (
+    <header className="toolbar" role="toolbar">
+      <span className="brand" aria-label="Islet">
+        <svg width="22" height="22" viewBox="0 0 22 22" aria-hidden>
+          <path d="M2 15 Q6 8 11 11 T20 9" fill="none" stroke="currentColor" strokeWidth="2" />
+          <circle cx="11" cy="11" r="3" fill="currentColor" />
+        </svg>
+        Islet
+      </span>
+      <div className="tool-group" aria-label="File">
+        <button className="tool-button" onClick={() => void newDocument()}>New</button>
+        <button className="tool-button" onClick={() => void openDocument()}>Open…</button>
+        <button className="tool-button" onClick={() => void saveDocument(false)} title="Ctrl+S">Save</button>
+        <button className="tool-button" onClick={() => void saveDocument(true)} title="Ctrl+Shift+S">Save as…</button>
+        <RecentMenu />
+        <button className="tool-button" onClick={() => void openDemo()}>Demo</button>
+      </div>
+      <div className="tool-group" aria-label="Edit">
+        <button className="tool-button" onClick={undo} disabled={!canUndo} title="Ctrl+Z">Undo</button>
+        <button className="tool-button" onClick={redo} disabled={!canRedo} title="Ctrl+Y">Redo</button>
+        <button className="tool-button" onClick={copySelection} disabled={!hasSelection} title="Ctrl+C">Copy</button>
+        <button className="tool-button" onClick={() => paste()} disabled={!session.clipboard} title="Ctrl+V">Paste</button>
+        <button className="tool-button" onClick={deleteSelection} disabled={!hasSelection} title="Delete">Delete</button>
+      </div>
+      <div className="tool-group" aria-label="Arrange">
+        <details className="menu">
+          <summary className="tool-button">Align</summary>
+          <div className="menu-list">
+            <button className="menu-item" onClick={() => align("left")}>Left edges</button>
+            <button className="menu-item" onClick={() => align("center")}>Vertical centres</button>
+            <button className="menu-item" onClick={() => align("top")}>Top edges</button>
+            <button className="menu-item" onClick={() => align("middle")}>Horizontal centres</button>
+          </div>
+        </details>
+        <button className="tool-button" onClick={arrangeAll} title="Lay the whole diagram out automatically">Arrange</button>
+        <label className="tool-check">
+          <input type="checkbox" checked={session.snapToGrid} onChange={(e) => session.set({ snapToGrid: e.target.checked })} /> Snap
+        </label>
+      </div>
+      <div className="tool-group" aria-label="Fault">
+        <select aria-label="Fault type" value={session.faultType} onChange={(e) => session.set({ faultType: e.target.value as FaultType })} data-testid="fault-type">
+          {FAULT_TYPES.map((t) => (
+            <option key={t} value={t}>{FAULT_WORDS[t]}</option>
+          ))}
+        </select>
+        <select aria-label="Calculation" value={session.faultLimit} onChange={(e) => session.set({ faultLimit: e.target.value as FaultLimit })} data-testid="fault-limit">
+          <option value="max">Maximum</option>
+          <option value="min">Minimum</option>
+        </select>
+        <button className="tool-button accent" onClick={faultAtSelection} title="F" data-testid="fault-here">Fault here</button>
+        {session.faultTarget && (
+          <button className="tool-button" onClick={() => session.set({ faultTarget: null })} title="Esc">Clear fault</button>
+        )}
+      </div>
+      <div className="tool-spacer" />
+      <button className="tool-button" onClick={() => session.set({ theme: session.theme === "light" ? "dark" : "light" })} aria-label="Switch theme">
+        {session.theme === "light" ? "Dark" : "Light"}
+      </button>
+    </header>
+  );
+}

@@ -1,0 +1,169 @@
+// The one-line editor: nodes and ties built from the document, drags kept local until the drop
+// (one undo step), connections and palette drops turned into document changes.
+import { useCallback, useEffect, useMemo, useRef, useState, type DragEvent } from "react";
+import {
+  ReactFlow,
+  Background,
+  BackgroundVariant,
+  Controls,
+  MiniMap,
+  ConnectionMode,
+  useReactFlow,
+  type Connection,
+  type NodeChange,
+  type NodeTypes,
+  type EdgeTypes,
+} from "@xyflow/react";
+import type { ElementKind } from "../../src/model/schema.ts";
+import { useDocumentStore } from "../store/documentStore.ts";
+import { useSessionStore } from "../store/sessionStore.ts";
+import { useFaultStore } from "../fault/faultStore.ts";
+import type { NodePlace } from "../store/changes.ts";
+import type { OneLineNode } from "./flowTypes.ts";
+import { toFlow, terminalFields } from "./toFlow.ts";
+import { BusNode } from "./nodes/BusNode.tsx";
+import { BranchNode } from "./nodes/BranchNode.tsx";
+import { ShuntNode } from "./nodes/ShuntNode.tsx";
+import { TieEdge } from "./TieEdge.tsx";
+import { addElement, deviceLocationOn, isProtectiveKind } from "./editCommands.ts";
+import { PALETTE_DRAG_TYPE } from "./Palette.tsx";
+
+const nodeTypes: NodeTypes = { bus: BusNode, branch: BranchNode, shunt: ShuntNode };
+const edgeTypes: EdgeTypes = { tie: TieEdge };
+const GRID = 10;
+/** Layout positions in the document are node centres. */
+const NODE_ORIGIN: [number, number] = [0.5, 0.5];
+
+export function OneLineCanvas() {
+  const doc = useDocumentStore((s) => s.doc);
+  const applyChanges = useDocumentStore((s) => s.applyChanges);
+  const selection = useSessionStore((s) => s.selection);
+  const snap = useSessionStore((s) => s.snapToGrid);
+  const theme = useSessionStore((s) => s.theme);
+  const fitSeq = useSessionStore((s) => s.fitSeq);
+  const overlay = useFaultStore((s) => s.overlay);
+  const flow = useReactFlow();
+  const [dragPlaces, setDragPlaces] = useState<Record<string, NodePlace>>({});
+  const dragRef = useRef(dragPlaces);
+  dragRef.current = dragPlaces;
+
+  const built = useMemo(() => toFlow(doc, selection, overlay), [doc, selection, overlay]);
+  const nodes = useMemo(() => {
+    if (Object.keys(dragPlaces).length === 0) return built.nodes;
+    return built.nodes.map((n) => (dragPlaces[n.id] ? ({ ...n, position: { x: dragPlaces[n.id].x, y: dragPlaces[n.id].y } } as OneLineNode) : n));
+  }, [built.nodes, dragPlaces]);
+
+  useEffect(() => {
+    if (fitSeq > 0) requestAnimationFrame(() => void flow.fitView({ padding: 0.12, duration: 0 }));
+  }, [fitSeq, flow]);
+
+  const onNodesChange = useCallback(
+    (changes: NodeChange<OneLineNode>[]) => {
+      let selectionNext: Set<string> | null = null;
+      const moving: Record<string, NodePlace> = {};
+      let finished = false;
+      for (const c of changes) {
+        if (c.type === "select") {
+          selectionNext ??= new Set(useSessionStore.getState().selection);
+          if (c.selected) selectionNext.add(c.id);
+          else selectionNext.delete(c.id);
+        } else if (c.type === "position" && c.position) {
+          moving[c.id] = { x: c.position.x, y: c.position.y };
+          if (!c.dragging) finished = true;
+        } else if (c.type === "position" && c.dragging === false) {
+          finished = true;
+        }
+      }
+      if (selectionNext) useSessionStore.getState().set({ selection: [...selectionNext] });
+      const merged = { ...dragRef.current, ...moving };
+      if (finished) {
+        if (Object.keys(merged).length > 0) applyChanges([{ type: "moveNodes", places: merged }], { undoable: true });
+        setDragPlaces({});
+      } else if (Object.keys(moving).length > 0) {
+        setDragPlaces(merged);
+      }
+    },
+    [applyChanges],
+  );
+
+  const onConnect = useCallback(
+    (c: Connection) => {
+      const { doc: current } = useDocumentStore.getState();
+      const byId = new Map(current.elements.map((e) => [e.id, e]));
+      const s = byId.get(c.source);
+      const t = byId.get(c.target);
+      if (!s || !t) return;
+      const [bus, other, handle] = s.kind === "bus" ? [s, t, c.targetHandle] : [t, s, c.sourceHandle];
+      if (bus.kind !== "bus" || other.kind === "bus") {
+        useSessionStore.getState().notify("info", "Connect an element's terminal to a bus.");
+        return;
+      }
+      const field = terminalFields(other)[(handle ?? "a") as "a" | "b"];
+      if (!field) return;
+      applyChanges([{ type: "setField", id: other.id, path: [field], value: bus.id }], { undoable: true });
+    },
+    [applyChanges],
+  );
+
+  const onDragOver = useCallback((e: DragEvent) => {
+    if (e.dataTransfer.types.includes(PALETTE_DRAG_TYPE)) {
+      e.preventDefault();
+      e.dataTransfer.dropEffect = "copy";
+    }
+  }, []);
+
+  const onDrop = useCallback(
+    (e: DragEvent) => {
+      const kind = e.dataTransfer.getData(PALETTE_DRAG_TYPE) as ElementKind;
+      if (!kind) return;
+      e.preventDefault();
+      const p = flow.screenToFlowPosition({ x: e.clientX, y: e.clientY });
+      const snapped = { x: Math.round(p.x / GRID) * GRID, y: Math.round(p.y / GRID) * GRID };
+      if (isProtectiveKind(kind)) {
+        const hit = flow.getIntersectingNodes({ x: p.x - 2, y: p.y - 2, width: 4, height: 4 });
+        const host = hit.map((n) => useDocumentStore.getState().doc.elements.find((x) => x.id === n.id)).find((x) => x && x.kind !== "bus");
+        if (!host) {
+          useSessionStore.getState().notify("info", "Drop a protective device on a branch or on a source, motor or load.");
+          return;
+        }
+        const node = flow.getInternalNode(host.id);
+        const lower = node ? p.y > node.internals.positionAbsolute.y + (node.measured.height ?? node.height ?? 0) / 2 : false;
+        addElement(kind, snapped, deviceLocationOn(host, lower));
+        return;
+      }
+      addElement(kind, snapped);
+    },
+    [flow],
+  );
+
+  return (
+    <div className="canvas-wrap" data-testid="one-line" onDragOver={onDragOver} onDrop={onDrop}>
+      <ReactFlow<OneLineNode>
+        nodes={nodes}
+        edges={built.edges}
+        nodeTypes={nodeTypes}
+        edgeTypes={edgeTypes}
+        onNodesChange={onNodesChange}
+        onConnect={onConnect}
+        connectionMode={ConnectionMode.Loose}
+        nodeOrigin={NODE_ORIGIN}
+        snapToGrid={snap}
+        snapGrid={[GRID, GRID]}
+        deleteKeyCode={null}
+        selectionKeyCode="Shift"
+        multiSelectionKeyCode={["Shift", "Control", "Meta"]}
+        onPaneClick={() => useSessionStore.getState().set({ selection: [] })}
+        onlyRenderVisibleElements={doc.elements.length > 300}
+        minZoom={0.05}
+        maxZoom={4}
+        colorMode={theme}
+        proOptions={{ hideAttribution: true }}
+        fitView
+      >
+        <Background variant={BackgroundVariant.Dots} gap={GRID * 2} size={1} />
+        <MiniMap pannable zoomable className="minimap" nodeStrokeWidth={2} />
+        <Controls showInteractive={false} />
+      </ReactFlow>
+    </div>
+  );
+}

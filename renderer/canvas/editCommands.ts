@@ -1,0 +1,109 @@
+// Editing commands shared by the toolbar, the keyboard and the canvas. Each turns the session's
+// selection into document changes and sends them through the one write path.
+import { isProtectiveDevice, type DeviceLocation, type Element, type ElementKind } from "../../src/model/schema.ts";
+import { useDocumentStore } from "../store/documentStore.ts";
+import { useSessionStore } from "../store/sessionStore.ts";
+import type { DocChange, NodePlace } from "../store/changes.ts";
+import { newElement, nextId } from "./newElement.ts";
+import { isBranchLike, terminalFields } from "./toFlow.ts";
+
+const PROTECTIVE: ElementKind[] = ["relay", "fuse", "lvbreaker"];
+
+export function isProtectiveKind(kind: ElementKind): boolean {
+  return PROTECTIVE.includes(kind);
+}
+
+/** Adds an element; devices go at the given location. Returns the new id (null when refused). */
+export function addElement(kind: ElementKind, place: NodePlace, at: DeviceLocation | null = null): string | null {
+  const { doc, applyChanges } = useDocumentStore.getState();
+  const session = useSessionStore.getState();
+  if (isProtectiveKind(kind) && !at) {
+    session.notify("info", "Place a protective device on a branch end or on a source, motor or load: drop it there, or select that element first.");
+    return null;
+  }
+  const element = newElement(kind, doc, at);
+  applyChanges([{ type: "addElement", element, place: at ? undefined : place }], { undoable: true });
+  session.set({ selection: [element.id] });
+  return element.id;
+}
+
+/** Where a device dropped on or added to `host` sits: the top end for a branch unless `lower`. */
+export function deviceLocationOn(host: Element, lower: boolean): DeviceLocation | null {
+  if (host.kind === "bus" || isProtectiveDevice(host)) return null;
+  if (isBranchLike(host)) return { element: host.id, end: lower ? "to" : "from" };
+  return { element: host.id, end: "terminal" };
+}
+
+export function deleteSelection(): void {
+  const { selection, set } = useSessionStore.getState();
+  if (selection.length === 0) return;
+  useDocumentStore.getState().applyChanges([{ type: "removeElements", ids: selection }], { undoable: true });
+  set({ selection: [] });
+}
+
+export function copySelection(): void {
+  const { doc } = useDocumentStore.getState();
+  const session = useSessionStore.getState();
+  const chosen = new Set(session.selection);
+  // devices travel with the element they look into
+  for (const e of doc.elements) if (isProtectiveDevice(e) && chosen.has(e.at.element)) chosen.add(e.id);
+  const elements = doc.elements.filter((e) => chosen.has(e.id));
+  if (elements.length === 0) return;
+  const places: Record<string, NodePlace> = {};
+  for (const e of elements) if (doc.layout[e.id]) places[e.id] = { ...doc.layout[e.id] };
+  session.set({ clipboard: { elements, places } });
+}
+
+/** Pastes with fresh ids; ties to copied buses follow the copies, ties to other buses are kept. */
+export function paste(offset = 40): void {
+  const session = useSessionStore.getState();
+  const clip = session.clipboard;
+  if (!clip) return;
+  const { doc, applyChanges } = useDocumentStore.getState();
+  const taken = new Set(doc.elements.map((e) => e.id));
+  const idMap = new Map<string, string>();
+  for (const e of clip.elements) {
+    const id = nextId(e.kind, taken);
+    taken.add(id);
+    idMap.set(e.id, id);
+  }
+  const changes: DocChange[] = [];
+  for (const e of clip.elements) {
+    const copy = structuredClone(e) as Record<string, unknown>;
+    copy.id = idMap.get(e.id);
+    for (const field of Object.values(terminalFields(e))) {
+      const bus = copy[field];
+      if (typeof bus === "string" && idMap.has(bus)) copy[field] = idMap.get(bus);
+    }
+    if (isProtectiveDevice(e)) {
+      const host = idMap.get(e.at.element);
+      if (!host) continue;
+      copy.at = { ...e.at, element: host };
+    }
+    const p = clip.places[e.id];
+    changes.push({ type: "addElement", element: copy as Element, place: p ? { ...p, x: p.x + offset, y: p.y + offset } : undefined });
+  }
+  applyChanges(changes, { undoable: true });
+  session.set({ selection: clip.elements.filter((e) => !isProtectiveDevice(e)).map((e) => idMap.get(e.id) as string) });
+}
+
+export type AlignMode = "left" | "center" | "top" | "middle";
+
+/** Aligns the selected nodes' boxes on the first selected node (layout positions are centres). */
+export function alignSelection(mode: AlignMode, sizes: Record<string, { w: number; h: number }>): void {
+  const { doc, applyChanges } = useDocumentStore.getState();
+  const ids = useSessionStore.getState().selection.filter((id) => doc.layout[id]);
+  if (ids.length < 2) return;
+  const ref = doc.layout[ids[0]];
+  const refSize = sizes[ids[0]] ?? { w: 0, h: 0 };
+  const places: Record<string, NodePlace> = {};
+  for (const id of ids.slice(1)) {
+    const p = doc.layout[id];
+    const s = sizes[id] ?? { w: 0, h: 0 };
+    if (mode === "left") places[id] = { x: ref.x - refSize.w / 2 + s.w / 2, y: p.y };
+    if (mode === "center") places[id] = { x: ref.x, y: p.y };
+    if (mode === "top") places[id] = { x: p.x, y: ref.y - refSize.h / 2 + s.h / 2 };
+    if (mode === "middle") places[id] = { x: p.x, y: ref.y };
+  }
+  applyChanges([{ type: "moveNodes", places }], { undoable: true });
+}

@@ -1,0 +1,42 @@
+// A two-terminal element (transformer, line or cable, switch): terminal a (from / HV / A side) on
+// top and b below, or a on the left and b on the right when drawn across; devices at each end and
+// the fault current arrow after a fault.
+import { memo } from "react";
+import { Handle, Position, type NodeProps } from "@xyflow/react";
+import type { BranchFlowNode } from "../flowTypes.ts";
+import { ElementSymbol, BRANCH_BOX } from "../symbols/ElementSymbol.tsx";
+import { DeviceStack } from "./DeviceStack.tsx";
+import { FlowArrow } from "./FlowArrow.tsx";
+
+function BranchNodeView({ data, selected }: NodeProps<BranchFlowNode>) {
+  const { element, colorA, colorB, devicesA, devicesB, caption, detail, flow, marks, selectedDevices, horizontal } = data;
+  const { w, h } = BRANCH_BOX;
+  const box = horizontal ? { w: h, h: w } : { w, h };
+  // drawn upright, then turned a quarter for the across form: (x, y) -> (y, w - x)
+  const turn = horizontal ? `matrix(0 -1 1 0 0 ${w})` : undefined;
+  return (
+    <div className={`element-node${horizontal ? " is-across" : ""}${selected ? " is-selected" : ""}`} style={{ width: box.w, height: box.h }} data-element={element.id}>
+      <svg className="element-svg" width={box.w} height={box.h} viewBox={`0 0 ${box.w} ${box.h}`}>
+        <g transform={turn}>
+          <ElementSymbol element={element} colorA={colorA} colorB={colorB} />
+          <DeviceStack devices={devicesA} y={16} strokeX={w / 2} selected={selectedDevices} marks={marks} />
+          <DeviceStack devices={devicesB} y={h - 16} strokeX={w / 2} selected={selectedDevices} marks={marks} />
+        </g>
+        {flow &&
+          (horizontal ? (
+            <FlowArrow flow={flow} x={box.w / 2} y={box.h / 2 - 12} id={element.id} across />
+          ) : (
+            <FlowArrow flow={flow} x={w / 2 + 10} y={h / 2} id={element.id} />
+          ))}
+      </svg>
+      <div className="element-caption">
+        <span className="caption-name">{caption}</span>
+        <span className="caption-detail">{detail}</span>
+      </div>
+      <Handle id="a" type="source" position={horizontal ? Position.Left : Position.Top} className="terminal-handle" />
+      <Handle id="b" type="source" position={horizontal ? Position.Right : Position.Bottom} className="terminal-handle" />
+    </div>
+  );
+}
+
+export const BranchNode = memo(BranchNodeView);

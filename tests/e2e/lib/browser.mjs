@@ -1,0 +1,27 @@
+// Debian's Chromium driven by playwright-core: never a downloaded browser.
+import { chromium } from "playwright-core";
+import { mkdtemp, rm } from "node:fs/promises";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+
+export const CHROMIUM = process.env.ISLET_CHROMIUM ?? "/usr/bin/chromium";
+const ARGS = ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"];
+
+/** A fresh persistent context in a new temporary profile; close() also removes the profile. */
+export async function launchStudioBrowser(viewport = { width: 1366, height: 768 }) {
+  const profile = await mkdtemp(join(tmpdir(), "islet-e2e-"));
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: CHROMIUM,
+    args: ARGS,
+    headless: true,
+    viewport,
+    acceptDownloads: true,
+  });
+  return {
+    context,
+    async close() {
+      await context.close().catch(() => {});
+      await rm(profile, { recursive: true, force: true }).catch(() => {});
+    },
+  };
+}

@@ -63,7 +63,7 @@ export type { MotorStarting, MotorStartingInput } from "./damage/motorStarting.t
 
 // templates
 export { loadTemplate, loadTemplates, instantiateTemplate, TemplateError, TEMPLATE_FORMAT, TEMPLATE_FORMAT_VERSION } from "./templates.ts";
-export type { DeviceTemplate } from "./templates.ts";
+export type { DeviceTemplate, DeviceBody } from "./templates.ts";
 
 // fixed texts
 export { PROTECTION_CAUTION, FUSE_LET_THROUGH_NOTE, FUSE_FAMILY_NOTE } from "./notes.ts";

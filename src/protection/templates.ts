@@ -9,6 +9,9 @@ import { checkDeviceSettings } from "./checkDeviceSettings.ts";
 export const TEMPLATE_FORMAT = "islet-device-template";
 export const TEMPLATE_FORMAT_VERSION = 1;
 
+/** A device record without id, name and location (kept per kind, so `kind` still narrows it). */
+export type DeviceBody = ProtectiveDevice extends infer D ? (D extends ProtectiveDevice ? Omit<D, "id" | "name" | "at"> : never) : never;
+
 export interface DeviceTemplate {
   /** Stable template id, e.g. "relay-iec-standard-inverse-feeder". */
   id: string;
@@ -16,7 +19,7 @@ export interface DeviceTemplate {
   title: string;
   description: string;
   /** The device record without id, name and location. */
-  device: Omit<ProtectiveDevice, "id" | "name" | "at">;
+  device: DeviceBody;
 }
 
 export class TemplateError extends Error {
@@ -64,7 +67,7 @@ export function loadTemplate(json: unknown, source: string): DeviceTemplate {
   const errors = checkDeviceSettings(device).filter((m) => m.severity === "error");
   if (errors.length > 0) throw new TemplateError(source, errors.map((m) => m.text));
   const { id: _i, name: _n, at: _a, ...rest } = device;
-  return { id, title, description, device: rest };
+  return { id, title, description, device: rest as DeviceBody };
 }
 
 /** Validate many; good ones load, bad ones are reported without stopping the rest. */

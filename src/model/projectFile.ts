@@ -6,7 +6,7 @@ import { FORMAT_TAG, FORMAT_VERSION, projectSchema, type Project } from "./schem
 import { jsonSyntaxError } from "./jsonSyntaxError.ts";
 import { runMigrations, MigrationError, type JsonObject } from "./migrations/index.ts";
 import { schemaMessages, describeValue } from "./schemaMessages.ts";
-import { validateProject } from "./validate.ts";
+import { validateRecords } from "./validate.ts";
 import { canonicalJson } from "./canonicalJson.ts";
 
 export const PROJECT_FILE_EXTENSION = ".islet";
@@ -85,7 +85,7 @@ function loadUnguarded(text: string): LoadResult {
   const parsed = projectSchema.safeParse(current);
   if (!parsed.success) return fail("invalidRecords", schemaMessages(current, parsed.error.issues).map((m) => m.text));
 
-  const messages = validateProject(parsed.data);
+  const messages = validateRecords(parsed.data);
   const errors = messages.filter((m) => m.severity === "error");
   if (errors.length > 0) return fail("invalidRecords", errors.map((m) => m.text));
   for (const m of messages) if (m.severity === "warning") warnings.push(m.text);

@@ -18,6 +18,11 @@ const RULES = [uniqueIds, references, voltages, ratings, scenarios, connectivity
 export function validateProject(input: Project | unknown): Message[] {
   const parsed = projectSchema.safeParse(input);
   if (!parsed.success) return schemaMessages(input, parsed.error.issues);
-  const ctx = ruleContext(parsed.data);
+  return validateRecords(parsed.data);
+}
+
+/** The rules between records only, for a project already known to match the schema (skips a second parse). */
+export function validateRecords(project: Project): Message[] {
+  const ctx = ruleContext(project);
   return RULES.flatMap((rule) => rule(ctx));
 }

@@ -7,6 +7,7 @@ import { loadProject } from "../../model/projectFile.ts";
 import { summarizeProject } from "../../model/projectSummary.ts";
 
 const USAGE = "Usage: islet summary FILE [--json]";
+const CAUTION = "Results support, and do not replace, review by a licensed engineer under local codes and the utility's interconnection rules.";
 
 export const summaryCommand: CliCommand = {
   name: "summary",
@@ -54,6 +55,7 @@ export const summaryCommand: CliCommand = {
       lines.push(`${result.warnings.length} warning(s):`);
       for (const w of result.warnings) lines.push(`  warning: ${w}`);
     }
+    lines.push("", CAUTION);
     console.log(lines.join("\n"));
     return 0;
   },

@@ -3,7 +3,7 @@
 import type { CliCommand } from "../command.ts";
 import { readTextFile } from "../fileIo.ts";
 import { loadProject } from "../../model/projectFile.ts";
-import { validateProject } from "../../model/validate.ts";
+import { validateRecords } from "../../model/validate.ts";
 import type { Message } from "../../model/messages.ts";
 import { parseFileArgs } from "../fileArgs.ts";
 
@@ -23,7 +23,7 @@ export const validateCommand: CliCommand = {
     if (!file.ok) {
       if (json) console.log(JSON.stringify({ ok: false, file: parsed.file, error: { kind: "unreadable", messages: [file.message] } }, null, 2));
       else console.error(`islet validate: ${file.message}`);
-      return json ? 1 : 2;
+      return 2;
     }
     const result = loadProject(file.text);
     if (!result.ok) {
@@ -36,7 +36,7 @@ export const validateCommand: CliCommand = {
     }
     const { project } = result;
     // warnings and notes with their element and field, for tools that read --json
-    const messages: Message[] = validateProject(project);
+    const messages: Message[] = validateRecords(project);
     const counts = {
       elements: project.elements.length,
       buses: project.elements.filter((e) => e.kind === "bus").length,

@@ -136,6 +136,8 @@ describe("islet summary", () => {
     const r = islet("summary", demoPath);
     expect(r.code).toBe(0);
     expect(r.out).toContain("Buses by voltage level:");
+    // the project's required caution wording (DEVELOPERS.md, rules of the house)
+    expect(r.out).toContain("Results support, and do not replace, review by a licensed engineer under local codes and the utility's interconnection rules.");
     expect(r.out).toMatch(/island-inverters "Islanded: battery and PV only \(inverter-only\)"\n\s+sources in service:\s+INV-PV, INV-BESS\n\s+sources out of service: GRID, GEN1/);
   });
 });

@@ -219,8 +219,10 @@ export interface SweepDeviceData {
   nInj: number;
   /** Phase shift of each device end's node, degrees (positive sequence). */
   shift_deg: Float64Array;
-  /** Faults solved one by one (buses in islands without a voltage source): per entry the D * 6 pu block. */
-  overrides: { b: number; t: number; seq_pu: Float64Array }[];
+  /** Phase shift of each faulted bus's node, degrees; angles are referred to the faulted bus. */
+  busShift_deg: Float64Array;
+  /** Faults solved one by one (buses in islands without a voltage source): per entry the D * 6 block in A, already shifted. */
+  overrides: { b: number; t: number; seq_A: Float64Array }[];
 }
 
 /** One device location's currents for one fault of a sweep. */

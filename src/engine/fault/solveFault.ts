@@ -113,9 +113,10 @@ export function solveFault(network: CompiledNetwork, location: FaultLocation, ty
 
   let refined: RefinedOutcome | null = null;
   let sysR = sysI;
+  let zkR = zkI;
   if (hasInv) {
     sysR = hasGfm ? systems(model, cache, "refined") : sysI;
-    const zkR = hasGfm ? cols(sysR) : zkI;
+    zkR = hasGfm ? cols(sysR) : zkI;
     refined = refinedIteration(units, n, vpre, (a, b) => solveLinearFault({ systems: sysR, k, type, zf, vpre, live, zk: zkR, inj: [null, a, b] }));
   }
   const used = hasInv ? (options.inverterModel ?? opts.inverterModel) : "iec";
@@ -124,11 +125,8 @@ export function solveFault(network: CompiledNetwork, location: FaultLocation, ty
 
   const unitInj = new Map<string, [Cx, Cx]>();
   units.forEach((u, j) => {
-    if (variant === "refined" && refined) {
-      // Extra injections (the iteration's unknowns) per unit.
-      const x1 = u.control === "grid-forming" ? { re: refined.out[j].i1.re, im: refined.out[j].i1.im } : refined.out[j].i1;
-      unitInj.set(u.element, [x1, refined.out[j].i2]);
-    } else if (iecInj) unitInj.set(u.element, [iecInj.perUnit[j], { re: 0, im: 0 }]);
+    if (variant === "refined" && refined) unitInj.set(u.element, [refined.out[j].i1, refined.out[j].i2]);
+    else if (iecInj) unitInj.set(u.element, [iecInj.perUnit[j], { re: 0, im: 0 }]);
   });
   if (variant === "refined" && refined) {
     // Grid-forming units: the shunt carries the unlimited part; the injection is the limiting correction.
@@ -183,7 +181,7 @@ export function solveFault(network: CompiledNetwork, location: FaultLocation, ty
   }
 
   // Peak, breaking and thermal currents (IEC 60909-0:2016, clauses 8, 9, 12).
-  const pk = peakKappa(model, k, zkI[1], iecFault.zkk[1], c, un);
+  const pk = variant === "refined" ? peakKappa(model, k, zkR[1], fault.zkk[1], c, un) : peakKappa(model, k, zkI[1], iecFault.zkk[1], c, un);
   const ip_kA = pk.kappa * Math.SQRT2 * ikss_kA;
   let ib_pu = mags.ikss;
   if (type === "3ph" && mags.ikss > 0) {

@@ -191,7 +191,17 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
   }
   if (errors.length > 0) return { ok: false, errors };
 
-  const model: Model = { nodes, branches, shunts, inverters, busNode, baseMVA: opts.baseMVA, islandLive: [] };
+  const present = new Set<string>([...branches.map((b) => b.element), ...shunts.map((x) => x.element), ...inverters.map((u) => u.element)]);
+  const devices: Model["devices"] = [];
+  const seenLoc = new Set<string>();
+  for (const e of project.elements) {
+    if ((e.kind !== "relay" && e.kind !== "fuse" && e.kind !== "lvbreaker") || out.has(e.id)) continue;
+    const key = `${e.at.element}|${e.at.end}`;
+    if (!present.has(e.at.element) || seenLoc.has(key)) continue;
+    seenLoc.add(key);
+    devices.push({ element: e.at.element, end: e.at.end });
+  }
+  const model: Model = { nodes, branches, shunts, inverters, busNode, baseMVA: opts.baseMVA, devices, islandLive: [] };
   const islandErrors = assignIslands(model);
   if (islandErrors.length > 0) return { ok: false, errors: islandErrors };
   for (let i = 0; i < model.islandLive.length; i++) {

@@ -87,6 +87,8 @@ export interface Model {
   /** Bus id -> node. */
   busNode: Map<string, number>;
   baseMVA: number;
+  /** Protective device locations in service (deduplicated), in project order. */
+  devices: { element: string; end: "from" | "to" | "terminal" }[];
   /** Islands (positive-sequence connectivity): has any source? */
   islandLive: boolean[];
 }

@@ -5,8 +5,22 @@
 // computed for j from n-1 down to 0; pat(j) is a clique of the filled graph, so every Z_ik needed is in the subset.
 import type { LdltFactor } from "./ldlt.ts";
 
+export interface InverseSubset {
+  /** Diagonal of A^-1 in original indices. */
+  re: Float64Array;
+  im: Float64Array;
+  /** Entry (i, j) of A^-1 (original indices) when it lies on the factor's pattern, else null. */
+  entry(i: number, j: number): { re: number; im: number } | null;
+}
+
 /** Diagonal of A^-1 in original indices, as separate re/im arrays. */
 export function inverseDiagonal(f: LdltFactor): { re: Float64Array; im: Float64Array } {
+  const s = inverseSubset(f);
+  return { re: s.re, im: s.im };
+}
+
+/** The sparse subset of A^-1 on the pattern of L + L^T (includes every branch's pair of nodes). */
+export function inverseSubset(f: LdltFactor): InverseSubset {
   const { n, lre, lim, dre, dim } = f;
   const { perm, colPtr, rowIdx } = f.ordering;
   const zre = new Float64Array(lre.length);
@@ -64,5 +78,22 @@ export function inverseDiagonal(f: LdltFactor): { re: Float64Array; im: Float64A
     re[perm[k]] = dgr[k];
     im[perm[k]] = dgi[k];
   }
-  return { re, im };
+  const { inv } = f.ordering;
+  const entry = (i: number, j: number) => {
+    let a = inv[i];
+    let b = inv[j];
+    if (a === b) return { re: dgr[a], im: dgi[a] };
+    if (a > b) [a, b] = [b, a];
+    let lo = colPtr[a];
+    let hi = colPtr[a + 1] - 1;
+    while (lo <= hi) {
+      const mid = (lo + hi) >> 1;
+      const r = rowIdx[mid];
+      if (r === b) return { re: zre[mid], im: zim[mid] };
+      if (r < b) lo = mid + 1;
+      else hi = mid - 1;
+    }
+    return null;
+  };
+  return { re, im, entry };
 }

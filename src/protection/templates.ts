@@ -10,7 +10,9 @@ export const TEMPLATE_FORMAT = "islet-device-template";
 export const TEMPLATE_FORMAT_VERSION = 1;
 
 /** A device record without id, name and location (kept per kind, so `kind` still narrows it). */
-export type DeviceBody = ProtectiveDevice extends infer D ? (D extends ProtectiveDevice ? Omit<D, "id" | "name" | "at"> : never) : never;
+// (a key-remapping mapped type: Omit would collapse the loose records' known fields into their index signature)
+type WithoutPlace<D> = { [K in keyof D as K extends "id" | "name" | "at" ? never : K]: D[K] };
+export type DeviceBody = ProtectiveDevice extends infer D ? (D extends ProtectiveDevice ? WithoutPlace<D> : never) : never;
 
 export interface DeviceTemplate {
   /** Stable template id, e.g. "relay-iec-standard-inverse-feeder". */

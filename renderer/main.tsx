@@ -10,7 +10,10 @@ import { setHost } from "./host/currentHost.ts";
 import { startAutosave } from "./files/autosave.ts";
 import { loadDemo, showProject } from "./files/fileCommands.ts";
 import { newProject } from "../src/model/projectFile.ts";
-import { createEngineClient } from "./worker/engineClient.ts";
+import { createStudioPort } from "./worker/studioWorker.ts";
+import { engineClient } from "./worker/engineClient.ts";
+import { studyClient } from "./worker/studyClient.ts";
+import { setStudyClient } from "./fault/studyCommands.ts";
 import { startFaultRunner } from "./fault/faultRunner.ts";
 import { useSessionStore } from "./store/sessionStore.ts";
 import { studioPanes } from "./app/studioPanes.tsx";
@@ -22,9 +25,11 @@ async function start(): Promise<void> {
   if (params.get("theme") === "dark" || (!params.has("theme") && window.matchMedia?.("(prefers-color-scheme: dark)").matches)) {
     useSessionStore.getState().set({ theme: "dark" });
   }
-  const engine = createEngineClient(params.get("worker") !== "0");
-  (window as unknown as { __isletEngineMode: string }).__isletEngineMode = engine.mode;
-  startFaultRunner(engine);
+  const { port, mode } = createStudioPort(params.get("worker") !== "0");
+  (window as unknown as { __isletEngineMode: string }).__isletEngineMode = mode;
+  const study = studyClient(port);
+  setStudyClient(study);
+  startFaultRunner(engineClient(port), study);
 
   const recovery = params.has("empty") || params.has("generate") ? null : await host.readAutosave().catch(() => null);
   const root = createRoot(document.getElementById("root") as HTMLElement);

@@ -11,6 +11,7 @@ import { alignSelection, copySelection, deleteSelection, paste, type AlignMode }
 import { nodeSize } from "../canvas/toFlow.ts";
 import { autoLayout } from "../canvas/autoLayout.ts";
 import { faultAtSelection } from "./faultCommands.ts";
+import { StudyControl } from "./StudyControl.tsx";
 
 const FAULT_WORDS: Record<FaultType, string> = { "3ph": "Three-phase", LL: "Line-line", LG: "Line-earth", LLG: "Line-line-earth" };
 
@@ -112,6 +113,7 @@ export function Toolbar() {
           <button className="tool-button" onClick={() => session.set({ faultTarget: null })} title="Esc">Clear fault</button>
         )}
       </div>
+      <StudyControl />
       <div className="tool-spacer" />
       <button className="tool-button" onClick={() => session.set({ theme: session.theme === "light" ? "dark" : "light" })} aria-label="Switch theme">
         {session.theme === "light" ? "Dark" : "Light"}

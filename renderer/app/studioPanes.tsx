@@ -1,6 +1,38 @@
-// The lower panes built outside the shell (chain, time-current, verdicts), mounted when present.
+// The lower panes built as separate components (chain, time-current, verdicts), wired to the
+// studio's stores here.
 import type { PaneEntry } from "./BottomPanes.tsx";
+import { ChainPane } from "../panes/chain/index.ts";
+import { VerdictPane } from "../panes/verdicts/index.ts";
+import { TimeCurrentView } from "../analysis/TimeCurrentView.tsx";
+import { useStudyStore } from "../fault/studyStore.ts";
+import { useSessionStore } from "../store/sessionStore.ts";
+import { selectCase } from "../fault/studyCommands.ts";
+
+function ChainView() {
+  const { caseResult, caseVerdicts, caseError } = useStudyStore();
+  const selection = useSessionStore((s) => s.selection);
+  if (caseError) return <p className="pane-empty msg-error">{caseError}</p>;
+  return (
+    <ChainPane
+      chains={caseResult?.chains ?? null}
+      caseLabel={caseResult?.faultCase.label}
+      responses={caseResult?.responses}
+      verdicts={caseVerdicts}
+      selectedDeviceId={selection[0] ?? null}
+      onStepChange={(deviceId) => useSessionStore.getState().set({ selection: [deviceId] })}
+    />
+  );
+}
+
+function VerdictView() {
+  const { full, caseResult } = useStudyStore();
+  return <VerdictPane matrix={full?.matrix ?? null} verdicts={full?.verdicts ?? []} selectedCaseId={caseResult?.faultCase.id ?? null} onSelectCase={selectCase} />;
+}
 
 export function studioPanes(): PaneEntry[] {
-  return [];
+  return [
+    { id: "chain", title: "Chain", render: () => <ChainView /> },
+    { id: "tcc", title: "Time-current", render: () => <TimeCurrentView /> },
+    { id: "verdicts", title: "Verdicts", render: () => <VerdictView /> },
+  ];
 }

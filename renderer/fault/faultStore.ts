@@ -1,13 +1,10 @@
 // The latest fault calculation shown on the one-line, with its timing. Session state.
 import { create } from "zustand";
 import type { FaultOverlay } from "./overlayTypes.ts";
-import type { CaseResult } from "../../src/study/types.ts";
 import type { FaultResult } from "../../src/engine/index.ts";
 
 export interface FaultState {
   overlay: FaultOverlay | null;
-  /** The study's view of the same case: device responses and chains (for the panes). */
-  caseResult: CaseResult | null;
   /** The engine's full result for the fault view table. */
   result: FaultResult | null;
   status: "idle" | "running" | "done" | "error";
@@ -19,7 +16,6 @@ export interface FaultState {
 
 export const useFaultStore = create<FaultState>()((set) => ({
   overlay: null,
-  caseResult: null,
   result: null,
   status: "idle",
   error: null,

@@ -9,6 +9,7 @@ import { useSessionStore } from "../store/sessionStore.ts";
 import { currentHost } from "../host/currentHost.ts";
 import { autoLayout } from "../canvas/autoLayout.ts";
 import { useFaultStore } from "../fault/faultStore.ts";
+import { useStudyStore } from "../fault/studyStore.ts";
 
 export function isDirty(): boolean {
   return useDocumentStore.getState().revision !== useSessionStore.getState().savedRevision;
@@ -32,7 +33,8 @@ export async function showProject(project: Project, file: FileRef | null, dirty 
   clearHistory();
   const revision = useDocumentStore.getState().revision;
   const session = useSessionStore.getState();
-  useFaultStore.getState().set({ overlay: null, caseResult: null, status: "idle", error: null });
+  useFaultStore.getState().set({ overlay: null, result: null, status: "idle", error: null });
+  useStudyStore.getState().set({ full: null, caseResult: null, caseVerdicts: [], running: null });
   session.set({
     file,
     selection: [],

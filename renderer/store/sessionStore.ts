@@ -61,6 +61,11 @@ export const useSessionStore = create<SessionState>()((set) => ({
   fitSeq: 0,
   notices: [],
   set: (partial) => set(partial),
-  notify: (tone, text, details) => set((s) => ({ notices: [...s.notices.slice(-3), { id: ++noticeSeq, tone, text, details }] })),
+  notify: (tone, text, details) => {
+    const id = ++noticeSeq;
+    set((s) => ({ notices: [...s.notices.slice(-3), { id, tone, text, details }] }));
+    // information fades on its own; errors stay until dismissed
+    if (tone === "info" && typeof setTimeout !== "undefined") setTimeout(() => set((s) => ({ notices: s.notices.filter((n) => n.id !== id) })), 8000);
+  },
   dismiss: (id) => set((s) => ({ notices: s.notices.filter((n) => n.id !== id) })),
 }));

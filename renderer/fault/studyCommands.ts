@@ -1,0 +1,55 @@
+// Run the full study with progress (cancellable), and pick a case from its matrix.
+import { useDocumentStore } from "../store/documentStore.ts";
+import { useSessionStore } from "../store/sessionStore.ts";
+import { useStudyStore } from "./studyStore.ts";
+import type { StudyClient } from "../worker/studyClient.ts";
+
+let client: StudyClient | null = null;
+
+export function setStudyClient(c: StudyClient): void {
+  client = c;
+}
+
+export async function runFullStudy(): Promise<void> {
+  if (!client) return;
+  const { doc, revision } = useDocumentStore.getState();
+  const store = useStudyStore.getState();
+  if (store.running) return;
+  const { requestId, result } = client.call({ kind: "full", project: doc }, (progress) => useStudyStore.getState().set({ running: { requestId, progress } }));
+  store.set({ running: { requestId, progress: null } });
+  const response = await result;
+  useStudyStore.getState().set({ running: null });
+  const session = useSessionStore.getState();
+  if (response.kind === "full") {
+    useStudyStore.getState().set({ full: response.result, fullRevision: revision });
+    const fails = response.result.verdicts.filter((v) => v.status === "fail").length;
+    const w = response.result.warnings;
+    const notes = w.length <= 3 ? w : [...w.slice(0, 2), `${w.length - 2} more notes: see the verdicts`];
+    session.notify("info", `Study finished: ${response.result.cases.length} fault cases, ${response.result.verdicts.length} verdicts (${fails} fail).`, notes);
+    session.set({ pane: "verdicts" });
+  } else if (response.kind === "cancelled") {
+    session.notify("info", "Study cancelled.");
+  } else if (response.kind === "error") {
+    session.notify("error", `The study could not run: ${response.message}`);
+  }
+}
+
+export function cancelFullStudy(): void {
+  const running = useStudyStore.getState().running;
+  if (running && client) client.cancel(running.requestId);
+}
+
+/** A matrix cell was chosen: show that case's fault on the one-line. */
+export function selectCase(caseId: string, scenarioId: string): void {
+  const full = useStudyStore.getState().full;
+  const c = full?.cases.find((x) => x.faultCase.id === caseId)?.faultCase;
+  if (!c) return;
+  const loc = c.location;
+  useSessionStore.getState().set({
+    activeScenarioId: scenarioId,
+    faultType: c.faultType,
+    faultLimit: c.limit,
+    faultTarget: loc.kind === "bus" ? { kind: "bus", bus: loc.bus } : { kind: "line", line: loc.line, pct: loc.pct },
+    selection: [],
+  });
+}

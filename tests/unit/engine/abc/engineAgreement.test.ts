@@ -6,24 +6,64 @@
 import { describe, it, expect } from "vitest";
 import fc from "fast-check";
 import { complex, type Complex } from "mathjs";
-import { compileNetwork, solveFault, type FaultResult, type Phasor } from "../../../../src/engine/index.ts";
-import { phaseDomainFault, type PhaseSolution } from "./phaseDomainFault.ts";
+import { compileNetwork, solveFault, sweepFaults, sweepDeviceCurrents, FAULT_TYPES, type FaultResult, type Phasor } from "../../../../src/engine/index.ts";
+import type { Project } from "../../../../src/model/schema.ts";
+import { phaseDomainFault, type PhaseFaultType, type PhaseSolution } from "./phaseDomainFault.ts";
 import { smallCase, smallCaseArbitrary, type SmallCase } from "./smallNetworkArbitrary.ts";
+import { miniProject } from "./miniProject.ts";
 
 const TOL_PU = 1e-9;
 const toC = (p: Phasor): Complex => complex(p.mag * Math.cos((p.ang_deg * Math.PI) / 180), p.mag * Math.sin((p.ang_deg * Math.PI) / 180));
 const dist = (a: Complex, b: Complex) => Math.hypot(a.re - b.re, a.im - b.im);
 
-function engineFault(k: SmallCase): FaultResult {
-  const compiled = compileNetwork(k.project, { scenario: "s", limit: "max", method: "classic" });
-  if (!compiled.ok) throw new Error(`seed ${k.seed}: compile failed: ${compiled.errors.map((e) => e.text).join("; ")}`);
-  return solveFault(compiled.network, { kind: "bus", bus: k.faultBus }, k.type, { faultR_ohm: k.zf_ohm.re, faultX_ohm: k.zf_ohm.im });
+function compiled(k: SmallCase) {
+  const c = compileNetwork(k.project, { scenario: "s", limit: "max", method: "classic" });
+  if (!c.ok) throw new Error(`seed ${k.seed}: compile failed: ${c.errors.map((e) => e.text).join("; ")}`);
+  return c.network;
 }
 
-function reference(k: SmallCase): PhaseSolution {
+function engineFault(k: SmallCase): FaultResult {
+  return solveFault(compiled(k), k.location, k.type, { faultR_ohm: k.zf_ohm.re, faultX_ohm: k.zf_ohm.im });
+}
+
+/** The project with a line cut in two at pct percent from its from bus, the cut being a new bus "<id>#F". */
+function splitLineProject(project: Project, lineId: string, pct: number): Project {
+  const elements = project.elements.flatMap((e) => {
+    if (e.id !== lineId || e.kind !== "line") return [e];
+    const from = project.elements.find((b) => b.id === e.fromBus && b.kind === "bus") as { un_kV: number };
+    const f = pct / 100;
+    return [
+      { kind: "bus" as const, id: `${lineId}#F`, name: "fault point", un_kV: from.un_kV },
+      { ...e, id: `${lineId}#a`, toBus: `${lineId}#F`, length_km: e.length_km * f },
+      { ...e, id: `${lineId}#b`, fromBus: `${lineId}#F`, length_km: e.length_km * (1 - f) },
+    ];
+  });
+  return { ...project, elements };
+}
+
+const REF_OPTIONS = { gridSk: "max", gridC: 1, prefault_pu: 1, generatorSeqR: "rx", scenario: "s" } as const;
+
+/** Phase-domain solution of the same fault; a fault along a line is a bus fault on the line cut in two, reported
+ * back under the line's id (its from half's from end and its to half's to end), without the cut's own bus. */
+function reference(k: SmallCase, type: PhaseFaultType = k.type, bus?: string): PhaseSolution {
   // Engine conventions the records leave open, stated here: grid Z = c Un^2/S"k max with c = prefault (1);
   // generator R2 and R0 with the machine's R/X (src/engine/elements/machineStamps.ts says so).
-  return phaseDomainFault(k.project, { bus: k.faultBus, type: k.type, zf_ohm: k.zf_ohm }, { gridSk: "max", gridC: 1, prefault_pu: 1, generatorSeqR: "rx" });
+  const loc = bus ? { kind: "bus" as const, bus } : k.location;
+  if (loc.kind === "bus") return phaseDomainFault(k.project, { bus: loc.bus, type, zf_ohm: k.zf_ohm }, REF_OPTIONS);
+  const p = splitLineProject(k.project, loc.line, loc.pct);
+  const s = phaseDomainFault(p, { bus: `${loc.line}#F`, type, zf_ohm: k.zf_ohm }, REF_OPTIONS);
+  s.busVoltage_pu.delete(`${loc.line}#F`);
+  const ends = s.ends
+    .filter((e) => !(e.element === `${loc.line}#a` && e.end === "to") && !(e.element === `${loc.line}#b` && e.end === "from"))
+    .map((e) => (e.element.startsWith(`${loc.line}#`) ? { ...e, element: loc.line } : e));
+  return { ...s, ends };
+}
+
+/** I"k as the engine defines it per type: 3ph |Ia|, LL |Ib|, LG and LLG the earth current |Ia + Ib + Ic|. */
+function ikssOf(type: PhaseFaultType, i: Complex[]): number {
+  if (type === "3ph") return Math.hypot(i[0].re, i[0].im);
+  if (type === "LL") return Math.hypot(i[1].re, i[1].im);
+  return Math.hypot(i[0].re + i[1].re + i[2].re, i[0].im + i[1].im + i[2].im);
 }
 
 const baseA = (k: SmallCase, bus: string) => {
@@ -43,6 +83,7 @@ function compare(k: SmallCase, eng: FaultResult, ref: PhaseSolution): { worst: n
   };
   const fb = baseA(k, k.faultBus) / 1000;
   for (let p = 0; p < 3; p++) note(dist(toC(eng.faultPhase_kA[p]), ref.fault_kA[p]) / fb, `fault current phase ${p}`);
+  note(Math.abs(eng.ikss_kA - ikssOf(k.type, ref.fault_kA)) / fb, "ikss_kA");
   for (const bv of eng.buses) {
     const mine = ref.busVoltage_pu.get(bv.bus);
     if (!mine) {
@@ -65,30 +106,32 @@ function compare(k: SmallCase, eng: FaultResult, ref: PhaseSolution): { worst: n
   return { worst, where };
 }
 
-/** Kirchhoff's current law in the engine's own results: at every bus, currents into elements plus the fault sum to 0. */
+/** Kirchhoff's current law in the engine's own results: at every node (buses joined by closed switches form one node,
+ * the engine reports no switch currents), currents into elements plus the fault current sum to zero. */
 function kclResidual_pu(k: SmallCase, eng: FaultResult): { worst: number; where: string } {
   let worst = 0;
   let where = "";
-  const buses = eng.buses.map((b) => b.bus);
-  for (const bus of buses) {
+  const nodes = compiled(k).nodes.filter((nd) => nd.buses.length > 0);
+  for (const nd of nodes) {
+    const inNode = new Set(nd.buses);
     for (let p = 0; p < 3; p++) {
       let re = 0;
       let im = 0;
       for (const e of [...eng.branchEnds, ...eng.shunts]) {
-        if (e.bus !== bus) continue;
+        if (!inNode.has(e.bus)) continue;
         const c = toC(e.phase_A[p]);
         re += c.re;
         im += c.im;
       }
-      if (bus === k.faultBus) {
+      if (k.location.kind === "bus" && inNode.has(k.location.bus)) {
         const f = toC(eng.faultPhase_kA[p]);
         re += f.re * 1000;
         im += f.im * 1000;
       }
-      const d = Math.hypot(re, im) / baseA(k, bus);
+      const d = Math.hypot(re, im) / baseA(k, nd.buses[0]);
       if (!(d <= worst)) {
         worst = Number.isNaN(d) ? Infinity : d;
-        where = `bus ${bus} phase ${p}`;
+        where = `node ${nd.buses.join("+")} phase ${p}`;
       }
     }
   }
@@ -107,9 +150,9 @@ describe("engine against the phase-domain reference (classic method, prefault 1 
       fc.assert(
         fc.property(smallCaseArbitrary(meshed), (k) => {
           const r = compare(k, engineFault(k), reference(k));
-          expect(r.worst, `seed ${k.seed}, ${k.type} at ${k.faultBus}: ${r.where}`).toBeLessThan(TOL_PU);
+          expect(r.worst, `seed ${k.seed}, ${k.type} at ${JSON.stringify(k.location)}: ${r.where}`).toBeLessThan(TOL_PU);
         }),
-        { numRuns: 150 },
+        { numRuns: 100 },
       );
     });
   }
@@ -125,15 +168,76 @@ describe("engine against the phase-domain reference (classic method, prefault 1 
   });
 });
 
+describe("random cases cover what they claim", () => {
+  it("include faults along lines, islanded scenarios, couplers and open ties", () => {
+    const seen = new Set<string>();
+    for (let s = 0; s < 200; s++) {
+      const k = smallCase(s, s % 2 === 0);
+      if (k.location.kind === "line") seen.add("line");
+      if (k.project.scenarios[0].outOfService.includes("Q")) seen.add("island");
+      for (const e of k.project.elements) if (e.kind === "switch") seen.add(e.closed ? "coupler" : "open-tie");
+    }
+    expect([...seen].sort()).toEqual(["coupler", "island", "line", "open-tie"]);
+  });
+});
+
+describe("known gap, reported to the engine: a cable whose two ends a closed coupler joins", () => {
+  // The engine leaves such a cable out ("both ends on the same node") and refuses a fault along it, while the
+  // physical fault draws current into the cable from both ends. Marked as an expected failure so that the fix shows.
+  it.fails("faults a point along a cable that runs in parallel with a closed bus coupler", () => {
+    const project = miniProject([
+      { kind: "bus", id: "B0", un_kV: 11 },
+      { kind: "bus", id: "B1", un_kV: 11 },
+      { kind: "grid", id: "Q", bus: "B0", skMax_MVA: 200, skMin_MVA: 100, rx: 0.1, z0z1: 1, r0x0: 0.1 },
+      { kind: "switch", id: "S", busA: "B0", busB: "B1", closed: true },
+      { kind: "line", id: "L", fromBus: "B0", toBus: "B1", length_km: 1, r1_ohmPerKm: 0.2, x1_ohmPerKm: 0.1, r0_ohmPerKm: 0.8, x0_ohmPerKm: 0.35, csa_mm2: 150, ampacity_A: 300 },
+    ]);
+    const k: SmallCase = { project, location: { kind: "line", line: "L", pct: 50 }, faultBus: "B0", type: "3ph", zf_ohm: { re: 0, im: 0 }, meshed: true, seed: -1 };
+    const eng = engineFault(k);
+    expect(eng.ikss_kA).toBeGreaterThan(0);
+    const r = compare(k, eng, reference(k));
+    expect(r.worst, r.where).toBeLessThan(TOL_PU);
+  });
+});
+
+describe("all-bus sweep against the phase-domain reference", () => {
+  it("gives every bus's I\"k for the four fault types and every device's phase currents to 1e-9 pu", () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 0, max: 2 ** 31 - 1 }), fc.boolean(), (seed, meshed) => {
+        const k = smallCase(seed, meshed);
+        const sweep = sweepFaults(compiled(k), { types: [...FAULT_TYPES] });
+        expect(sweep.types).toEqual([...FAULT_TYPES]);
+        sweep.busIds.forEach((bus, b) => {
+          const base_kA = baseA(k, bus) / 1000;
+          sweep.types.forEach((type, t) => {
+            const ref = reference(k, type, bus);
+            const where = `seed ${seed}, ${type} at ${bus}`;
+            expect(Math.abs(sweep.ikss_kA[b * sweep.types.length + t] - ikssOf(type, ref.fault_kA)) / base_kA, where).toBeLessThan(TOL_PU);
+            sweep.devices.forEach((dev, d) => {
+              const mine = ref.ends.find((e) => e.element === dev.element && e.end === dev.end);
+              expect(mine, `${where}: device at ${dev.element} ${dev.end}`).toBeDefined();
+              const got = sweepDeviceCurrents(sweep, d, b, t).phase_A;
+              for (let p = 0; p < 3; p++) expect(dist(toC(got[p]), (mine as { phase_A: Complex[] }).phase_A[p]) / baseA(k, dev.bus), `${where}: ${dev.element} ${dev.end} phase ${p}`).toBeLessThan(TOL_PU);
+            });
+          });
+        });
+        // every in-service bus is swept (all are energized in these cases)
+        expect(sweep.busIds.length).toBe(reference(k, "3ph", k.faultBus).busVoltage_pu.size);
+      }),
+      { numRuns: 25 },
+    );
+  });
+});
+
 describe("engine results obey Kirchhoff's current law at every bus", () => {
   for (const meshed of [false, true]) {
     it(`on random ${meshed ? "meshed" : "radial"} networks, every phase, every fault type`, () => {
       fc.assert(
         fc.property(smallCaseArbitrary(meshed), (k) => {
           const r = kclResidual_pu(k, engineFault(k));
-          expect(r.worst, `seed ${k.seed}, ${k.type} at ${k.faultBus}: ${r.where}`).toBeLessThan(TOL_PU);
+          expect(r.worst, `seed ${k.seed}, ${k.type} at ${JSON.stringify(k.location)}: ${r.where}`).toBeLessThan(TOL_PU);
         }),
-        { numRuns: 150 },
+        { numRuns: 100 },
       );
     });
   }

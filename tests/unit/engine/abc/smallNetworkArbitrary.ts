@@ -8,13 +8,19 @@
 //   phase-domain reference has no magnetising branch to fix a floating zero-sequence voltage; a Yyn0 transformer
 //   therefore always comes with an earthed generator on its LV bus;
 // - no inverters (their current limits are not part of this comparison).
+// Also drawn: bus couplers (closed switches), open tie switches, an islanded scenario (feeder out, a standby
+// generator at the main bus), a generator taken out of service, relays at branch ends, and faults along lines.
 import fc from "fast-check";
 import type { Project } from "../../../../src/model/schema.ts";
 import type { PhaseFaultType } from "./phaseDomainFault.ts";
 import { miniProject } from "./miniProject.ts";
 
+export type SmallLocation = { kind: "bus"; bus: string } | { kind: "line"; line: string; pct: number };
+
 export interface SmallCase {
   project: Project;
+  location: SmallLocation;
+  /** The bus whose voltage base applies to the fault (the line's from bus for a fault along a line). */
   faultBus: string;
   type: PhaseFaultType;
   zf_ohm: { re: number; im: number };
@@ -72,6 +78,9 @@ export function smallCase(seed: number, meshed: boolean): SmallCase {
       xdss_pu: u(0.1, 0.25), x2_pu: u(0.1, 0.3), x0_pu: u(0.03, 0.1), rx: u(0.05, 0.2), earthing: earth,
     });
   };
+  const lines: string[] = [];
+  const branches: string[] = [];
+  const group: number[] = [0]; // buses joined by closed couplers share a group
   for (let i = 1; i < n; i++) {
     const parent = Math.floor(r() * i);
     el.push({ kind: "bus", id: `B${i}`, name: `Bus ${i}`, un_kV: 0 }); // voltage filled below
@@ -85,20 +94,38 @@ export function smallCase(seed: number, meshed: boolean): SmallCase {
         kind: "transformer", id: `T${i}`, name: `Transformer ${i}`, hvBus: `B${parent}`, lvBus: `B${i}`, sr_MVA: u(0.1, 5), urHv_kV: 11, urLv_kV: 0.4,
         uk_pct: uk, ur_pct: u(0.3, 1.5), vectorGroup: g.vg, z0z1: u(0.7, 1), earthingHv: earthing(false), earthingLv: earthing(false), tap_pct: 0,
       });
+      branches.push(`T${i}`);
       if (g.vg === "Yyn0") generator(`M${i}`, i, earthing(false));
+    } else if (r() < 0.15) {
+      un.push(un[parent]);
+      shift.push(shift[parent]);
+      el.push({ kind: "switch", id: `S${i}`, name: `Coupler ${i}`, device: "breaker", busA: `B${parent}`, busB: `B${i}`, closed: true });
+      group[i] = group[parent];
     } else {
       un.push(un[parent]);
       shift.push(shift[parent]);
       line(`L${i}`, parent, i);
+      lines.push(`L${i}`);
+      branches.push(`L${i}`);
     }
     busRec.un_kV = un[i];
+    if (group[i] === undefined) group[i] = i;
   }
   if (meshed) {
     const ties = 1 + Math.floor(r() * 2);
     for (let k = 0; k < ties; k++) {
       const a = Math.floor(r() * n);
-      const same = [...Array(n).keys()].filter((b) => b !== a && un[b] === un[a] && ((shift[b] - shift[a]) % 360 + 360) % 360 === 0);
-      if (same.length > 0) line(`X${k}`, a, pick(same));
+      // Not across a closed coupler: a cable whose ends are one node is a separate, known case (see the tests).
+      const same = [...Array(n).keys()].filter((b) => group[b] !== group[a] && un[b] === un[a] && ((shift[b] - shift[a]) % 360 + 360) % 360 === 0);
+      if (same.length === 0) continue;
+      const b = pick(same);
+      if (r() < 0.25) {
+        el.push({ kind: "switch", id: `X${k}`, name: `Tie switch ${k}`, device: "switch", busA: `B${a}`, busB: `B${b}`, closed: false });
+      } else {
+        line(`X${k}`, a, b);
+        lines.push(`X${k}`);
+        branches.push(`X${k}`);
+      }
     }
   }
   // A few more sources: generators on MV or LV buses, a motor on an LV bus.
@@ -108,14 +135,38 @@ export function smallCase(seed: number, meshed: boolean): SmallCase {
     el.push({ kind: "motor", id: "MOT", name: "Pump motor", bus: `B${pick(lvBuses)}`, pr_kW: u(20, 300), ur_kV: 0.4, eta: 0.94, cosPhi: 0.86, ilrIr: u(5, 7), rx: 0.42 });
   }
   if (r() < 0.5) el.push({ kind: "load", id: "LD", name: "Load", bus: `B${Math.floor(r() * n)}`, p_kW: 100, q_kvar: 30 });
+  // Scenario: as drawn, islanded on a standby generator, or with one generator out of service.
+  const scenario: { outOfService: string[] } = { outOfService: [] };
+  const gens = el.filter((e) => e.kind === "generator").map((e) => e.id as string).filter((id) => !id.startsWith("M"));
+  const mode = r();
+  if (mode < 0.25) {
+    generator("SG", 0, { kind: "resistance", z_ohm: u(5, 40) });
+    scenario.outOfService.push("Q");
+  } else if (mode < 0.4 && gens.length > 0) {
+    scenario.outOfService.push(pick(gens));
+  }
+  // Relays at branch ends (their currents are what the sweep keeps).
+  branches.forEach((b, k) => {
+    if (r() < 0.7) el.push({ kind: "relay", id: `R${k}`, name: `Relay ${k}`, at: { element: b, end: r() < 0.7 ? "from" : "to" }, ctPrimary_A: 400, functions: [] });
+  });
   const type = pick(TYPES);
-  const fb = Math.floor(r() * n);
+  let location: SmallLocation;
+  let fb: number;
+  if (lines.length > 0 && r() < 0.3) {
+    const id = pick(lines);
+    const rec = el.find((e) => e.id === id) as { fromBus: string };
+    fb = Number(rec.fromBus.slice(1));
+    location = { kind: "line", line: id, pct: Math.round(u(1, 99) * 100) / 100 };
+  } else {
+    fb = Math.floor(r() * n);
+    location = { kind: "bus", bus: `B${fb}` };
+  }
   const faultBus = `B${fb}`;
   // Half the faults bolted, half through up to 0.3 pu of the fault bus's impedance base (mostly resistive).
   const zb = (un[fb] * un[fb]) / 100;
   const zf_ohm = r() < 0.5 ? { re: 0, im: 0 } : { re: u(0, 0.3) * zb, im: u(0, 0.1) * zb };
-  const project = miniProject(el, { method: "classic", prefault_pu: 1, faultR_ohm: zf_ohm.re, faultX_ohm: zf_ohm.im });
-  return { project, faultBus, type, zf_ohm, meshed, seed };
+  const project = miniProject(el, { method: "classic", prefault_pu: 1, faultR_ohm: zf_ohm.re, faultX_ohm: zf_ohm.im }, scenario);
+  return { project, location, faultBus, type, zf_ohm, meshed, seed };
 }
 
 /** fast-check arbitrary of small cases; the seed is part of the value, so a counterexample can be rebuilt. */

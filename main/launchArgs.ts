@@ -1,7 +1,10 @@
 // What the app was asked to open at launch: a project file (command line, file association),
-// the demo (--demo, used by `npm start`), or nothing. Chromium switches are ignored.
+// the demo (--demo, used by `npm start`), or nothing. Chromium switches are ignored, and only
+// a ".islet" path counts as a file, so stray arguments (an app path, a script) open nothing.
 import { isAbsolute, resolve } from "node:path";
 import type { FileRef, MenuCommand } from "../src/model/hostContract.ts";
+
+const PROJECT_SUFFIX = ".islet";
 
 export interface LaunchRequest {
   file: string | null;
@@ -21,7 +24,7 @@ export function parseLaunchArgs(argv: readonly string[], defaultApp: boolean, cw
   for (const arg of args) {
     if (arg === "--demo") demo = true;
     else if (arg === "--dev") dev = true;
-    else if (arg.startsWith("-")) continue;
+    else if (arg.startsWith("-") || !arg.toLowerCase().endsWith(PROJECT_SUFFIX)) continue;
     else if (file === null) file = isAbsolute(arg) ? arg : resolve(cwd, arg);
   }
   return { file, demo, dev };

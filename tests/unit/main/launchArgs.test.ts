@@ -16,6 +16,11 @@ describe("launch arguments", () => {
     expect(r.file).toBe(resolve("/home/u", "sites/plant.islet"));
   });
 
+  it("ignores arguments that are not project files (an app path, a script, a process serial number)", () => {
+    expect(parseLaunchArgs(["/usr/bin/node", "out/main/main.cjs", "-psn_0_1234", "notes.txt"], false, "/w").file).toBeNull();
+    expect(parseLaunchArgs(["islet", "/sites/Plant.ISLET"], false, "/w").file).toBe("/sites/Plant.ISLET"); // suffix compared without case
+  });
+
   it("recognises --dev", () => {
     expect(parseLaunchArgs(["islet", "--dev"], false, "/").dev).toBe(true);
   });

@@ -72,17 +72,17 @@ export function ChainPane(props: ChainPaneProps) {
   };
 
   return (
-    <section className="islet-pane chain-pane" aria-label="Primary and backup chain">
-      <header className="pane-header">
-        <h2 className="pane-title">Chain</h2>
-        {props.caseLabel ? <span className="pane-subtitle" title={props.caseLabel}>{props.caseLabel}</span> : null}
-        <span className="pane-spacer" />
-        {paths.length > 0 ? <span className="pane-chip">{paths.length === 1 ? "1 source path" : `${paths.length} source paths`}</span> : null}
+    <section className="ap-pane chain-pane" aria-label="Primary and backup chain">
+      <header className="ap-header">
+        <h2 className="ap-title">Chain</h2>
+        {props.caseLabel ? <span className="ap-subtitle" title={props.caseLabel}>{props.caseLabel}</span> : null}
+        <span className="ap-spacer" />
+        {paths.length > 0 ? <span className="ap-chip">{paths.length === 1 ? "1 source path" : `${paths.length} source paths`}</span> : null}
       </header>
       {!chains ? (
-        <div className="pane-empty">Select a fault case to see its primary and backup devices.</div>
+        <div className="ap-empty">Select a fault case to see its primary and backup devices.</div>
       ) : paths.every((p) => p.links.length === 0) ? (
-        <div className="pane-empty">No protective device lies between this fault and any source.</div>
+        <div className="ap-empty">No protective device lies between this fault and any source.</div>
       ) : (
         <div
           className="chain-body"
@@ -98,11 +98,11 @@ export function ChainPane(props: ChainPaneProps) {
               <tr>
                 <th>Device</th>
                 <th>Role</th>
-                <th className="num">Current</th>
-                <th className="num">Operating</th>
-                <th className="num">Clearing</th>
-                <th className="num" title="Next device's fastest clearing minus this device's slowest clearing">
-                  Margin to next
+                <th className="num" title="Current through the device, primary A">Current</th>
+                <th className="num" title="Operating time: relay or trip-unit time, fuse melting time">Trip</th>
+                <th className="num" title="Clearing time: trip plus breaker or mechanism time, fuse total clearing">Clear</th>
+                <th className="num" title="Margin to the next device: its fastest clearing minus this device's slowest clearing">
+                  Margin
                 </th>
               </tr>
             </thead>
@@ -115,7 +115,7 @@ export function ChainPane(props: ChainPaneProps) {
                 </tr>
                 {path.links.length === 0 ? (
                   <tr>
-                    <td colSpan={6} className="pane-empty">
+                    <td colSpan={6} className="ap-empty">
                       no protective device on this path
                     </td>
                   </tr>
@@ -136,7 +136,7 @@ export function ChainPane(props: ChainPaneProps) {
                       }}
                     >
                       <td>
-                        <span className={`status-dot${status ? ` is-${status}` : ""}`} title={status ? STATUS_LABEL[status] : "no verdict"} />
+                        <span className={`ap-status-dot${status ? ` is-${status}` : ""}`} title={status ? STATUS_LABEL[status] : "no verdict"} />
                         <span className="chain-indent">{link.depth > 0 ? "↳" : ""}</span>
                         {link.deviceName || link.device}
                       </td>
@@ -145,7 +145,7 @@ export function ChainPane(props: ChainPaneProps) {
                       </td>
                       <td className="num">{formatCurrent_A(link.current_A)}</td>
                       <td className="num">{operate.has(link.device) ? formatTime_s(operate.get(link.device)) : "—"}</td>
-                      <td className="num">{link.tClear_s === null ? "does not operate" : formatTime_s(link.tClear_s)}</td>
+                      <td className="num">{link.tClear_s === null ? <span className="chain-no-op">no trip</span> : formatTime_s(link.tClear_s)}</td>
                       <td className="num">{formatTime_s(link.marginToNext_s)}</td>
                     </tr>
                   );
@@ -155,7 +155,9 @@ export function ChainPane(props: ChainPaneProps) {
           </table>
         </div>
       )}
-      <div className="chain-hint">↑↓ step along a path · ←→ change path · the coloured dot is the worst verdict naming the device in this case</div>
+      <div className="chain-hint" title="The coloured dot is the worst verdict naming the device in this case">
+        ↑↓ along a path · ←→ between paths · dot: worst verdict
+      </div>
     </section>
   );
 }

@@ -75,7 +75,9 @@ export function TccPane(props: TccPaneProps) {
   const boxRef = useRef<HTMLDivElement>(null);
   const svgRef = useRef<SVGSVGElement>(null);
   const { width, height } = useElementSize(boxRef);
-  const layout = useMemo(() => plotLayout(Math.max(width, 320), Math.max(height, 240)), [width, height]);
+  // Font size of the pane sets the scale of every fixed length (fluid root font size in the studio).
+  const fontPx = boxRef.current ? parseFloat(getComputedStyle(boxRef.current).fontSize) || 12 : 12;
+  const layout = useMemo(() => plotLayout(Math.max(width, 320), Math.max(height, 240), fontPx / 12), [width, height, fontPx]);
   const [pointer, setPointer] = useState<{ x: number; y: number } | null>(null);
   const [hoverIndex, setHoverIndex] = useState<number | null>(null);
   const [drag, setDrag] = useState<DragState | null>(null);
@@ -83,18 +85,10 @@ export function TccPane(props: TccPaneProps) {
   // Ids of clip path and hatch patterns, unique per pane instance so two plots on one page never share them.
   const uid = `tcc${useId().replace(/[^A-Za-z0-9]/g, "")}`;
 
-  const currentDomain = useMemo<[number, number]>(() => {
-    if (props.currentDomain_A) return [props.currentDomain_A[0], props.currentDomain_A[1]];
-    const values: number[] = [];
-    for (const b of bands) {
-      values.push(b.pickup_A);
-      for (const p of b.max) values.push(p[0]);
-    }
-    for (const m of faultMarks) values.push(m.current_A * 1.5);
-    for (const e of equipment) for (const p of e.points) values.push(p[0]);
-    for (const m of markers) values.push(m.current_A);
-    return decadeDomain(values, 2, [10, 10000]);
-  }, [props.currentDomain_A, bands, faultMarks, equipment, markers]);
+  const currentDomain = useMemo<[number, number]>(
+    () => (props.currentDomain_A ? [props.currentDomain_A[0], props.currentDomain_A[1]] : autoCurrentDomain(bands, equipment, faultMarks, markers)),
+    [props.currentDomain_A, bands, equipment, faultMarks, markers],
+  );
   const timeDomain = props.timeDomain_s ?? DEFAULT_TIME;
 
   const x = useMemo(() => scaleLog().domain(currentDomain).range([layout.left, layout.right]), [currentDomain, layout]);
@@ -194,20 +188,20 @@ export function TccPane(props: TccPaneProps) {
   const cursor = drag?.axis === "pickup" ? "ew-resize" : drag?.axis === "multiplier" ? "ns-resize" : activeBand && activeBand.draggable && (activeBand.draggable.pickup || activeBand.draggable.multiplier) ? "move" : "crosshair";
 
   return (
-    <section className="islet-pane tcc-pane" aria-label="Time-current plot">
-      <header className="pane-header">
-        <h2 className="pane-title">Time-current</h2>
-        {props.title ? <span className="pane-subtitle">{props.title}</span> : null}
-        <span className="pane-chip" title="All currents on the plot are referred to this voltage">
+    <section className="ap-pane tcc-pane" aria-label="Time-current plot">
+      <header className="ap-header">
+        <h2 className="ap-title">Time-current</h2>
+        {props.title ? <span className="ap-subtitle">{props.title}</span> : null}
+        <span className="ap-chip" title="All currents on the plot are referred to this voltage">
           currents at {trimNumber(props.referenceVoltage_kV, 4)} kV
         </span>
-        <span className="pane-spacer" />
+        <span className="ap-spacer" />
         {onExport ? (
           <>
-            <button type="button" className="pane-button" disabled={busy} onClick={() => void startExport("svg")}>
+            <button type="button" className="ap-button" disabled={busy} onClick={() => void startExport("svg")}>
               Export SVG
             </button>
-            <button type="button" className="pane-button" disabled={busy} onClick={() => void startExport("png")}>
+            <button type="button" className="ap-button" disabled={busy} onClick={() => void startExport("png")}>
               Export PNG
             </button>
           </>
@@ -256,6 +250,20 @@ export function TccPane(props: TccPaneProps) {
       </div>
     </section>
   );
+}
+
+/** Whole decades from half the lowest pickup to three times the largest fault current (or, without
+ * fault marks, the end of the longest curve): the region where settings are judged. */
+function autoCurrentDomain(
+  bands: readonly TccBand[],
+  equipment: readonly TccEquipmentCurve[],
+  marks: readonly TccFaultMark[],
+  markers: readonly TccMarkerPoint[],
+): [number, number] {
+  const lows = bands.map((b) => Math.min(b.nominal[0]?.[0] ?? Infinity, b.min[0]?.[0] ?? Infinity) * 0.5); // referred currents (pickup_A is device-side)
+  for (const e of equipment) if (e.points.length > 0) lows.push(Math.min(...e.points.map((p) => p[0])) * 0.8);
+  const highs = marks.length > 0 ? marks.map((m) => m.current_A * 3) : bands.map((b) => b.max[b.max.length - 1]?.[0] ?? 0);
+  return decadeDomain([...lows, ...highs, ...markers.map((m) => m.current_A)], 2, [10, 10000]);
 }
 
 function clampPx(v: number, lo: number, hi: number): number {
@@ -323,19 +331,19 @@ const PlotStatic = memo(function PlotStatic(p: StaticProps) {
       </g>
       <g className="tcc-axis">
         {xt.major.map((v) => (
-          <text key={`xl${v}`} className="tcc-tick-label" x={x(v)} y={L.bottom + 15} textAnchor="middle">
+          <text key={`xl${v}`} className="tcc-tick-label" x={x(v)} y={L.bottom + 15 * L.s} textAnchor="middle">
             {tickLabel(v)}
           </text>
         ))}
         {yt.major.map((v) => (
-          <text key={`yl${v}`} className="tcc-tick-label" x={L.left - 6} y={y(v) + 4} textAnchor="end">
+          <text key={`yl${v}`} className="tcc-tick-label" x={L.left - 6 * L.s} y={y(v) + 4 * L.s} textAnchor="end">
             {tickLabel(v)}
           </text>
         ))}
         <text className="tcc-axis-title" x={(L.left + L.right) / 2} y={L.axisTitleY} textAnchor="middle">
           Current (A) referred to {trimNumber(p.referenceVoltage_kV, 4)} kV
         </text>
-        <text className="tcc-axis-title" transform={`translate(14 ${(L.top + L.bottom) / 2}) rotate(-90)`} textAnchor="middle">
+        <text className="tcc-axis-title" transform={`translate(${14 * L.s} ${(L.top + L.bottom) / 2}) rotate(-90)`} textAnchor="middle">
           Time (s)
         </text>
       </g>
@@ -353,9 +361,10 @@ const PlotStatic = memo(function PlotStatic(p: StaticProps) {
           );
         })}
         {p.markers.map((m) => (
-          <g key={m.id} className="tcc-marker" transform={`translate(${x(m.current_A)} ${y(m.time_s)})`}>
+          <g key={m.id} className="tcc-marker" transform={`translate(${x(m.current_A)} ${y(m.time_s)}) scale(${L.s})`} style={{ fontSize: "12px" }}>
             <path d="M-5,0L0,-5L5,0L0,5Z" className="tcc-marker-shape" />
-            <text x={8} y={-6} className="tcc-marker-label">
+            {/* The label goes left of the point near the right edge so it stays on the plot. */}
+            <text x={x(m.current_A) > L.right - 130 * L.s ? -8 : 8} y={-6} textAnchor={x(m.current_A) > L.right - 130 * L.s ? "end" : "start"} className="tcc-marker-label">
               {m.name}
             </text>
           </g>
@@ -365,7 +374,7 @@ const PlotStatic = memo(function PlotStatic(p: StaticProps) {
           return (
             <g key={m.id} className="tcc-fault-mark">
               <line x1={xi} x2={xi} y1={L.top} y2={L.bottom} strokeDasharray={scenarioDash(scenarioIds.indexOf(m.scenarioId ?? ""))} className="tcc-fault-line" />
-              <text className="tcc-fault-label" transform={`translate(${xi - 4} ${L.top + 6}) rotate(-90)`} textAnchor="end">
+              <text className="tcc-fault-label" transform={`translate(${xi - 4 * L.s} ${L.top + 6 * L.s}) rotate(-90)`} textAnchor="end">
                 {m.label} · {formatCurrent_A(m.current_A)}
               </text>
             </g>
@@ -395,10 +404,10 @@ const PlotStatic = memo(function PlotStatic(p: StaticProps) {
 
 function Legend(p: StaticProps) {
   const L = p.layout;
-  const rows: { key: string; swatch: ReactElement; title: string; detail: string; highlight: boolean }[] = [];
+  const rows: { key: string; swatch: ReactElement; title: string; detail: string; setting?: string; highlight: boolean }[] = [];
   for (const b of p.bands) {
     const color = p.colors.get(b.deviceId) ?? "currentColor";
-    const detail = [b.functionLabel, `pickup ${formatCurrent_A(b.pickup_A)}`, b.multiplier !== undefined ? `×${trimNumber(b.multiplier, 3)}` : ""].filter(Boolean).join(" · ");
+    const setting = [`pickup ${formatCurrent_A(b.pickup_A)}`, b.multiplier !== undefined ? `multiplier ${trimNumber(b.multiplier, 3)}` : ""].filter(Boolean).join(" · ");
     rows.push({
       key: `${b.deviceId}/${b.functionId}`,
       swatch: (
@@ -408,7 +417,8 @@ function Legend(p: StaticProps) {
         </g>
       ),
       title: b.deviceName,
-      detail,
+      detail: b.functionLabel,
+      setting,
       highlight: b.deviceId === p.highlightDeviceId,
     });
   }
@@ -422,7 +432,7 @@ function Legend(p: StaticProps) {
         </g>
       ),
       title: e.name,
-      detail: e.kind === "transformer-damage" ? "through-fault withstand" : e.kind === "cable-damage" ? "conductor withstand I²t" : "motor starting",
+      detail: e.detail ?? (e.kind === "transformer-damage" ? "through-fault withstand" : e.kind === "cable-damage" ? "conductor withstand I²t" : "motor starting"),
       highlight: false,
     });
   }
@@ -439,28 +449,44 @@ function Legend(p: StaticProps) {
       highlight: false,
     });
   }
-  const rowH = 30;
-  const maxRows = Math.max(1, Math.floor((L.bottom - L.top - 18) / rowH));
-  const shown = rows.slice(0, maxRows);
-  const maxChars = Math.max(12, Math.floor((L.legendWidth - 26) / 5.6));
+  // Drawn in 12 px units and scaled by L.s as a whole, like the read-out box.
+  const rowHeight = (r: (typeof rows)[number]) => (r.setting ? 41 : 30);
+  const room = (L.bottom - L.top) / L.s - 40;
+  const shown: typeof rows = [];
+  const rowY: number[] = [];
+  let used = 0;
+  for (const r of rows) {
+    if (used + rowHeight(r) > room) break;
+    rowY.push(30 + used);
+    shown.push(r);
+    used += rowHeight(r);
+  }
+  // Rough glyph widths at the legend's font sizes: 6.6 px bold titles, 5.4 px details.
+  const titleChars = Math.max(10, Math.floor((L.legendWidth / L.s - 26) / 6.6));
+  const maxChars = Math.max(12, Math.floor((L.legendWidth / L.s - 26) / 5.4));
   return (
-    <g className="tcc-legend" transform={`translate(${L.legendX} ${L.top})`}>
+    <g className="tcc-legend" transform={`translate(${L.legendX} ${L.top}) scale(${L.s})`} style={{ fontSize: "12px" }}>
       <text className="tcc-legend-heading" y={10}>
         Legend
       </text>
       {shown.map((r, k) => (
-        <g key={r.key} transform={`translate(0 ${30 + k * rowH})`} className={r.highlight ? "tcc-legend-row is-highlight" : "tcc-legend-row"}>
+        <g key={r.key} transform={`translate(0 ${rowY[k]})`} className={r.highlight ? "tcc-legend-row is-highlight" : "tcc-legend-row"}>
           {r.swatch}
           <text x={24} y={0} className="tcc-legend-title">
-            {ellipsis(r.title, maxChars - 2)}
+            {ellipsis(r.title, titleChars)}
           </text>
           <text x={24} y={12} className="tcc-legend-detail">
             {ellipsis(r.detail, maxChars)}
           </text>
+          {r.setting ? (
+            <text x={24} y={23} className="tcc-legend-detail tcc-legend-setting">
+              {ellipsis(r.setting, maxChars)}
+            </text>
+          ) : null}
         </g>
       ))}
       {rows.length > shown.length ? (
-        <text className="tcc-legend-detail" y={30 + shown.length * rowH}>
+        <text className="tcc-legend-detail" y={30 + used}>
           + {rows.length - shown.length} more
         </text>
       ) : null}
@@ -481,7 +507,7 @@ function DragGhost(p: { uid: string; band: TccBand; patch: TccSettingPatch; x: S
   return (
     <g {...{ [NO_EXPORT_ATTR]: "true" }} className="tcc-ghost" clipPath={`url(#${p.uid}-clip)`}>
       <path d={linePath(moved, p.x, p.y)} style={{ stroke: p.color }} className="tcc-ghost-line" />
-      <text x={p.layout.left + 8} y={p.layout.top + 16} className="tcc-ghost-label">
+      <text x={p.layout.left + 8 * p.layout.s} y={p.layout.top + 16 * p.layout.s} className="tcc-ghost-label">
         {p.band.deviceName}: {label}
       </text>
     </g>
@@ -494,15 +520,17 @@ function PointerReadout(p: { pointer: { x: number; y: number }; x: Scale; y: Sca
   const i_A = p.x.invert(pointer.x);
   const t_s = p.y.invert(pointer.y);
   const lines = p.bands.map((b) => ({ key: `${b.deviceId}/${b.functionId}`, name: b.deviceName, color: p.colors.get(b.deviceId) ?? "currentColor", t: curveTimeAt(b.nominal, i_A), below: b.nominal.length > 0 && i_A < b.nominal[0][0] }));
+  // The box is drawn in 12 px units (boxW x boxH) and scaled by L.s.
   const boxW = 200;
   const boxH = 34 + lines.length * 14;
-  const bx = pointer.x + 14 + boxW > L.right ? pointer.x - 14 - boxW : pointer.x + 14;
-  const by = Math.min(Math.max(pointer.y + 14, L.top), L.bottom - boxH);
+  const gap = 14 * L.s;
+  const bx = pointer.x + gap + boxW * L.s > L.right ? pointer.x - gap - boxW * L.s : pointer.x + gap;
+  const by = Math.min(Math.max(pointer.y + gap, L.top), L.bottom - boxH * L.s);
   return (
     <g {...{ [NO_EXPORT_ATTR]: "true" }} className="tcc-readout" pointerEvents="none">
       <line className="tcc-crosshair" x1={pointer.x} x2={pointer.x} y1={L.top} y2={L.bottom} />
       <line className="tcc-crosshair" y1={pointer.y} y2={pointer.y} x1={L.left} x2={L.right} />
-      <g transform={`translate(${bx} ${by})`}>
+      <g transform={`translate(${bx} ${by}) scale(${L.s})`} style={{ fontSize: "12px" }}>
         <rect className="tcc-readout-box" width={boxW} height={boxH} rx={4} />
         <text className="tcc-readout-head" x={8} y={15}>
           {formatCurrent_A(i_A)} · {formatTime_s(t_s)}

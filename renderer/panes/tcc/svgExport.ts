@@ -20,6 +20,9 @@ export const INLINED_PROPERTIES = [
   "text-anchor",
   "dominant-baseline",
   "visibility",
+  "paint-order",
+  "font-variant-numeric",
+  "text-transform",
 ] as const;
 
 /** Attribute that marks on-screen-only parts (pointer cross-hair, read-out, drag ghost, buttons). */

@@ -35,6 +35,8 @@ export interface TccEquipmentCurve {
   name: string;
   kind: "transformer-damage" | "cable-damage" | "motor-start";
   points: readonly CurvePoint[];
+  /** Second legend line (default: what the kind means, e.g. "through-fault withstand"). */
+  detail?: string;
 }
 
 /** A single point such as a transformer's magnetising inrush (about 12x rated for 0.1 s). */

@@ -27,7 +27,8 @@ export interface VerdictPaneProps {
   subtitle?: string;
 }
 
-const ROW_H = 24;
+/** Line height of the matrix in units of the pane's font size (the virtual list needs it in px). */
+const ROW_EM = 2;
 const KIND_TITLE: Record<VerdictKind, string> = {
   sensitivity: "sensitivity",
   selectivity: "selectivity",
@@ -52,7 +53,9 @@ export function VerdictPane(props: VerdictPaneProps) {
     [matrix, byId, statuses, kinds, props.groupOfRow],
   );
   const items = useMemo(() => (shown ? flattenGroups(shown.groups, collapsed) : []), [shown, collapsed]);
-  const win = virtualWindow(scrollTop, viewport, ROW_H, items.length);
+  const fontPx = scrollRef.current ? parseFloat(getComputedStyle(scrollRef.current).fontSize) || 12 : 12;
+  const rowH = Math.round(ROW_EM * fontPx);
+  const win = virtualWindow(scrollTop, viewport, rowH, items.length);
 
   const selectedCell = useMemo(() => (matrix && selectedCaseId ? matrix.cells.find((c) => c.caseId === selectedCaseId) ?? null : null), [matrix, selectedCaseId]);
   const selectedRow = selectedCell && matrix ? matrix.rows.find((r) => r.id === selectedCell.row) : undefined;
@@ -83,19 +86,19 @@ export function VerdictPane(props: VerdictPaneProps) {
   };
 
   return (
-    <section className="islet-pane verdict-pane" aria-label="Verdict matrix">
-      <header className="pane-header">
-        <h2 className="pane-title">Verdicts</h2>
-        {props.subtitle ? <span className="pane-subtitle">{props.subtitle}</span> : null}
-        <span className="pane-spacer" />
-        {shown ? <span className="pane-chip">{shown.rowCount === matrix?.rows.length ? `${shown.rowCount} fault cases` : `${shown.rowCount} of ${matrix?.rows.length ?? 0} fault cases`}</span> : null}
+    <section className="ap-pane verdict-pane" aria-label="Verdict matrix" style={{ "--verdict-row-h": `${rowH}px` } as CSSProperties}>
+      <header className="ap-header">
+        <h2 className="ap-title">Verdicts</h2>
+        {props.subtitle ? <span className="ap-subtitle">{props.subtitle}</span> : null}
+        <span className="ap-spacer" />
+        {shown ? <span className="ap-chip">{shown.rowCount === matrix?.rows.length ? `${shown.rowCount} fault cases` : `${shown.rowCount} of ${matrix?.rows.length ?? 0} fault cases`}</span> : null}
       </header>
       <div className="verdict-filters">
         <div className="verdict-filter-group" role="group" aria-label="Filter by status">
           <span className="verdict-filter-label">Status</span>
           {VERDICT_STATUSES.map((s) => (
-            <button key={s} type="button" className="pane-toggle" aria-pressed={statuses.has(s)} onClick={() => toggle(statuses, s, setStatuses)}>
-              <span className={`status-dot is-${s}`} />
+            <button key={s} type="button" className="ap-toggle" aria-pressed={statuses.has(s)} onClick={() => toggle(statuses, s, setStatuses)}>
+              <span className={`ap-status-dot is-${s}`} />
               {STATUS_LABEL[s]}
             </button>
           ))}
@@ -109,21 +112,20 @@ export function VerdictPane(props: VerdictPaneProps) {
               <button
                 key={k}
                 type="button"
-                className="pane-toggle"
+                className="ap-toggle"
                 aria-pressed={kinds.has(k)}
                 title={t ? `${t.fail} fail, ${t.warn} warning, ${t.pass} pass` : undefined}
                 onClick={() => toggle(kinds, k, setKinds)}
               >
-                <span className={`status-dot${worst ? ` is-${worst}` : ""}`} />
+                <span className={`ap-status-dot${worst ? ` is-${worst}` : ""}`} />
                 {KIND_TITLE[k]}
-                {t && t.fail > 0 ? ` · ${t.fail}` : ""}
               </button>
             );
           })}
         </div>
       </div>
       {!matrix || !shown ? (
-        <div className="pane-empty">Run the study to fill the matrix.</div>
+        <div className="ap-empty">Run the study to fill the matrix.</div>
       ) : (
         <div className="verdict-split">
           <div className="verdict-matrix">
@@ -136,7 +138,7 @@ export function VerdictPane(props: VerdictPaneProps) {
               ))}
             </div>
             <div className="verdict-scroll" ref={scrollRef} onScroll={(e) => setScrollTop(e.currentTarget.scrollTop)} role="grid" aria-rowcount={items.length}>
-              {items.length === 0 ? <div className="pane-empty">No verdict matches the filters.</div> : null}
+              {items.length === 0 ? <div className="ap-empty">No verdict matches the filters.</div> : null}
               <div style={{ height: win.padTop_px }} />
               {items.slice(win.start, win.end).map((item) =>
                 item.kind === "group" ? (
@@ -150,7 +152,7 @@ export function VerdictPane(props: VerdictPaneProps) {
                   >
                     <div style={{ gridColumn: `1 / span ${nScen + 1}` }}>
                       <span className="verdict-group-caret">{item.collapsed ? "▸" : "▾"}</span>
-                      <span className={`status-dot${item.group.worst ? ` is-${item.group.worst}` : ""}`} />
+                      <span className={`ap-status-dot${item.group.worst ? ` is-${item.group.worst}` : ""}`} />
                       {item.group.label}
                       <span className="verdict-group-counts">
                         {item.group.rows.length} cases
@@ -173,12 +175,12 @@ export function VerdictPane(props: VerdictPaneProps) {
               <div style={{ height: win.padBottom_px }} />
             </div>
             <div className="verdict-row verdict-totals" style={gridStyle} role="row">
-              <div>Cells by worst verdict</div>
+              <div title="Number of cells per scenario whose worst verdict is a fail (✕) or a warning (!)">Cells failing / warning</div>
               {shown.totals.map((t, k) => (
                 <div key={matrix.scenarios[k].id} title={`${t.fail} fail, ${t.warn} warning, ${t.pass} pass`}>
-                  {VERDICT_STATUSES.filter((s) => t[s] > 0).map((s) => (
-                    <span key={s} className="verdict-count">
-                      <span className={`status-dot is-${s}`} />
+                  {(["fail", "warn"] as const).map((s) => (
+                    <span key={s} className={`verdict-count is-${s}`}>
+                      {STATUS_GLYPH[s]}
                       {t[s]}
                     </span>
                   ))}
@@ -188,16 +190,16 @@ export function VerdictPane(props: VerdictPaneProps) {
           </div>
           <div className="verdict-details" aria-live="polite">
             {!selectedCell ? (
-              <div className="pane-empty">Click a cell to list its verdicts.</div>
+              <div className="ap-empty">Click a cell to list its verdicts.</div>
             ) : (
               <>
                 <h3>
                   {selectedRow?.label ?? selectedCell.caseId} — {selectedScenario?.name ?? selectedCell.scenario}
                 </h3>
-                {details.kept.length === 0 ? <div className="pane-empty">No verdict of this case matches the filters.</div> : null}
+                {details.kept.length === 0 ? <div className="ap-empty">No verdict of this case matches the filters.</div> : null}
                 {details.kept.map((v) => (
                   <div key={v.id} className="verdict-detail">
-                    <span className={`status-dot is-${v.status}`} title={STATUS_LABEL[v.status]} />
+                    <span className={`ap-status-dot is-${v.status}`} title={STATUS_LABEL[v.status]} />
                     <span className="verdict-detail-kind">{KIND_TITLE[v.kind]}</span>
                     <span>{v.explanation}</span>
                     {Object.keys(v.numbers).length > 0 ? (
@@ -209,7 +211,7 @@ export function VerdictPane(props: VerdictPaneProps) {
                     ) : null}
                   </div>
                 ))}
-                {details.hidden > 0 ? <div className="pane-empty">{details.hidden} more hidden by the filters.</div> : null}
+                {details.hidden > 0 ? <div className="ap-empty">{details.hidden} more hidden by the filters.</div> : null}
               </>
             )}
           </div>
@@ -251,7 +253,7 @@ function MatrixCellButton(p: {
     <div>
       <button
         type="button"
-        className={`verdict-cell ${worst ? `status-bg is-${worst}` : "is-none"}${p.selected ? " is-selected" : ""}`}
+        className={`verdict-cell ${worst ? `ap-status-bg is-${worst}` : "is-none"}${p.selected ? " is-selected" : ""}`}
         style={{ width: "calc(100% - 6px)" }}
         title={label}
         aria-label={label}

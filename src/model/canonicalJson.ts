@@ -10,31 +10,41 @@ function defOf(schema: AnySchema | undefined): Def | undefined {
   return schema ? (schema._zod.def as unknown as Def) : undefined;
 }
 
-/** Strips optional/default/nullable/readonly/pipe wrappers. */
+/** Strips optional/default/nullable/readonly/pipe wrappers. Cached: the same schemas are met once per record. */
+const unwrapped = new WeakMap<AnySchema, AnySchema | undefined>();
 function unwrap(schema: AnySchema | undefined): AnySchema | undefined {
-  let s = schema;
+  if (!schema) return undefined;
+  if (unwrapped.has(schema)) return unwrapped.get(schema);
+  let s: AnySchema | undefined = schema;
   for (let guard = 0; s && guard < 20; guard++) {
-    const def = defOf(s)!;
+    const def: Def = defOf(s)!;
     if (def.type === "optional" || def.type === "default" || def.type === "nullable" || def.type === "readonly" || def.type === "prefault" || def.type === "catch") {
       s = def.innerType as AnySchema;
     } else if (def.type === "pipe") {
       s = def.in as AnySchema;
-    } else return s;
+    } else break;
   }
+  unwrapped.set(schema, s);
   return s;
 }
 
-/** For a union of objects, the option whose literal discriminator matches the value. */
+/** For a union of objects: discriminator value -> option, built once per union. */
+const unionIndex = new WeakMap<Def, { key: string; options: Map<unknown, AnySchema> }>();
 function pickOption(def: Def, value: Record<string, unknown>): AnySchema | undefined {
-  const options = (def.options as AnySchema[] | undefined) ?? [];
-  const key = typeof def.discriminator === "string" ? def.discriminator : "kind";
-  for (const option of options) {
-    const o = defOf(unwrap(option));
-    if (o?.type !== "object") continue;
-    const lit = defOf(unwrap((o.shape as Record<string, AnySchema>)[key]));
-    if (lit?.type === "literal" && (lit.values as unknown[]).includes(value[key])) return option;
+  let index = unionIndex.get(def);
+  if (!index) {
+    const key = typeof def.discriminator === "string" ? def.discriminator : "kind";
+    const options = new Map<unknown, AnySchema>();
+    for (const option of (def.options as AnySchema[] | undefined) ?? []) {
+      const o = defOf(unwrap(option));
+      if (o?.type !== "object") continue;
+      const lit = defOf(unwrap((o.shape as Record<string, AnySchema>)[key]));
+      if (lit?.type === "literal") for (const v of lit.values as unknown[]) if (!options.has(v)) options.set(v, option);
+    }
+    index = { key, options };
+    unionIndex.set(def, index);
   }
-  return undefined;
+  return index.options.get(value[index.key]);
 }
 
 /** A copy of `value` with object keys in canonical order (values untouched). */
@@ -42,10 +52,15 @@ export function canonicalize(value: unknown, schema?: AnySchema): unknown {
   const s = unwrap(schema);
   const def = defOf(s);
   if (Array.isArray(value)) {
-    let itemSchema: ((i: number) => AnySchema | undefined) = () => undefined;
-    if (def?.type === "array") itemSchema = () => def.element as AnySchema;
-    else if (def?.type === "tuple") itemSchema = (i) => (def.items as AnySchema[])[i] ?? (def.rest as AnySchema | undefined);
-    return value.map((v, i) => canonicalize(v, itemSchema(i)));
+    if (def?.type === "array") {
+      const item = def.element as AnySchema;
+      return value.map((v) => canonicalize(v, item));
+    }
+    if (def?.type === "tuple") {
+      const items = def.items as AnySchema[];
+      return value.map((v, i) => canonicalize(v, items[i] ?? (def.rest as AnySchema | undefined)));
+    }
+    return value.map((v) => canonicalize(v));
   }
   if (value === null || typeof value !== "object") return value;
   const obj = value as Record<string, unknown>;
@@ -53,8 +68,9 @@ export function canonicalize(value: unknown, schema?: AnySchema): unknown {
   const out: Record<string, unknown> = {};
   if (def?.type === "object") {
     const shape = def.shape as Record<string, AnySchema>;
-    for (const key of Object.keys(shape)) if (Object.hasOwn(obj, key)) setKey(out, key, canonicalize(obj[key], shape[key]));
-    for (const key of Object.keys(obj).sort()) if (!Object.hasOwn(shape, key)) setKey(out, key, canonicalize(obj[key], def.catchall as AnySchema | undefined));
+    for (const key in shape) if (Object.hasOwn(obj, key)) out[key] = canonicalize(obj[key], shape[key]);
+    const unknown = Object.keys(obj).filter((key) => !Object.hasOwn(shape, key));
+    if (unknown.length > 0) for (const key of unknown.sort()) setKey(out, key, canonicalize(obj[key], def.catchall as AnySchema | undefined));
     return out;
   }
   const valueSchema = def?.type === "record" ? (def.valueType as AnySchema) : undefined;
@@ -64,7 +80,8 @@ export function canonicalize(value: unknown, schema?: AnySchema): unknown {
 
 /** Plain assignment would treat a "__proto__" key from a file as the prototype; define it as data instead. */
 export function setKey(target: Record<string, unknown>, key: string, value: unknown): void {
-  Object.defineProperty(target, key, { value, enumerable: true, writable: true, configurable: true });
+  if (key === "__proto__") Object.defineProperty(target, key, { value, enumerable: true, writable: true, configurable: true });
+  else target[key] = value;
 }
 
 /** Canonical JSON text: 2-space indent and a trailing newline. */

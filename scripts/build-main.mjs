@@ -8,7 +8,7 @@ import { fileURLToPath, pathToFileURL } from "node:url";
 const repoRoot = resolve(dirname(fileURLToPath(import.meta.url)), "..");
 
 /** esbuild options for the two bundles; exported so a test can check them without building. */
-export function mainBuildOptions(root = repoRoot, { production = process.env.NODE_ENV === "production" } = {}) {
+export function mainBuildOptions(root = repoRoot, { production = process.env.NODE_ENV === "production", outDir = join(root, "out", "main") } = {}) {
   const common = {
     bundle: true,
     format: "cjs",
@@ -20,15 +20,15 @@ export function mainBuildOptions(root = repoRoot, { production = process.env.NOD
     absWorkingDir: root,
   };
   return [
-    { ...common, platform: "node", entryPoints: [join(root, "main", "main.ts")], outfile: join(root, "out", "main", "main.cjs") },
+    { ...common, platform: "node", entryPoints: [join(root, "main", "main.ts")], outfile: join(outDir, "main.cjs") },
     // Sandboxed preloads get a limited require: only "electron" (and a few polyfills) resolve,
     // so everything else is bundled in and nothing may pull in Node built-ins.
-    { ...common, platform: "browser", entryPoints: [join(root, "main", "preload.ts")], outfile: join(root, "out", "main", "preload.cjs") },
+    { ...common, platform: "browser", entryPoints: [join(root, "main", "preload.ts")], outfile: join(outDir, "preload.cjs") },
   ];
 }
 
-export async function buildMain(root = repoRoot) {
-  for (const options of mainBuildOptions(root)) await build(options);
+export async function buildMain(root = repoRoot, options = {}) {
+  for (const o of mainBuildOptions(root, options)) await build(o);
 }
 
 if (process.argv[1] && import.meta.url === pathToFileURL(resolve(process.argv[1])).href) {

@@ -16,7 +16,7 @@ export function currentForTime(device: ProtectiveDevice, t_s: number, opts: Inve
   const band = opts.band ?? "nominal";
   const curve = deviceCurve(device, opts.quantity ?? "phase", opts.restraint_pu ?? 1);
   const p = curve.pickup_A(band);
-  if (!(p > 0) || !(t_s >= 0)) return Infinity;
+  if (!(p > 0) || !Number.isFinite(p) || !(t_s >= 0)) return Infinity;
   let lo = p * (1 - 1e-12);
   let hi = p * 1.0001;
   while (curve.time_s(hi, band) > t_s) {

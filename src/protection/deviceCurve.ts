@@ -44,7 +44,7 @@ export function deviceCurve(device: ProtectiveDevice, quantity: CurveQuantity = 
   return {
     elements,
     time_s,
-    pickup_A: (band) => Math.min(...elements.map((e) => e.pickup_A(band) * sc(e))),
+    pickup_A: (band) => Math.min(Infinity, ...elements.map((e) => e.pickup_A(band) * sc(e))),
     breakpoints_A: (band) => elements.flatMap((e) => e.breakpoints_A(band).map((b) => b * sc(e))),
     clearing_s: (i, band) => {
       let best = Infinity;

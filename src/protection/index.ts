@@ -24,6 +24,8 @@ export { measurementFromSequence, balancedMeasurement } from "./measurement.ts";
 export { directionOf, POLARISING_MIN_PU } from "./directionOf.ts";
 export type { Direction, DirectionDecision } from "./directionOf.ts";
 export { restraintFactor } from "./relayElements.ts";
+export { devicePickups } from "./devicePickups.ts";
+export type { DevicePickups } from "./devicePickups.ts";
 
 // a fault whose current changes in steps
 export { initialTravel, accumulate, timeToOperate } from "./accumulate.ts";

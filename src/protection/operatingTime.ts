@@ -9,6 +9,8 @@ export interface ElementTiming {
   element: TimeElement;
   /** Measured magnitude divided by the 51V pickup scale: the current the curve is read at. */
   effective_A: number;
+  /** 51V pickup multiplier applied (1 otherwise). */
+  pickupScale: number;
   trip_s: number;
   clearing_s: number;
   note: string;
@@ -21,10 +23,11 @@ export function elementTimings(elements: readonly TimeElement[], m: Measurement,
   return elements.map((element) => {
     const gate = element.gate?.(m, opts.ignoreDirection ?? false) ?? { ok: true, pickupScale: 1, note: "" };
     const effective_A = measuredCurrent(m, element.quantity) / gate.pickupScale;
-    if (!gate.ok) return { element, effective_A, trip_s: Infinity, clearing_s: Infinity, note: gate.note, blocked: true };
+    const pickupScale = gate.pickupScale;
+    if (!gate.ok) return { element, effective_A, pickupScale, trip_s: Infinity, clearing_s: Infinity, note: gate.note, blocked: true };
     const trip_s = element.time_s(effective_A, band);
     const clearing_s = !Number.isFinite(trip_s) ? Infinity : element.clear_s ? element.clear_s(effective_A, band) : trip_s + element.added_s;
-    return { element, effective_A, trip_s, clearing_s: Math.max(clearing_s, trip_s), note: gate.note, blocked: false };
+    return { element, effective_A, pickupScale, trip_s, clearing_s: Math.max(clearing_s, trip_s), note: gate.note, blocked: false };
   });
 }
 
@@ -49,6 +52,6 @@ export function operatingTime(device: ProtectiveDevice, m: Measurement, opts: Op
     trip_s: best.trip_s,
     clearing_s: best.clearing_s,
     functionId: el.id,
-    reason: `${el.title} (${el.id}) operates at ${fmt(best.effective_A)} A against pickup ${fmt(el.pickup_A(opts.band ?? "nominal"))} A in ${fmt(best.trip_s)} s, ${clearText(best.clearing_s)}${extra}`,
+    reason: `${el.title} (${el.id}) operates at ${fmt(best.effective_A * best.pickupScale)} A against pickup ${fmt(el.pickup_A(opts.band ?? "nominal") * best.pickupScale)} A in ${fmt(best.trip_s)} s, ${clearText(best.clearing_s)}${extra}`,
   };
 }

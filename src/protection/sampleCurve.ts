@@ -23,6 +23,7 @@ export function sampleCurve(device: ProtectiveDevice, opts: SampleOptions = {}):
   const tTop = opts.tMax_s ?? 1000;
   const tBottom = opts.tMin_s ?? 0.01;
   const ppd = Math.max(4, Math.round(opts.pointsPerDecade ?? 60));
+  if (curve.elements.length === 0) return { nominal: [], min: [], max: [] };
   const pNominal = curve.pickup_A("nominal");
   const pLow = Math.min(...BANDS.map((b) => curve.pickup_A(b)));
   const allBreaks = BANDS.flatMap((b) => curve.breakpoints_A(b));

@@ -72,6 +72,8 @@ function describeProblem(issue: Issue, field: string, value: unknown): string {
         if (field === "kind" && value !== undefined) return `unknown kind ${describeValue(value)}; known kinds: ${known}`;
         return `${f} must be one of ${known} (got ${describeValue(value)})`;
       }
+      const allowed = literalAlternatives(issue);
+      if (allowed) return `${f} must be one of ${allowed.map((v) => JSON.stringify(v)).join(", ")} (got ${describeValue(value)})`;
       return `${f} does not match any allowed form (got ${describeValue(value)})`;
     }
     case "not_multiple_of":
@@ -79,6 +81,18 @@ function describeProblem(issue: Issue, field: string, value: unknown): string {
     default:
       return `${f}: ${issue.message}`;
   }
+}
+
+/** For a union of literals (e.g. 50 | 60) every branch fails with invalid_value: list the allowed values. */
+function literalAlternatives(issue: Issue): unknown[] | null {
+  const branches = (issue as { errors?: Issue[][] }).errors;
+  if (!Array.isArray(branches) || branches.length === 0) return null;
+  const values: unknown[] = [];
+  for (const branch of branches) {
+    if (branch.length !== 1 || branch[0].code !== "invalid_value" || branch[0].path.length > 0) return null;
+    values.push(...branch[0].values);
+  }
+  return values;
 }
 
 function article(expected: string): string {

@@ -9,11 +9,6 @@ export interface Island {
   sources: string[];
 }
 
-/** True when the element is switched in: not listed out of service and, for a switch, closed in the scenario. */
-export function isInService(element: Element, scenario?: Scenario): boolean {
-  if (scenario?.outOfService.includes(element.id)) return false;
-  return true;
-}
 
 /** A switch's state in a scenario: the scenario's override, else the switch's own state. */
 export function isSwitchClosed(element: Element, scenario?: Scenario): boolean {

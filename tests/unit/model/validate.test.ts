@@ -60,6 +60,32 @@ describe("schema-level errors", () => {
   });
 });
 
+describe("schema-level errors outside elements", () => {
+  it("list the allowed values of a choice and name the settings block", () => {
+    const doc = smallDoc();
+    elementById(doc, "RT").ctSecondary_A = 2;
+    doc.meta = { name: "x", frequency_Hz: 55 };
+    doc.study = { lvTolerance_pct: 8 };
+    const texts = validateProject(doc).map((m) => m.text);
+    // allowed values as declared in schema.ts (CT secondaries 1 A / 5 A; 50/60 Hz; IEC 60909-0 LV tolerance 6 % / 10 %)
+    expect(texts).toEqual([
+      "Project settings (meta): frequency_Hz must be one of 50, 60 (got 55)",
+      "Study settings (study): lvTolerance_pct must be one of 6, 10 (got 8)",
+      'Relay RT "Transformer relay": ctSecondary_A must be one of 1, 5 (got 2)',
+    ]);
+  });
+
+  it("name scenarios and layout entries", () => {
+    const doc = smallDoc();
+    doc.scenarios[0].limits = [];
+    doc.layout = { MV: { x: "a", y: 0 } };
+    expect(validateProject(doc)).toEqual([
+      { severity: "error", elementId: "S1", field: "limits", text: 'Scenario S1 "Grid-tied": limits must have at least 1 item (got 0)' },
+      { severity: "error", elementId: "MV", field: "x", text: 'Layout of MV: x must be a number (got "a")' },
+    ]);
+  });
+});
+
 describe("unique ids", () => {
   it("flags a second element with the same id", () => {
     const doc = smallDoc();

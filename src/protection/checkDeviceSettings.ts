@@ -27,7 +27,7 @@ class Collector {
   readonly out: Message[] = [];
   constructor(private readonly device: Device) {}
   add(severity: Severity, field: string, problem: string, got?: unknown): void {
-    const tail = got === undefined && !problem.includes("(got") ? "" : got === undefined ? "" : ` (got ${fmt(got)})`;
+    const tail = got === undefined ? "" : ` (got ${fmt(got)})`;
     this.out.push({
       severity,
       elementId: this.device.id,

@@ -1,5 +1,17 @@
 // Public API of the protective-device models (relays, fuses, LV trip units, bands, damage curves, plotting data).
 // Everything here is pure: plain data in, plain data out; impossible settings throw SettingsError.
+//
+// Conventions:
+// - currents are primary amperes at the device; sequence currents are positive from the bus into the element
+//   the device looks into (forward); voltages are per unit.
+// - bands: "min" is the fastest edge (low pickup, short time; fuse melting), "max" the slowest (high pickup,
+//   long time; fuse total clearing). A relay's trip_s excludes the breaker; clearing_s includes it.
+// - 67 is polarised by -jV1 (quadrature, no memory); 67N by -3V0, falling back to -V2 when |V0| < 0.01 pu.
+// - 51V scales its pickup by clamp(|V1| / vFull_pu, kMin, 1).
+// - LV long time picks up at 1.15 Ir, kept inside 1.05-1.30 Ir by every band.
+// - Parametric fuse families are illustrative formulas of this project (FUSE_FAMILY_NOTE); current limitation
+//   is not modelled (FUSE_LET_THROUGH_NOTE).
+// - Show PROTECTION_CAUTION wherever these results are shown.
 export type {
   Band,
   CurveBand,

@@ -28,6 +28,23 @@ describe("time accumulation (integral of dt / t(I))", () => {
     );
   });
 
+  it("operates at the fixed-current time for LV trip units and fuses too", () => {
+    fc.assert(
+      fc.property(
+        fc.constantFrom(breaker({ shortTime: { isd_x: 4, tsd_s: 0.2, i2t: true } }), fuse(), fuse({ kind: "parametric", family: "time-delay" })),
+        fc.double({ min: 1.7, max: 40, noNaN: true }),
+        fc.integer({ min: 1, max: 25 }),
+        (dev, x, steps) => {
+          const m = balancedMeasurement((dev.kind === "fuse" ? dev.rating_A : 630) * x);
+          const t = operatingTime(dev, m).trip_s;
+          let s: TravelState = initialTravel();
+          for (let k = 0; k < steps; k++) s = accumulate(s, dev, m, (1.2 * t) / steps);
+          expect(s.operated?.at_s).toBeCloseTo(t, 9); // integral of dt / t over constant current (definition)
+        },
+      ),
+    );
+  });
+
   it("adds up partial travel across a current change (two-step hand calculation)", () => {
     const r = relay([fn51({ curve: "iec-very-inverse", multiplier: 0.1 })]);
     // VI TMS 0.1: 2x -> 1.35 s, 10x -> 0.15 s (IEC 60255-151 Table 1, recomputed). 0.675 s at 2x is half the travel;

@@ -41,11 +41,14 @@ export interface ShownMatrix {
   totals: Record<VerdictStatus, number>[];
 }
 
-/** Group of a matrix row: the location part of its id ("bus:LV-A|LL|min" -> "bus:LV-A"), label without the prefix. */
+/** Group of a matrix row: the faulted element of its id ("bus:LV-A|LL|min" -> bus LV-A; every point
+ * along a line, "line:C1@50|LL|min", -> line C1). */
 export function defaultRowGroup(row: MatrixRow): { key: string; label: string } {
-  const key = row.id.split("|")[0] || row.id;
-  const label = key.replace(/^(bus|line):/, "").replace(/@.*$/, "");
-  return { key, label };
+  const location = row.id.split("|")[0] || row.id;
+  const key = location.replace(/@.*$/, "");
+  if (key.startsWith("bus:")) return { key, label: key.slice(4) };
+  if (key.startsWith("line:")) return { key, label: `${key.slice(5)}, along the line` };
+  return { key, label: key };
 }
 
 const zero = (): Record<VerdictStatus, number> => ({ fail: 0, warn: 0, pass: 0 });

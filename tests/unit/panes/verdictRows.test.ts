@@ -83,6 +83,14 @@ describe("the verdict matrix as shown", () => {
     expect(defaultRowGroup({ id: "odd", label: "odd" })).toEqual({ key: "odd", label: "odd" });
   });
 
+  it("groups every point along a line under that line", () => {
+    // row ids as src/study/faultCases.ts writes them: line:<id>@<pct>|<type>|<limit>
+    const a = defaultRowGroup({ id: "line:C1@10|LL|min", label: "" });
+    const b = defaultRowGroup({ id: "line:C1@90|3ph|max", label: "" });
+    expect(a.key).toBe(b.key);
+    expect(a.label).toBe("C1, along the line");
+  });
+
   it("leaves the rows of a collapsed group out of the list", () => {
     const m = buildShownMatrix(matrix, byId, all);
     const open = flattenGroups(m.groups, new Set());

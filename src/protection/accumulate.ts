@@ -30,7 +30,8 @@ export function accumulate(state: TravelState, device: ProtectiveDevice, m: Meas
     const el = t.element;
     const picked = Number.isFinite(t.trip_s);
     const before = travel[el.id] ?? 0;
-    const reset = el.reset_s(t.effective_A, band);
+    // a blocked directional element resets as if no current flowed (torque reversed or withheld)
+    const reset = el.reset_s(t.blocked ? 0 : t.effective_A, band);
     const after = step(before, t.trip_s, reset, picked, dt_s);
     travel[el.id] = after;
     if (el.clear_s) {

@@ -4,6 +4,7 @@ import type { RelayFunction, Tolerance } from "../model/schema.ts";
 import type { Fuse, LvBreaker, Message, ProtectiveDevice, Relay, Severity } from "./types.ts";
 import { deviceLabel } from "./deviceLabel.ts";
 import { curveFamily } from "./curveConstants.ts";
+import { logLogInterpolate } from "./logLogInterpolate.ts";
 
 /** Usual setting ranges. IEC TMS 0.01-1.5 and IEEE TD 0.1-15 // common practice (numerical relay setting ranges). */
 export const TMS_RANGE = { min: 0.01, max: 1.5 } as const;
@@ -149,8 +150,12 @@ function checkFuse(c: Collector, f: Fuse): void {
   }
   const meltOk = checkPoints(c, "curve.melt", curve.melt);
   const clearOk = checkPoints(c, "curve.clear", curve.clear);
-  if (meltOk && clearOk && curve.clear[0][0] < curve.melt[0][0]) {
-    c.add("warning", "curve.clear", `starts below the melting curve's lowest current (${curve.clear[0][0]} A < ${curve.melt[0][0]} A)`);
+  if (meltOk && clearOk) {
+    if (curve.clear[0][0] < curve.melt[0][0]) {
+      c.add("warning", "curve.clear", `starts below the melting curve's lowest current (${curve.clear[0][0]} A < ${curve.melt[0][0]} A)`);
+    }
+    const faster = curve.melt.find(([i, t]) => logLogInterpolate(curve.clear, i) < t);
+    if (faster) c.add("warning", "curve.clear", `is faster than the melting curve at ${faster[0]} A: total clearing cannot precede melting`);
   }
 }
 

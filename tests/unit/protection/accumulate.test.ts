@@ -75,6 +75,25 @@ describe("time accumulation (integral of dt / t(I))", () => {
     expect(s.travel.F51).toBeCloseTo(0.25, 12);
   });
 
+  it("resets a directional element blocked by a reversed fault", () => {
+    const r = relay([fn51({ curve: "ieee-very-inverse", multiplier: 1, reset: "ieee", direction: "forward", rca_deg: 0, ansi: "67" })]);
+    const seq = (sign: number) => ({
+      i0_A: { re: 0, im: 0 },
+      i1_A: { re: 0, im: -200 * sign }, // lags V1 by 90 deg: on the -jV1 reference for sign +1 (forward)
+      i2_A: { re: 0, im: 0 },
+      v0_pu: { re: 0, im: 0 },
+      v1_pu: { re: 0.5, im: 0 },
+      v2_pu: { re: 0, im: 0 },
+    });
+    const m = (sign: number) => ({ phase_A: [200, 200, 200] as const, residual_A: 0, negative_A: 0, sequence: seq(sign) });
+    const t2 = operatingTime(r, m(1)).trip_s;
+    let s = accumulate(initialTravel(), r, m(1), t2 / 2);
+    expect(s.travel.F51).toBeCloseTo(0.5, 12);
+    s = accumulate(s, r, m(-1), 21.6 / 4);
+    // IEEE reset at M = 0: TD * tr = 21.6 s for full travel (IEEE C37.112 VI, recomputed): a quarter in 5.4 s
+    expect(s.travel.F51).toBeCloseTo(0.25, 12);
+  });
+
   it("keeps a fuse's travel between steps (no cooling)", () => {
     const f = fuse();
     let s = accumulate(initialTravel(), f, balancedMeasurement(500), 0.5);

@@ -73,6 +73,13 @@ describe("point-table fuse curves", () => {
     expect(() => operatingTime(f, balancedMeasurement(300))).toThrow(SettingsError);
   });
 
+  it("warn when the total-clearing curve is faster than the melting curve", () => {
+    const f = fuse({ kind: "points", melt: [[100, 100], [1000, 0.02]], clear: [[120, 100], [1000, 0.01]] });
+    const m = checkDeviceSettings(f);
+    expect(m.map((x) => [x.severity, x.field])).toEqual([["warning", "curve.clear"]]);
+    expect(m[0].text).toContain("at 1000 A"); // clear 0.01 s < melt 0.02 s at the last point
+  });
+
   it("give melting as trip time and total clearing as clearing time", () => {
     const f = fuse({ kind: "points", melt: [[100, 100], [1000, 0.01]], clear: [[120, 100], [1000, 0.02]] });
     const r = operatingTime(f, balancedMeasurement(1000));

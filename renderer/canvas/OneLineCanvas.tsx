@@ -53,8 +53,13 @@ export function OneLineCanvas() {
     return built.nodes.map((n) => (dragPlaces[n.id] ? ({ ...n, position: { x: dragPlaces[n.id].x, y: dragPlaces[n.id].y } } as OneLineNode) : n));
   }, [built.nodes, dragPlaces]);
 
+  // a new document: fit it in view, never enlarging past 1:1; an empty one starts at 1:1
   useEffect(() => {
-    if (fitSeq > 0) requestAnimationFrame(() => void flow.fitView({ padding: 0.12, duration: 0 }));
+    if (fitSeq === 0) return;
+    requestAnimationFrame(() => {
+      if (useDocumentStore.getState().doc.elements.length === 0) void flow.setViewport({ x: 0, y: 0, zoom: 1 });
+      else void flow.fitView({ padding: 0.08, maxZoom: 1, duration: 0 });
+    });
   }, [fitSeq, flow]);
 
   const onNodesChange = useCallback(
@@ -153,12 +158,16 @@ export function OneLineCanvas() {
         selectionKeyCode="Shift"
         multiSelectionKeyCode={["Shift", "Control", "Meta"]}
         onPaneClick={() => useSessionStore.getState().set({ selection: [] })}
+        onNodeClick={(e, node) => {
+          // devices are not nodes: a plain click makes the clicked node the only selection
+          if (e.shiftKey || e.ctrlKey || e.metaKey) return;
+          useSessionStore.getState().set({ selection: [node.id] });
+        }}
         onlyRenderVisibleElements={doc.elements.length > 300}
         minZoom={0.05}
         maxZoom={4}
         colorMode={theme}
         proOptions={{ hideAttribution: true }}
-        fitView
       >
         <Background variant={BackgroundVariant.Dots} gap={GRID * 2} size={1} />
         <MiniMap pannable zoomable className="minimap" nodeStrokeWidth={2} />

@@ -47,7 +47,7 @@ export function FieldList({ specs, values, path, ctx }: Props) {
               {absent ? (
                 spec.optional && (
                   <button className="small-button" onClick={() => ctx.commit(p, GROUP_STARTS[spec.key] ?? {})}>
-                    Add {spec.label.toLowerCase()}
+                    Add
                   </button>
                 )
               ) : value === MIXED ? (

@@ -90,6 +90,12 @@ const WORDS: Record<string, string> = {
   groundFault: "Ground-fault band",
   tolerance: "Tolerance",
   functions: "Functions",
+  quantity: "Measured quantity",
+  restraint: "51V voltage restraint",
+  material: "Conductor material",
+  insulation: "Insulation",
+  control: "Control mode",
+  source: "Energy source",
   rx: "R/X",
   z0z1: "Z0/Z1",
   r0x0: "R0/X0",
@@ -110,7 +116,7 @@ export function labelOf(key: string, description: string | undefined): string {
       .replace(/\s+in (kV|MVA|A|s|seconds|percent|km|ohm|ohm\/km|kW|kvar|mm2|pu|pu of rating|primary amperes|degrees)(\b.*)?$/i, "")
       .replace(/[,:].*$/, "")
       .trim();
-    if (short) return short.length > 44 ? short.slice(0, 42) + "…" : short;
+    if (short) return short;
   }
   const bare = key.replace(/_[A-Za-z0-9]+$/, "");
   const spaced = bare.replace(/([a-z0-9])([A-Z])/g, "$1 $2").toLowerCase();

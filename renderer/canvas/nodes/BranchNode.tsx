@@ -26,7 +26,7 @@ function BranchNodeView({ data, selected }: NodeProps<BranchFlowNode>) {
           (horizontal ? (
             <FlowArrow flow={flow} x={box.w / 2} y={box.h / 2 - 12} id={element.id} across />
           ) : (
-            <FlowArrow flow={flow} x={w / 2 + 10} y={h / 2} id={element.id} />
+            <FlowArrow flow={flow} x={w / 2 - 10} y={h / 2} id={element.id} textLeft />
           ))}
       </svg>
       <div className="element-caption">

@@ -12,9 +12,11 @@ interface Props {
   across?: boolean;
   /** Terminal a is at the bottom (a shunt above its bus). */
   aBelow?: boolean;
+  /** Value written to the left of the arrow (keeps clear of the caption on the right). */
+  textLeft?: boolean;
 }
 
-export function FlowArrow({ flow, x, y, id, across = false, aBelow = false }: Props) {
+export function FlowArrow({ flow, x, y, id, across = false, aBelow = false, textLeft = false }: Props) {
   const toA = flow.towards === "a";
   let d: string;
   if (across) {
@@ -27,7 +29,7 @@ export function FlowArrow({ flow, x, y, id, across = false, aBelow = false }: Pr
   return (
     <g className="flow-arrow">
       <path d={d} fill="none" />
-      <text x={across ? x - 14 : x + 6} y={across ? y - 7 : y + 4} data-testid={`flow-${id}`}>
+      <text x={across ? x - 14 : textLeft ? x - 6 : x + 6} y={across ? y - 7 : y + 4} textAnchor={textLeft ? "end" : undefined} data-testid={`flow-${id}`}>
         {text}
       </text>
     </g>

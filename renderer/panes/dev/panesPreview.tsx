@@ -1,5 +1,6 @@
 // Preview page of the analysis panes with sample data, for development and screenshots.
-// URL flags: ?theme=dark, ?pane=tcc|chain|verdicts (one pane full-page), ?buses=N (matrix size).
+// URL flags: ?theme=dark, ?pane=tcc|chain|verdicts (one pane full-page), ?buses=N (matrix size),
+// ?case=<case id> (initial selection), ?empty=1 (empty states and a notice).
 // Callbacks are recorded on window.__panes so a browser script can check them.
 import { StrictMode, useMemo, useState } from "react";
 import { createRoot } from "react-dom/client";
@@ -30,6 +31,7 @@ const params = new URLSearchParams(location.search);
 document.documentElement.dataset.theme = params.get("theme") === "dark" ? "dark" : "light";
 const only = params.get("pane");
 const buses = Number(params.get("buses") ?? "40");
+const empty = params.get("empty") === "1";
 
 function applyPatch(d: ProtectiveDevice, functionId: string, patch: TccSettingPatch): ProtectiveDevice {
   switch (d.kind) {
@@ -45,7 +47,7 @@ function applyPatch(d: ProtectiveDevice, functionId: string, patch: TccSettingPa
 function Preview() {
   const [devices, setDevices] = useState<DeviceOnPlot[]>(sampleDevices);
   const [step, setStep] = useState<string | null>("Q-WS");
-  const [caseId, setCaseId] = useState<string | null>(sampleCaseId);
+  const [caseId, setCaseId] = useState<string | null>(params.get("case") ?? sampleCaseId);
   const bands = useMemo(() => {
     try {
       return bandsFromDevices(devices, { reference_kV: REFERENCE_KV });
@@ -72,10 +74,11 @@ function Preview() {
     <TccPane
       referenceVoltage_kV={REFERENCE_KV}
       title="3ph fault at B-WS · path from the utility tie"
-      bands={bands}
-      equipment={equipment.curves}
-      markers={equipment.markers}
-      faultMarks={sampleFaultMarks}
+      bands={empty ? [] : bands}
+      equipment={empty ? [] : equipment.curves}
+      markers={empty ? [] : equipment.markers}
+      faultMarks={empty ? [] : sampleFaultMarks}
+      notice={empty ? 'Relay R-TX1 "TX1 HV feeder": functions[0].pickup_A must be > 0 (got -3)' : null}
       highlightDeviceId={step}
       onSettingChange={onSettingChange}
       onDeviceSelect={(id) => setStep(id)}
@@ -86,7 +89,7 @@ function Preview() {
   );
   const chain = (
     <ChainPane
-      chains={caseId === sampleCaseId ? sampleChains : null}
+      chains={caseId === sampleCaseId && !empty ? sampleChains : null}
       caseLabel="3ph max fault at B-WS (islanded)"
       responses={sampleResponses}
       verdicts={study.verdicts}
@@ -99,7 +102,7 @@ function Preview() {
   );
   const verdicts = (
     <VerdictPane
-      matrix={study.matrix}
+      matrix={empty ? null : study.matrix}
       verdicts={study.verdicts}
       selectedCaseId={caseId}
       subtitle="sample study"
@@ -121,7 +124,10 @@ function Preview() {
   );
 }
 
-createRoot(document.getElementById("root")!).render(
+// One root even when the dev server re-runs this module after an edit.
+const host = document.getElementById("root") as HTMLElement & { __root?: ReturnType<typeof createRoot> };
+host.__root ??= createRoot(host);
+host.__root.render(
   <StrictMode>
     <Preview />
   </StrictMode>,

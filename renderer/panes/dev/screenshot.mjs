@@ -96,6 +96,17 @@ try {
     if (!(png.size > 10000)) problems.push("PNG export too small");
   });
   void eLog;
+
+  // Empty states and a notice.
+  await shot("empty", "?empty=1", { width: 1366, height: 768 });
+
+  // A case selected elsewhere scrolls the matrix to it.
+  await shot("verdicts-follow", "?pane=verdicts&buses=375&case=island|bus:B-300|LG|min", { width: 1366, height: 768 }, async (page) => {
+    await page.waitForTimeout(300);
+    const n = await page.locator(".verdict-cell.is-selected").count();
+    console.log("selected cell rendered after an outside selection:", n);
+    if (n !== 1) problems.push("the matrix did not scroll to a case selected elsewhere");
+  });
 } finally {
   await browser.close();
 }

@@ -49,6 +49,8 @@ export interface TccPaneProps {
   onExportError?: (message: string) => void;
   /** Base of the suggested export file name (default "time-current"). */
   exportName?: string;
+  /** A message about the plot, e.g. a device whose curve cannot be drawn (its id, name and field); shown above the plot. */
+  notice?: string | null;
 }
 
 type Scale = ScaleLogarithmic<number, number>;
@@ -207,6 +209,11 @@ export function TccPane(props: TccPaneProps) {
           </>
         ) : null}
       </header>
+      {props.notice ? (
+        <div className="ap-notice" role="status">
+          {props.notice}
+        </div>
+      ) : null}
       <div className="tcc-plot-box" ref={boxRef}>
         {width > 0 && height > 0 ? (
           <svg
@@ -393,6 +400,11 @@ const PlotStatic = memo(function PlotStatic(p: StaticProps) {
           );
         })}
       </g>
+      {p.bands.length === 0 ? (
+        <text className="tcc-empty" x={(L.left + L.right) / 2} y={(L.top + L.bottom) / 2} textAnchor="middle">
+          No protective device on the selected path
+        </text>
+      ) : null}
       <rect className="tcc-plot-frame" x={L.left} y={L.top} width={L.right - L.left} height={L.bottom - L.top} />
       <Legend {...p} />
       <text className="tcc-caution" x={L.left} y={L.cautionY}>
@@ -466,9 +478,11 @@ function Legend(p: StaticProps) {
   const maxChars = Math.max(12, Math.floor((L.legendWidth / L.s - 26) / 5.4));
   return (
     <g className="tcc-legend" transform={`translate(${L.legendX} ${L.top}) scale(${L.s})`} style={{ fontSize: "12px" }}>
-      <text className="tcc-legend-heading" y={10}>
-        Legend
-      </text>
+      {rows.length > 0 ? (
+        <text className="tcc-legend-heading" y={10}>
+          Legend
+        </text>
+      ) : null}
       {shown.map((r, k) => (
         <g key={r.key} transform={`translate(0 ${rowY[k]})`} className={r.highlight ? "tcc-legend-row is-highlight" : "tcc-legend-row"}>
           {r.swatch}

@@ -1,7 +1,7 @@
 // The verdict pane: the study matrix (fault cases x scenarios) coloured by the worst verdict, filterable
 // by status and kind, grouped by faulted bus or line and virtualised for thousands of cases, with the
 // explanations of the selected cell underneath. Clicking a cell selects that case in every pane.
-import { useMemo, useRef, useState, type CSSProperties } from "react";
+import { useEffect, useMemo, useRef, useState, type CSSProperties } from "react";
 import type { MatrixRow, StudyMatrix, Verdict, VerdictKind } from "../../../src/study/types.ts";
 import { VERDICT_KINDS } from "../../../src/study/types.ts";
 import { buildShownMatrix, flattenGroups, type ShownCell, type VerdictFilter } from "./verdictRows.ts";
@@ -56,6 +56,32 @@ export function VerdictPane(props: VerdictPaneProps) {
   const fontPx = scrollRef.current ? parseFloat(getComputedStyle(scrollRef.current).fontSize) || 12 : 12;
   const rowH = Math.round(ROW_EM * fontPx);
   const win = virtualWindow(scrollTop, viewport, rowH, items.length);
+
+  // A case selected elsewhere (canvas, chain) is brought into view, opening its group if needed.
+  const pendingRow = useRef<string | null>(null);
+  useEffect(() => {
+    if (!matrix || !selectedCaseId) return;
+    const rowId = matrix.cells.find((c) => c.caseId === selectedCaseId)?.row;
+    if (!rowId) return;
+    pendingRow.current = rowId;
+    const group = shown?.groups.find((g) => g.rows.some((r) => r.row.id === rowId));
+    if (group && collapsed.has(group.key)) {
+      const next = new Set(collapsed);
+      next.delete(group.key);
+      setCollapsed(next);
+    }
+    // Only a new selection scrolls; later list changes must not fight the user's scrolling.
+  }, [selectedCaseId, matrix]);
+  useEffect(() => {
+    const rowId = pendingRow.current;
+    const el = scrollRef.current;
+    if (!rowId || !el) return;
+    const index = items.findIndex((it) => it.kind === "row" && it.row.row.id === rowId);
+    if (index < 0) return;
+    pendingRow.current = null;
+    const top = index * rowH;
+    if (top < el.scrollTop || top + rowH > el.scrollTop + el.clientHeight) el.scrollTop = Math.max(0, top - el.clientHeight / 2);
+  }, [items, rowH]);
 
   const selectedCell = useMemo(() => (matrix && selectedCaseId ? matrix.cells.find((c) => c.caseId === selectedCaseId) ?? null : null), [matrix, selectedCaseId]);
   const selectedRow = selectedCell && matrix ? matrix.rows.find((r) => r.id === selectedCell.row) : undefined;

@@ -6,6 +6,8 @@ export interface InverseOptions {
   band?: Band;
   quantity?: CurveQuantity;
   restraint_pu?: number;
+  /** Invert only these functions/regions (e.g. the one being dragged). */
+  elementIds?: readonly string[];
 }
 
 /**
@@ -14,7 +16,7 @@ export interface InverseOptions {
  */
 export function currentForTime(device: ProtectiveDevice, t_s: number, opts: InverseOptions = {}): number {
   const band = opts.band ?? "nominal";
-  const curve = deviceCurve(device, opts.quantity ?? "phase", opts.restraint_pu ?? 1);
+  const curve = deviceCurve(device, opts.quantity ?? "phase", opts.restraint_pu ?? 1, opts.elementIds);
   const p = curve.pickup_A(band);
   if (!(p > 0) || !Number.isFinite(p) || !(t_s >= 0)) return Infinity;
   let lo = p * (1 - 1e-12);

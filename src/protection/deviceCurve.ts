@@ -22,9 +22,10 @@ const WANT: Record<CurveQuantity, ElementQuantity> = { phase: "phase", ground: "
 /**
  * The curve of `device` for `quantity`. When the device has no element on that quantity (a fuse, a breaker
  * without ground-fault region, a relay without 51N), its phase elements are drawn: they are what clears it.
+ * `elementIds` narrows the drawing to some functions or regions (quantity still applies).
  */
-export function deviceCurve(device: ProtectiveDevice, quantity: CurveQuantity = "phase", restraint_pu = 1): DeviceCurve {
-  const all = deviceElements(device);
+export function deviceCurve(device: ProtectiveDevice, quantity: CurveQuantity = "phase", restraint_pu = 1, elementIds?: readonly string[]): DeviceCurve {
+  const all = elementIds ? deviceElements(device).filter((e) => elementIds.includes(e.id)) : deviceElements(device);
   let elements = all.filter((e) => e.quantity === WANT[quantity]);
   if (elements.length === 0) elements = all.filter((e) => e.quantity === "phase");
   const scaleOf = new Map<TimeElement, number>();

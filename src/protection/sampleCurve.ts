@@ -18,7 +18,7 @@ export function referScale(device_kV?: number, reference_kV?: number): number {
  * two points at the same current. Times are clipped to [tMin_s, tMax_s] of the plot so every point is drawable.
  */
 export function sampleCurve(device: ProtectiveDevice, opts: SampleOptions = {}): CurveBand {
-  const curve = deviceCurve(device, opts.quantity ?? "phase", opts.restraint_pu ?? 1);
+  const curve = deviceCurve(device, opts.quantity ?? "phase", opts.restraint_pu ?? 1, opts.elementIds);
   const scale = referScale(opts.device_kV, opts.reference_kV);
   const tTop = opts.tMax_s ?? 1000;
   const tBottom = opts.tMin_s ?? 0.01;

@@ -99,6 +99,8 @@ export interface SampleOptions {
   includeClearing?: boolean;
   /** 51V: restraint voltage assumed for the plot, pu. Default 1 (no restraint). */
   restraint_pu?: number;
+  /** Draw only these functions/regions (relay function ids, LV region ids), e.g. the one being dragged. */
+  elementIds?: readonly string[];
 }
 
 /** Disk-travel state of a device during a fault whose current changes in steps. */

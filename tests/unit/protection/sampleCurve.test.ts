@@ -1,5 +1,5 @@
 import { describe, it, expect } from "vitest";
-import { sampleCurve, referScale, operatingTime, balancedMeasurement } from "../../../src/protection/index.ts";
+import { sampleCurve, referScale, operatingTime, balancedMeasurement, currentForTime } from "../../../src/protection/index.ts";
 import type { Polyline } from "../../../src/protection/index.ts";
 import { breaker, fn51, fuse, relay } from "./devices.ts";
 
@@ -68,5 +68,13 @@ describe("curve sampling for plotting", () => {
     const r = relay([{ id: "F50", ansi: "50", quantity: "phase", pickup_A: 2000, delay_s: 0.05 }], { breakerTime_s: 0.06 });
     const c = sampleCurve(r, { includeClearing: true });
     expect(c.nominal[c.nominal.length - 1][1]).toBeCloseTo(0.11, 12); // 0.05 + 0.06 (hand calc)
+  });
+
+  it("draws and inverts a single function when asked (for dragging it)", () => {
+    const r = relay([fn51(), { id: "F50", ansi: "50", quantity: "phase", pickup_A: 2000, delay_s: 0.05 }]);
+    const only51 = sampleCurve(r, { elementIds: ["F51"], iMax_A: 5000 });
+    const last = only51.nominal[only51.nominal.length - 1];
+    expect(last[1]).toBeCloseTo(0.14 * 0.1 / (Math.pow(50, 0.02) - 1), 9); // IEC SI at 50x, TMS 0.1 (IEC 60255-151 Table 1, hand calc)
+    expect(currentForTime(r, 0.1, { elementIds: ["F51"] })).toBeGreaterThan(2000); // the inverse curve alone is slower than 0.1 s at 20x
   });
 });

@@ -2,7 +2,8 @@
 // each cell takes the worst of them, rows without any are hidden, rows are grouped (by bus or line),
 // and a totals row counts cells per scenario.
 import type { MatrixRow, StudyMatrix, Verdict, VerdictKind } from "../../../src/study/types.ts";
-import { worseStatus, type VerdictStatus } from "../shared/verdictStatus.ts";
+import { VERDICT_KINDS } from "../../../src/study/types.ts";
+import { VERDICT_STATUSES, worseStatus, type VerdictStatus } from "../shared/verdictStatus.ts";
 
 export interface VerdictFilter {
   statuses: ReadonlySet<VerdictStatus>;
@@ -53,32 +54,73 @@ export function defaultRowGroup(row: MatrixRow): { key: string; label: string } 
 
 const zero = (): Record<VerdictStatus, number> => ({ fail: 0, warn: 0, pass: 0 });
 
-/** Build the shown matrix. Verdict ids of a cell that are missing from `verdicts` are ignored. */
+/** Code of a verdict id not found in the verdict list. */
+const MISSING = 255;
+type Cell = StudyMatrix["cells"][number];
+// Per cell, the (kind, status) code of each of its verdicts, computed once per verdict list so that
+// toggling a filter costs array reads, not a map lookup per verdict.
+const codeCache = new WeakMap<ReadonlyMap<string, Verdict>, WeakMap<Cell, Uint8Array>>();
+
+function codesOf(cell: Cell, verdicts: ReadonlyMap<string, Verdict>): Uint8Array {
+  let perList = codeCache.get(verdicts);
+  if (!perList) codeCache.set(verdicts, (perList = new WeakMap()));
+  let codes = perList.get(cell);
+  if (!codes) {
+    codes = new Uint8Array(cell.verdictIds.length);
+    cell.verdictIds.forEach((id, j) => {
+      const v = verdicts.get(id);
+      codes![j] = v ? VERDICT_KINDS.indexOf(v.kind) * 3 + VERDICT_STATUSES.indexOf(v.status) : MISSING;
+    });
+    perList.set(cell, codes);
+  }
+  return codes;
+}
+
+/** Build the shown matrix. Verdict ids of a cell that are missing from `verdicts` are ignored (when a filter is on). */
 export function buildShownMatrix(
   matrix: StudyMatrix,
   verdicts: ReadonlyMap<string, Verdict>,
   filter: VerdictFilter,
   groupOf: (row: MatrixRow) => { key: string; label: string } = defaultRowGroup,
 ): ShownMatrix {
-  const cellIndex = new Map<string, StudyMatrix["cells"][number]>();
-  for (const c of matrix.cells) cellIndex.set(`${c.row}\u0000${c.scenario}`, c);
+  // Index cells by row, then by scenario position: no string keys in the hot loop.
+  const scenarioIndex = new Map(matrix.scenarios.map((s, k) => [s.id, k]));
+  const byRow = new Map<string, (StudyMatrix["cells"][number] | undefined)[]>();
+  for (const c of matrix.cells) {
+    const k = scenarioIndex.get(c.scenario);
+    if (k === undefined) continue;
+    let slots = byRow.get(c.row);
+    if (!slots) byRow.set(c.row, (slots = new Array(matrix.scenarios.length)));
+    slots[k] = c;
+  }
+  // With every status and kind kept, the study's own worst and counts are the answer.
+  const keepsAll = VERDICT_STATUSES.every((st) => filter.statuses.has(st)) && VERDICT_KINDS.every((k) => filter.kinds.has(k));
+  // Kept (kind, status) pairs as a bit mask over code = kindIndex * 3 + statusIndex.
+  let mask = 0;
+  VERDICT_KINDS.forEach((k, ki) => VERDICT_STATUSES.forEach((st, si) => {
+    if (filter.kinds.has(k) && filter.statuses.has(st)) mask |= 1 << (ki * 3 + si);
+  }));
   const totals = matrix.scenarios.map(zero);
   const groups = new Map<string, ShownGroup>();
   let rowCount = 0;
 
   for (const row of matrix.rows) {
-    const cells = matrix.scenarios.map((s): ShownCell | null => {
-      const c = cellIndex.get(`${row.id}\u0000${s.id}`);
+    const slots = byRow.get(row.id);
+    const cells = matrix.scenarios.map((s, k): ShownCell | null => {
+      const c = slots?.[k];
       if (!c) return null;
+      if (keepsAll) return { scenario: s.id, caseId: c.caseId, worst: c.worst, counts: c.counts, verdictIds: c.verdictIds };
       const counts = zero();
       const kept: string[] = [];
       let worst: VerdictStatus | null = null;
-      for (const id of c.verdictIds) {
-        const v = verdicts.get(id);
-        if (!v || !filter.kinds.has(v.kind) || !filter.statuses.has(v.status)) continue;
-        counts[v.status] += 1;
-        kept.push(id);
-        worst = worseStatus(worst, v.status);
+      const codes = codesOf(c, verdicts);
+      for (let j = 0; j < codes.length; j++) {
+        const code = codes[j];
+        if (code === MISSING || ((mask >> code) & 1) === 0) continue;
+        const status = VERDICT_STATUSES[code % 3];
+        counts[status] += 1;
+        kept.push(c.verdictIds[j]);
+        worst = worseStatus(worst, status);
       }
       return { scenario: s.id, caseId: c.caseId, worst, counts, verdictIds: kept };
     });

@@ -102,12 +102,23 @@ describe("the verdict matrix as shown", () => {
 
   it("handles a study of several thousand cases", () => {
     const rows = Array.from({ length: 3000 }, (_, k) => ({ id: `bus:B${k % 40}|3ph|max|${k}`, label: `case ${k}` }));
-    const cells = rows.map((r, k) => ({ row: r.id, scenario: "grid", caseId: `c${k}`, worst: "fail" as const, counts: { fail: 1, warn: 0, pass: 0 }, verdictIds: [`v${k}`] }));
+    const status = (k: number): VerdictStatus => (k % 3 === 0 ? "fail" : "pass");
+    const cells = rows.map((r, k) => ({
+      row: r.id,
+      scenario: "grid",
+      caseId: `c${k}`,
+      worst: status(k),
+      counts: { fail: k % 3 === 0 ? 1 : 0, warn: 0, pass: k % 3 === 0 ? 0 : 1 },
+      verdictIds: [`v${k}`],
+    }));
     const big: StudyMatrix = { scenarios: [{ id: "grid", name: "Grid" }], rows, cells, totals: matrix.totals };
-    const vs = new Map(cells.map((c, k) => [`v${k}`, v(`v${k}`, "speed", k % 3 === 0 ? "fail" : "pass", c.caseId)]));
+    const vs = new Map(cells.map((c, k) => [`v${k}`, v(`v${k}`, "speed", status(k), c.caseId)]));
     const m = buildShownMatrix(big, vs, all);
     // 40 buses; k % 3 === 0 holds for 1000 of 3000 cases (hand count)
     expect(m.groups).toHaveLength(40);
     expect(m.totals[0]).toEqual({ fail: 1000, warn: 0, pass: 2000 });
+    // the same answer through the filtered path (only speed kept, every status)
+    const speedOnly = buildShownMatrix(big, vs, { statuses: all.statuses, kinds: new Set<VerdictKind>(["speed"]) });
+    expect(speedOnly.totals[0]).toEqual({ fail: 1000, warn: 0, pass: 2000 });
   });
 });

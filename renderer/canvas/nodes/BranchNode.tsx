@@ -7,9 +7,10 @@ import type { BranchFlowNode } from "../flowTypes.ts";
 import { ElementSymbol, BRANCH_BOX } from "../symbols/ElementSymbol.tsx";
 import { DeviceStack } from "./DeviceStack.tsx";
 import { FlowArrow } from "./FlowArrow.tsx";
+import { fmt } from "./formatting.ts";
 
 function BranchNodeView({ data, selected }: NodeProps<BranchFlowNode>) {
-  const { element, colorA, colorB, devicesA, devicesB, caption, detail, flow, marks, selectedDevices, horizontal } = data;
+  const { element, colorA, colorB, devicesA, devicesB, caption, detail, flow, marks, selectedDevices, horizontal, faulted, ikss_kA } = data;
   const { w, h } = BRANCH_BOX;
   const box = horizontal ? { w: h, h: w } : { w, h };
   // drawn upright, then turned a quarter for the across form: (x, y) -> (y, w - x)
@@ -33,6 +34,11 @@ function BranchNodeView({ data, selected }: NodeProps<BranchFlowNode>) {
         <span className="caption-name">{caption}</span>
         <span className="caption-detail">{detail}</span>
       </div>
+      {faulted && ikss_kA !== null && (
+        <span className="fault-badge on-line" data-testid="fault-ikss">
+          ⚡ I&quot;k {fmt(ikss_kA, 4)} kA
+        </span>
+      )}
       <Handle id="a" type="source" position={horizontal ? Position.Left : Position.Top} className="terminal-handle" />
       <Handle id="b" type="source" position={horizontal ? Position.Right : Position.Bottom} className="terminal-handle" />
     </div>

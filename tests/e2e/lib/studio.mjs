@@ -22,7 +22,7 @@ export async function select(page, id) {
   const node = page.locator(`[data-element="${id}"]`);
   const bar = node.locator(".bus-bar");
   if ((await bar.count()) > 0) await bar.click({ force: true });
-  else await node.locator("svg").click({ force: true, position: { x: 32, y: 40 } });
+  else await node.locator("svg").click({ force: true });
   await page.waitForFunction((want) => document.querySelector('[data-testid="inspector-head"]')?.textContent?.includes(want), id);
 }
 

@@ -137,7 +137,9 @@ export function ChainPane(props: ChainPaneProps) {
                     >
                       <td>
                         <span className={`ap-status-dot${status ? ` is-${status}` : ""}`} title={status ? STATUS_LABEL[status] : "no verdict"} />
-                        <span className="chain-indent">{link.depth > 0 ? "↳" : ""}</span>
+                        <span className="chain-indent" style={{ width: `${0.4 + link.depth * 1.1}em` }}>
+                          {link.depth > 0 ? "↳" : ""}
+                        </span>
                         {link.deviceName || link.device}
                       </td>
                       <td>

@@ -40,7 +40,10 @@ const store = createFileStore({
 
 let win: BrowserWindow | null = null;
 let guard: CloseGuard | null = null;
+// Quit closes the window first; a prevented close cancels the quit. When the user chose Save
+// during a quit, the quit is resumed once that save succeeded.
 let quitRequested = false;
+let quitAfterSave = false;
 const pendingCommands: MenuCommand[] = [];
 
 function send(command: MenuCommand): void {
@@ -71,7 +74,10 @@ const ipc = registerIpcHandlers(ipcMain as unknown as IpcMainLike, {
       if (isMac) win.setDocumentEdited(state.dirty);
     }
   },
-  onSaveFinished: (ok) => guard?.saveFinished(ok),
+  onSaveFinished(ok) {
+    if (!ok) quitAfterSave = false;
+    guard?.saveFinished(ok);
+  },
   onRecentChanged: refreshMenu,
   warn: (m) => console.warn(m),
 });
@@ -92,13 +98,17 @@ function openWindow(): void {
         noLink: true,
       });
       const choice = closeChoiceFromButton(index);
-      if (choice === "cancel") quitRequested = false;
+      if (choice !== "discard") {
+        quitAfterSave = quitRequested && choice === "save";
+        quitRequested = false;
+      }
       return choice;
     },
     requestSave: () => send("save"),
     close() {
       w.close();
-      if (quitRequested) app.quit();
+      if (quitAfterSave) app.quit();
+      quitAfterSave = false;
     },
   });
   guard = g;

@@ -52,6 +52,8 @@ vi.mock("electron", async () => {
 });
 
 import * as electron from "electron";
+import { readFileSync } from "node:fs";
+import { join } from "node:path";
 import { FakeBrowserWindow } from "./electronMock.ts";
 import { CHANNELS } from "../../../main/channels.ts";
 import { APP_ENTRY_URL } from "../../../main/protocol.ts";
@@ -64,11 +66,18 @@ afterAll(async () => {
 });
 
 const mocked = electron as unknown as {
+  app: { quit: ReturnType<typeof vi.fn> };
   protocol: { handle: ReturnType<typeof vi.fn> };
-  dialog: { showMessageBoxSync: ReturnType<typeof vi.fn> };
+  dialog: { showMessageBoxSync: ReturnType<typeof vi.fn>; showSaveDialog: ReturnType<typeof vi.fn> };
   Menu: { setApplicationMenu: ReturnType<typeof vi.fn> };
   ipcMain: { listeners: Map<string, (...a: unknown[]) => unknown>; handlers: Map<string, (...a: unknown[]) => unknown> };
 };
+
+const studio = { senderFrame: { url: APP_ENTRY_URL } };
+
+function setState(state: { name: string; dirty: boolean }): void {
+  mocked.ipcMain.listeners.get(CHANNELS.setDocumentState)!(studio, state);
+}
 
 async function untilWindow(): Promise<FakeBrowserWindow> {
   for (let i = 0; i < 100 && FakeBrowserWindow.instances.length === 0; i++) await new Promise((r) => setTimeout(r, 10));
@@ -121,11 +130,28 @@ describe("app lifecycle", () => {
     expect(win.webContents.sent.at(-1)).toEqual([CHANNELS.menuCommand, "save"]);
   });
 
-  it("closes without asking once the document is saved", async () => {
+  it("lets the window close without asking once the document is saved", async () => {
     const win = await untilWindow();
     mocked.dialog.showMessageBoxSync.mockClear();
-    mocked.ipcMain.listeners.get(CHANNELS.setDocumentState)!({ senderFrame: { url: APP_ENTRY_URL } }, { name: "dairy-coop.islet", dirty: false });
-    expect(win.close()).toBe(true);
+    setState({ name: "dairy-coop.islet", dirty: false });
+    const event = { preventDefault: vi.fn() };
+    win.emit("close", event);
+    expect(event.preventDefault).not.toHaveBeenCalled();
     expect(mocked.dialog.showMessageBoxSync).not.toHaveBeenCalled();
+  });
+
+  it("resumes a quit once the save chosen in the close question has succeeded", async () => {
+    const win = await untilWindow();
+    setState({ name: "dairy-coop.islet", dirty: true });
+    env.appEvents.get("before-quit")!();
+    mocked.dialog.showMessageBoxSync.mockReturnValueOnce(0); // Save
+    expect(win.close()).toBe(false);
+    expect(mocked.app.quit).not.toHaveBeenCalled();
+    mocked.dialog.showSaveDialog.mockResolvedValueOnce({ canceled: false, filePath: join(env.root, "saved.islet") });
+    const result = (await mocked.ipcMain.handlers.get(CHANNELS.saveProject)!(studio, '{"saved":true}', null, false)) as { ok: boolean };
+    expect(result.ok).toBe(true);
+    expect(readFileSync(join(env.root, "saved.islet"), "utf8")).toBe('{"saved":true}');
+    expect(win.destroyed).toBe(true);
+    expect(mocked.app.quit).toHaveBeenCalledTimes(1);
   });
 });

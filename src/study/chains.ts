@@ -1,7 +1,7 @@
 // Primary/backup chains: walk each source path from the fault outward; the first device met is the
 // primary, the next one protecting the fault's side is its backup, and so on. A device met further
 // out that protects the other side (a healthy feeder carrying a downstream source's infeed) is no
-// backup: it is a sympathetic-tripping candidate.
+// backup: it is a sympathetic-tripping candidate. A source's own breaker always closes its path's chain.
 import type { ProtectedSide } from "./deviceSides.ts";
 import type { ScenarioNetwork } from "./scenarioNetwork.ts";
 import type { SourcePath } from "./sourcePaths.ts";
@@ -40,7 +40,9 @@ export function buildChains(
         const r = responses.get(d);
         if (!r) continue;
         const side = sides.get(d) ?? "both";
-        if (devices.length > 0 && side !== "both" && side !== step.faultSide) {
+        // the source's own breaker always backs up its path, whichever way it looks
+        const ownBreaker = edge.element === path.source;
+        if (devices.length > 0 && !ownBreaker && side !== "both" && side !== step.faultSide) {
           sympatheticCandidates.add(d);
           continue;
         }

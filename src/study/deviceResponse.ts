@@ -2,6 +2,7 @@
 // clearing times on the nominal curve and on both edges of its tolerance band.
 import type { ProtectiveDevice } from "../model/schema.ts";
 import type { DeviceModel } from "./deviceModel.ts";
+import { pickupRatio } from "./pickupRatio.ts";
 import type { DeviceReading } from "./studySolver.ts";
 import type { DeviceResponse } from "./types.ts";
 
@@ -32,6 +33,9 @@ export function deviceResponse(device: ProtectiveDevice, reading: DeviceReading 
   base.iNegative_A = m.negative_A;
   base.direction = reading.direction;
   if (base.iPhase_A <= 0 && base.iResidual_A <= 0 && base.iNegative_A <= 0) return base;
+  // far below every pickup (tolerances and 51V restraint cannot bring it within reach): nothing to time
+  const restrained = device.kind === "relay" && device.functions.some((f) => f.restraint);
+  if (!restrained && pickupRatio(base, model.pickups(device)).ratio < 0.5) return base;
   const nominal = model.operate(device, m, "nominal");
   base.pickedUp = nominal.picked;
   if (!Number.isFinite(nominal.clearing_s)) return base;

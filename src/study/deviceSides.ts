@@ -18,6 +18,20 @@ export function referenceSources(net: ScenarioNetwork): string[] {
   return forming.length > 0 ? forming : net.sources;
 }
 
+function sideOf(net: ScenarioNetwork, edgeIndex: number, refNodes: string[], withSwitches: boolean): ProtectedSide | "neither" {
+  const edge = net.edges[edgeIndex];
+  const cut = new Set([edgeIndex]);
+  if (!withSwitches) for (const e of net.edges) if (net.elements.get(e.element)?.kind === "switch") cut.add(e.index);
+  if (net.elements.get(edge.element)?.kind === "switch" && !withSwitches) return "neither";
+  const fromElement = reachable(net, elementNode(edge.element), cut);
+  if (fromElement.has(busNode(edge.bus))) return "both";
+  const fromBus = reachable(net, busNode(edge.bus), cut);
+  const elementUp = refNodes.some((n) => fromElement.has(n));
+  const busUp = refNodes.some((n) => fromBus.has(n));
+  if (!elementUp && !busUp) return "neither";
+  return elementUp && !busUp ? "bus" : busUp && !elementUp ? "element" : "both";
+}
+
 export function deviceSides(net: ScenarioNetwork): Map<string, ProtectedSide> {
   const refNodes = referenceSources(net).map(elementNode);
   const byEdge = new Map<number, ProtectedSide>();
@@ -25,16 +39,9 @@ export function deviceSides(net: ScenarioNetwork): Map<string, ProtectedSide> {
   for (const [device, i] of net.deviceEdge) {
     let side = byEdge.get(i);
     if (!side) {
-      const edge = net.edges[i];
-      const cut = new Set([i]);
-      const fromElement = reachable(net, elementNode(edge.element), cut);
-      if (fromElement.has(busNode(edge.bus))) side = "both";
-      else {
-        const fromBus = reachable(net, busNode(edge.bus), cut);
-        const elementUp = refNodes.some((n) => fromElement.has(n));
-        const busUp = refNodes.some((n) => fromBus.has(n));
-        side = elementUp && !busUp ? "bus" : busUp && !elementUp ? "element" : "both";
-      }
+      let s = sideOf(net, i, refNodes, false);
+      if (s === "neither") s = sideOf(net, i, refNodes, true);
+      side = s === "neither" ? "both" : s;
       byEdge.set(i, side);
     }
     sides.set(device, side);

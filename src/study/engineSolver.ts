@@ -1,9 +1,9 @@
-// The study's solver bound to src/engine. Bus faults of a large network go through the engine's sweep
-// (currents at device locations only); smaller sets, line points and timeline states are solved one by
-// one, which also gives the bus voltages that directional functions need. Opened element ends become
-// scenario variants: an opened element is switched out, an opened end of the faulted line is left
-// hanging on a dead bus of its own, so the fault stays fed from the other end.
-import type { Element, Project, ProtectiveDevice, Scenario } from "../model/schema.ts";
+// The study's solver bound to src/engine. Lines are split at the study's fault points (splitLines.ts) so
+// that faults along lines are bus faults of the split network and one all-bus sweep per scenario, limit
+// and fault type covers every case. Where directional functions need the fault voltages, bus faults are
+// solved one by one instead (the sweep keeps currents only). Opened element ends (clearing timeline) and
+// switched-out infeeds (blinding) become scenario variants.
+import type { Project, Scenario } from "../model/schema.ts";
 import { isProtectiveDevice } from "../model/schema.ts";
 import {
   compileNetwork,
@@ -15,13 +15,18 @@ import {
   type CompiledNetwork,
   type FaultResult,
   type Phasor as EnginePhasor,
+  type SweepResult,
 } from "../engine/index.ts";
 import { measurementFromSequence, type Phasor, type SequenceQuantities } from "../protection/index.ts";
+import { splitLines } from "./splitLines.ts";
 import type { DeviceReading, FaultSnapshot, OpenEnd, StudySolver } from "./studySolver.ts";
-import type { CurrentDirection, FaultLimit, FaultLocation, FaultType } from "./types.ts";
+import { FAULT_TYPES, type CurrentDirection, type FaultLimit, type FaultLocation, type FaultType } from "./types.ts";
 
 export interface EngineSolverOptions {
-  /** Solve bus faults one by one (with voltages) up to this many locations per call; above it use the sweep. Default 150. */
+  /**
+   * Solve faults one by one (with bus voltages) up to this many locations per call; above it use the sweep.
+   * Default: 400 when a relay has a directional function (those need the fault voltages), else 0.
+   */
   singleSolveLimit?: number;
 }
 
@@ -43,58 +48,41 @@ export function currentDirection(i1: Phasor, vRef_deg: number, minCurrent_A = 1e
   return torque > 0 ? "forward" : torque < 0 ? "reverse" : "none";
 }
 
-interface Variant {
-  project: Project;
-  scenarioId: string;
-}
+const busOf = (loc: FaultLocation, project: Project): string => {
+  if (loc.kind === "bus") return loc.bus;
+  const line = project.elements.find((e) => e.id === loc.line);
+  return line?.kind === "line" ? (loc.pct <= 50 ? line.fromBus : line.toBus) : "";
+};
 
 export function engineSolver(project: Project, opts: EngineSolverOptions = {}): StudySolver {
-  const singleLimit = opts.singleSolveLimit ?? 150;
+  const split = splitLines(project, project.criteria.linePoints_pct);
+  const base = split.project;
   const devices = project.elements.filter(isProtectiveDevice);
+  const directional = devices.some((d) => d.kind === "relay" && d.functions.some((f) => f.enabled && f.direction !== "non-directional"));
+  const singleLimit = opts.singleSolveLimit ?? (directional ? 400 : 0);
+  /** Device id -> its location key in the split project. */
+  const locKey = new Map(devices.map((d) => [d.id, `${split.endElement(d.at.element, d.at.end)}|${d.at.end}`] as const));
   const compiled = new Map<string, { network: CompiledNetwork | null; messages: string[] }>();
+  let sweepBroken = false;
+  const sweepsReported = new WeakSet<SweepResult>();
 
-  const variantOf = (scenario: Scenario, faulted: FaultLocation | null, open: OpenEnd[]): { key: string; variant: Variant } => {
-    const extraOut: string[] = [];
-    const hanging: OpenEnd[] = [];
-    for (const o of open) {
-      if (faulted?.kind === "line" && o.element === faulted.line && o.end !== "terminal") hanging.push(o);
-      else extraOut.push(o.element);
-    }
+  /** The split project and scenario id for `scenario` with `open` element ends opened. */
+  const variantOf = (scenario: Scenario, open: OpenEnd[]): { key: string; project: Project; scenarioId: string } => {
     const original = project.scenarios.find((s) => s.id === scenario.id);
-    const same = original === scenario && extraOut.length === 0 && hanging.length === 0;
-    if (same) return { key: scenario.id, variant: { project, scenarioId: scenario.id } };
-    const outOfService = [...new Set([...scenario.outOfService, ...extraOut])].sort();
-    const key = `${scenario.id}|${outOfService.join(",")}|${hanging.map((h) => `${h.element}.${h.end}`).join(",")}|${JSON.stringify(scenario.switchStates)}`;
+    if (original === scenario && open.length === 0) return { key: scenario.id, project: base, scenarioId: scenario.id };
+    const translated = split.scenario(scenario);
+    const outOfService = [...new Set([...translated.outOfService, ...open.map((o) => split.endElement(o.element, o.end))])].sort();
+    const key = `${scenario.id}|${outOfService.join(",")}|${JSON.stringify(scenario.switchStates)}`;
     const variantId = `${scenario.id}~study-variant`;
-    let elements: Element[] = project.elements;
-    if (hanging.length) {
-      elements = [];
-      for (const e of project.elements) {
-        if (e.kind !== "line" || !hanging.some((h) => h.element === e.id)) {
-          elements.push(e);
-          continue;
-        }
-        const copy = { ...e };
-        for (const h of hanging.filter((x) => x.element === e.id)) {
-          const busId = h.end === "from" ? e.fromBus : e.toBus;
-          const bus = project.elements.find((b) => b.id === busId);
-          const dead = `${e.id}~open-${h.end}`;
-          elements.push({ kind: "bus", id: dead, name: dead, un_kV: bus?.kind === "bus" ? bus.un_kV : 1 });
-          if (h.end === "from") copy.fromBus = dead;
-          else copy.toBus = dead;
-        }
-        elements.push(copy);
-      }
-    }
-    const variantScenario: Scenario = { ...scenario, id: variantId, outOfService };
-    return { key, variant: { project: { ...project, elements, scenarios: [...project.scenarios, variantScenario] }, scenarioId: variantId } };
+    const variant: Scenario = { ...translated, id: variantId, outOfService };
+    return { key, project: { ...base, scenarios: [...base.scenarios, variant] }, scenarioId: variantId };
   };
 
-  const compile = (key: string, variant: Variant, limit: FaultLimit) => {
-    const k = `${key}#${limit}`;
+  const compile = (v: { key: string; project: Project; scenarioId: string }, limit: FaultLimit) => {
+    const k = `${v.key}#${limit}`;
     let c = compiled.get(k);
     if (!c) {
-      const r = compileNetwork(variant.project, { scenario: variant.scenarioId, limit });
+      const r = compileNetwork(v.project, { scenario: v.scenarioId, limit });
       c = r.ok
         ? { network: r.network, messages: r.network.messages.filter((m) => m.level !== "info").map((m) => m.text) }
         : { network: null, messages: r.errors.map((m) => m.text) };
@@ -108,12 +96,6 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     return n === undefined ? 0 : (net.nodes[n]?.shift_deg ?? 0);
   };
 
-  const faultBus = (loc: FaultLocation, variantProject: Project): string => {
-    if (loc.kind === "bus") return loc.bus;
-    const line = variantProject.elements.find((e) => e.id === loc.line);
-    return line?.kind === "line" ? (loc.pct <= 50 ? line.fromBus : line.toBus) : "";
-  };
-
   const snapshotOfFault = (net: CompiledNetwork, r: FaultResult, refShift: number): FaultSnapshot => {
     const ends = new Map<string, (typeof r.branchEnds)[number]>();
     for (const e of r.branchEnds) ends.set(`${e.element}|${e.end}`, e);
@@ -121,7 +103,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     const volts = new Map(r.buses.map((b) => [b.bus, b] as const));
     const readings: Record<string, DeviceReading> = {};
     for (const d of devices) {
-      const end = ends.get(`${d.at.element}|${d.at.end}`);
+      const end = ends.get(locKey.get(d.id)!);
       if (!end) continue;
       const v = volts.get(end.bus);
       const seq: SequenceQuantities = {
@@ -139,91 +121,94 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     return { iFault_A: r.maxPhase_kA * 1000, readings, messages: r.messages.filter((m) => m.level !== "info").map((m) => m.text) };
   };
 
-  const solveSingle = (net: CompiledNetwork, variantProject: Project, loc: FaultLocation, type: FaultType, extra: string[]): FaultSnapshot => {
-    let r: FaultResult;
+  const solveSingle = (net: CompiledNetwork, variantProject: Project, loc: FaultLocation, type: FaultType): FaultSnapshot => {
     try {
-      r = solveFault(net, loc, type);
+      const r = solveFault(net, loc, type);
+      return snapshotOfFault(net, r, shiftOf(net, busOf(loc, variantProject)));
     } catch (err) {
-      // Some engines refuse a fault exactly at a line end; move it a hair inside the line.
-      if (loc.kind === "line" && (loc.pct === 0 || loc.pct === 100)) {
-        r = solveFault(net, { ...loc, pct: loc.pct === 0 ? 0.01 : 99.99 }, type);
-      } else {
-        return { iFault_A: 0, readings: {}, messages: [...extra, err instanceof Error ? err.message : String(err)] };
+      return { iFault_A: 0, readings: {}, messages: [err instanceof Error ? err.message : String(err)] };
+    }
+  };
+
+  const fromSweep = (net: CompiledNetwork, sweep: SweepResult, bus: string, type: FaultType): FaultSnapshot => {
+    const b = sweepBusIndex.get(sweep)!.get(bus);
+    const t = sweep.types.indexOf(type);
+    if (b === undefined || t < 0) return { iFault_A: 0, readings: {}, messages: [] };
+    const readings: Record<string, DeviceReading> = {};
+    const refShift = shiftOf(net, bus);
+    const dIndex = sweepDeviceIndex.get(sweep)!;
+    for (const d of devices) {
+      const di = dIndex.get(locKey.get(d.id)!);
+      if (di === undefined) continue;
+      const cur = sweepDeviceCurrents(sweep, di, b, t);
+      const phase: [number, number, number] = [cur.phase_A[0].mag, cur.phase_A[1].mag, cur.phase_A[2].mag];
+      if (phase[0] + phase[1] + phase[2] <= 0) continue;
+      const vRef = shiftOf(net, sweep.devices[di].bus) - refShift;
+      const a = (vRef * Math.PI) / 180;
+      // no voltages in a sweep: the prefault voltage stands in for V1 (a memory-polarised relay's view)
+      const seq: SequenceQuantities = { i0_A: cur.seq_A[0], i1_A: cur.seq_A[1], i2_A: cur.seq_A[2], v0_pu: ZERO, v1_pu: { re: Math.cos(a), im: Math.sin(a) }, v2_pu: ZERO };
+      const m = measurementFromSequence(seq);
+      m.phase_A = phase;
+      readings[d.id] = { m, direction: currentDirection(seq.i1_A, vRef) };
+    }
+    return { iFault_A: sweep.maxPhase_kA[b * sweep.types.length + t] * 1000, readings, messages: [] };
+  };
+  const sweepDeviceIndex = new WeakMap<SweepResult, Map<string, number>>();
+  const sweepBusIndex = new WeakMap<SweepResult, Map<string, number>>();
+  /** One sweep of every energised bus and every fault type per network variant and limit. */
+  const sweeps = new Map<string, SweepResult | null>();
+  const sweepOf = (key: string, net: CompiledNetwork): SweepResult | null => {
+    if (sweeps.has(key)) return sweeps.get(key)!;
+    let sweep: SweepResult | null = null;
+    if (!sweepBroken) {
+      try {
+        const locs = devices.map((d) => {
+          const [element, end] = locKey.get(d.id)!.split("|");
+          return { element, end: end as OpenEnd["end"] };
+        });
+        sweep = sweepFaults(net, { types: [...FAULT_TYPES], devices: locs });
+        sweepDeviceIndex.set(sweep, new Map(sweep.devices.map((d, i) => [`${d.element}|${d.end}`, i] as const)));
+        sweepBusIndex.set(sweep, new Map(sweep.busIds.map((b, i) => [b, i] as const)));
+      } catch {
+        // an engine without a working sweep: faults are solved one by one
+        sweepBroken = true;
       }
     }
-    const snap = snapshotOfFault(net, r, shiftOf(net, faultBus(loc, variantProject)));
-    snap.messages.push(...extra);
-    return snap;
+    sweeps.set(key, sweep);
+    return sweep;
   };
 
   const solveMany = (scenario: Scenario, locations: FaultLocation[], type: FaultType, limit: FaultLimit): FaultSnapshot[] => {
-    const { key, variant } = variantOf(scenario, null, []);
-    const c = compile(key, variant, limit);
-    if (!c.network) return locations.map(() => ({ iFault_A: 0, readings: {}, messages: c.messages }));
+    const v = variantOf(scenario, []);
+    const c = compile(v, limit);
+    if (!c.network) return locations.map((_, k) => ({ iFault_A: 0, readings: {}, messages: k === 0 ? c.messages : [] }));
     const net = c.network;
-    const buses = locations.filter((l): l is { kind: "bus"; bus: string } => l.kind === "bus").map((l) => l.bus);
-    const out: FaultSnapshot[] = new Array(locations.length);
-    if (buses.length > singleLimit) {
-      const locs = devices.map((d) => ({ element: d.at.element, end: d.at.end }));
-      const sweep = sweepFaults(net, { types: [type], buses, devices: locs });
-      const bIndex = new Map(sweep.busIds.map((b, i) => [b, i] as const));
-      const dIndex = new Map(sweep.devices.map((d, i) => [`${d.element}|${d.end}`, i] as const));
-      const msgs = sweep.messages.filter((m) => m.level !== "info").map((m) => m.text);
-      locations.forEach((loc, k) => {
-        if (loc.kind !== "bus") return;
-        const b = bIndex.get(loc.bus);
-        if (b === undefined) {
-          out[k] = { iFault_A: 0, readings: {}, messages: [] };
-          return;
-        }
-        const readings: Record<string, DeviceReading> = {};
-        const refShift = shiftOf(net, loc.bus);
-        for (const d of devices) {
-          const di = dIndex.get(`${d.at.element}|${d.at.end}`);
-          if (di === undefined) continue;
-          const cur = sweepDeviceCurrents(sweep, di, b, 0);
-          const bus = sweep.devices[di].bus;
-          const vRef = shiftOf(net, bus) - refShift;
-          const a = (vRef * Math.PI) / 180;
-          // no voltages in a sweep: the prefault voltage stands in for V1 (a memory-polarised relay's view)
-          const seq: SequenceQuantities = {
-            i0_A: cur.seq_A[0],
-            i1_A: cur.seq_A[1],
-            i2_A: cur.seq_A[2],
-            v0_pu: ZERO,
-            v1_pu: { re: Math.cos(a), im: Math.sin(a) },
-            v2_pu: ZERO,
-          };
-          const m = measurementFromSequence(seq);
-          m.phase_A = [cur.phase_A[0].mag, cur.phase_A[1].mag, cur.phase_A[2].mag];
-          if (m.phase_A[0] + m.phase_A[1] + m.phase_A[2] <= 0) continue;
-          readings[d.id] = { m, direction: currentDirection(seq.i1_A, vRef) };
-        }
-        out[k] = { iFault_A: sweep.maxPhase_kA[b] * 1000, readings, messages: k === 0 ? [...c.messages, ...msgs] : [] };
-      });
-    }
-    locations.forEach((loc, k) => {
-      if (!out[k]) out[k] = solveSingle(net, variant.project, loc, type, k === 0 ? c.messages : []);
-    });
+    const where = locations.map((l) => split.locate(l));
+    const buses = [...new Set(where.filter((l) => l.kind === "bus").map((l) => (l as { bus: string }).bus))];
+    const sweep = buses.length > singleLimit ? sweepOf(`${v.key}#${limit}`, net) : null;
+    const first = sweep && !sweepsReported.has(sweep);
+    if (sweep) sweepsReported.add(sweep);
+    const out = where.map((loc) => (sweep && loc.kind === "bus" ? fromSweep(net, sweep, loc.bus, type) : solveSingle(net, v.project, loc, type)));
+    if (out.length) out[0].messages.push(...c.messages, ...(first ? sweep.messages.filter((m) => m.level !== "info").map((m) => m.text) : []));
     return out;
   };
 
   const solveOne = (scenario: Scenario, location: FaultLocation, type: FaultType, limit: FaultLimit, open: OpenEnd[]): FaultSnapshot => {
-    const { key, variant } = variantOf(scenario, location, open);
-    const c = compile(key, variant, limit);
+    const v = variantOf(scenario, open);
+    const c = compile(v, limit);
     if (!c.network) return { iFault_A: 0, readings: {}, messages: c.messages };
-    return solveSingle(c.network, variant.project, location, type, []);
+    return solveSingle(c.network, v.project, split.locate(location), type);
   };
 
   const loadCurrentsOf = (scenario: Scenario): Record<string, number> | null => {
     try {
-      const { variant } = variantOf(scenario, null, []);
-      const lf = runLoadFlow(variant.project, { scenario: variant.scenarioId });
+      const v = variantOf(scenario, []);
+      const lf = runLoadFlow(v.project, { scenario: v.scenarioId });
       if (!lf.converged) return null;
       const at = new Map(loadCurrents(lf).map((l) => [`${l.element}|${l.end}`, Math.abs(l.i_A)] as const));
       const out: Record<string, number> = {};
-      for (const d of devices as ProtectiveDevice[]) {
-        const i = at.get(`${d.at.element}|${d.at.end}`);
+      for (const d of devices) {
+        const i = at.get(locKey.get(d.id)!);
         if (i !== undefined) out[d.id] = i;
       }
       return out;

@@ -30,7 +30,11 @@ export function caseLabel(scenario: Scenario, loc: FaultLocation, faultType: Fau
   return `${FAULT_WORDS[faultType]} fault on ${locationLabel(loc, elements)} (${scenario.name}, ${limit})`;
 }
 
-/** Fault locations of one scenario: its in-service buses, then points along its in-service lines. */
+/**
+ * Fault locations of one scenario: its in-service buses, then points along its in-service lines.
+ * A line's two ends are its end buses (the engine puts a 0 % or 100 % fault on the bus itself), so the
+ * points along it are criteria.linePoints_pct.
+ */
 export function faultLocations(project: Project, scenario: Scenario, options: StudyOptions = {}): FaultLocation[] {
   const out = new Set(scenario.outOfService);
   const onlyBuses = options.buses ? new Set(options.buses) : null;
@@ -41,7 +45,7 @@ export function faultLocations(project: Project, scenario: Scenario, options: St
     locations.push({ kind: "bus", bus: e.id });
   }
   if (options.linePoints === false) return locations;
-  const points = [0, ...[...project.criteria.linePoints_pct].sort((a, b) => a - b), 100];
+  const points = [...new Set(project.criteria.linePoints_pct)].sort((a, b) => a - b);
   for (const e of project.elements) {
     if (e.kind !== "line" || out.has(e.id) || out.has(e.fromBus) || out.has(e.toBus)) continue;
     // With a bus filter, keep the lines touching one of the chosen buses.

@@ -31,6 +31,7 @@ import { loadVerdicts, sensitivityVerdicts, ZoneMinimum } from "./verdicts/sensi
 import { selectivityVerdicts } from "./verdicts/selectivity.ts";
 import { speedVerdicts } from "./verdicts/speed.ts";
 import { sympatheticVerdicts } from "./verdicts/sympathetic.ts";
+import { memoWithstand, withstand_s, type WithstandFn } from "./withstand.ts";
 
 export interface StudyDeps {
   solver: StudySolver;
@@ -68,6 +69,7 @@ export function analyseCase(
   paths: SourcePath[],
   snapshot: Pick<FaultSnapshot, "iFault_A" | "readings">,
   model: DeviceModel,
+  withstand: WithstandFn = withstand_s,
 ): { work: CaseWork; verdicts: Verdict[] } {
   const responses = new Map<string, DeviceResponse>();
   for (const id of net.deviceEdge.keys()) responses.set(id, deviceResponse(net.devices.get(id)!, snapshot.readings[id], model));
@@ -78,15 +80,15 @@ export function analyseCase(
       if (l.role === "primary" || r.role === "none") r.role = l.role;
       if (!r.onPathsOf.includes(path.source)) r.onPathsOf.push(path.source);
     }
-  // devices carrying current that are on no chain at all (healthy feeders with motors or sources)
-  for (const r of responses.values()) if (r.role === "none" && r.onPathsOf.length === 0 && r.iPhase_A + r.iResidual_A > 0) sympatheticCandidates.add(r.device);
+  // Devices on no source path carry only motor infeed, which decays within a few cycles (IEC 60909 treats
+  // it as initial current only); they are not judged for sympathetic tripping. // common practice
   for (const d of sympatheticCandidates) {
     const r = responses.get(d)!;
     if (r.role === "none" && r.direction !== "forward") r.role = "sympathetic";
   }
   const verdicts = [
     ...selectivityVerdicts(fc, chains, responses, net.devices, project.criteria),
-    ...speedVerdicts(fc, chains, responses, net.elements, project.criteria),
+    ...speedVerdicts(fc, chains, responses, net.elements, project.criteria, (source) => isGridFollowing(net, source), withstand),
     ...sympatheticVerdicts(fc, chains, sympatheticCandidates, responses, net.devices, model, project.criteria),
   ];
   const result: CaseResult = {
@@ -97,6 +99,12 @@ export function analyseCase(
     verdictIds: verdicts.map((v) => v.id),
   };
   return { work: { result, responses, paths }, verdicts };
+}
+
+/** Grid-following inverters cease to energise on their own protection (IEEE 1547-2018 clause 8.1, from memory). */
+export function isGridFollowing(net: ScenarioNetwork, source: string): boolean {
+  const e = net.elements.get(source);
+  return e?.kind === "inverter" && e.control === "grid-following";
 }
 
 function pickTimelineCase(works: CaseWork[], verdicts: Map<string, Verdict>): CaseWork | null {
@@ -146,6 +154,7 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
   const total = plan.reduce((n, p) => n + p.locations.length * p.limits.length * types.length, 0);
   let done = 0;
   const elements = new Map(project.elements.map((e) => [e.id, e] as const));
+  const withstand = memoWithstand();
 
   for (const { scenario, locations, limits } of plan) {
     const net = scenarioNetwork(project, scenario);
@@ -179,12 +188,15 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
           };
           for (const m of snaps[i].messages) if (!warnings.includes(m)) warnings.push(m);
           const paths = pathsByLoc.get(locationKey(loc))!;
-          const { work, verdicts } = analyseCase(project, net, sides, fc, paths, snaps[i], model);
+          const { work, verdicts } = analyseCase(project, net, sides, fc, paths, snaps[i], model, withstand);
           addVerdicts(verdicts);
           works.push(work);
           cases.push(work.result);
-          if (limit === sensLimit) {
-            for (const p of work.result.chains.paths)
+          // a fault that draws no current (an earth fault on an isolated-neutral section) is left to
+          // other protection (neutral displacement); it says nothing about overcurrent sensitivity
+          if (limit === sensLimit && snaps[i].iFault_A >= 1) {
+            // a grid-following inverter's path is opened by the inverter's own protection, not by overcurrent devices
+            for (const p of work.result.chains.paths.filter((x) => !isGridFollowing(net, x.source)))
               for (const l of p.links.slice(0, 2)) zone.add({ device: l.device, role: l.role, response: work.responses.get(l.device)!, faultCase: fc });
             const pairs = blindingPairs(net, paths, work.result.chains, infeeds);
             if (pairs.length) blinding.push({ work, pairs, locIndex: i, type });

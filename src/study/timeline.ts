@@ -36,10 +36,24 @@ export function deenergised(net: ScenarioNetwork, cut: ReadonlySet<number>): { b
   return { buses, load_kW };
 }
 
-/** True when no in-service source is connected to the fault any more. */
-export function faultIsolated(net: ScenarioNetwork, fc: FaultCase, cut: ReadonlySet<number>): boolean {
+/** Sources connected to the fault with `cut` open. */
+export function sourcesFeeding(net: ScenarioNetwork, fc: FaultCase, cut: ReadonlySet<number>): string[] {
   const seen = reachable(net, faultNode(fc.location), cut);
-  return !net.sources.some((s) => seen.has(elementNode(s)));
+  return net.sources.filter((s) => seen.has(elementNode(s)));
+}
+
+/**
+ * Sources that no device of the project can separate from the fault (no device on any route between
+ * them, e.g. the utility feeding a fault at the point of connection): their clearing is someone else's.
+ */
+export function unreachableSources(net: ScenarioNetwork, fc: FaultCase): string[] {
+  const allDeviceEdges = new Set(net.deviceEdge.values());
+  return sourcesFeeding(net, fc, allDeviceEdges);
+}
+
+/** True when every source that a device of the project can separate from the fault is separated. */
+export function faultIsolated(net: ScenarioNetwork, fc: FaultCase, cut: ReadonlySet<number>, outOfReach: readonly string[] = []): boolean {
+  return sourcesFeeding(net, fc, cut).every((s) => outOfReach.includes(s));
 }
 
 export interface TimelineInput {
@@ -65,7 +79,8 @@ export function clearingTimeline(input: TimelineInput): ClearingTimeline {
   const pending: { device: string; at_s: number }[] = [];
   let t = 0;
   let snap: FaultSnapshot | null = null;
-  let isolated = faultIsolated(net, fc, openEdges);
+  const outOfReach = unreachableSources(net, fc);
+  let isolated = faultIsolated(net, fc, openEdges, outOfReach);
   let clearedAt: number | null = isolated ? 0 : null;
   const currents = (s: FaultSnapshot) => {
     const list = Object.entries(s.readings).map(([device, r]) => ({ device, i_A: Math.max(r.m.phase_A[0], r.m.phase_A[1], r.m.phase_A[2]) }));
@@ -124,7 +139,7 @@ export function clearingTimeline(input: TimelineInput): ClearingTimeline {
     }
     if (opened) {
       snap = null;
-      isolated = faultIsolated(net, fc, openEdges);
+      isolated = faultIsolated(net, fc, openEdges, outOfReach);
       if (isolated) clearedAt = t;
     }
   }
@@ -137,6 +152,7 @@ export function clearingTimeline(input: TimelineInput): ClearingTimeline {
   if (isolated && clearedAt !== null) {
     const extra = opened.filter((d) => !input.idealDevices.includes(d));
     summary = `isolated at ${fmtS(clearedAt)} by ${opened.join(", ") || "no device (no source connected)"}; ${final.load_kW.toFixed(0)} kW lost (ideal ${ideal.load_kW.toFixed(0)} kW)${extra.length ? `; beyond the ideal isolation: ${extra.join(", ")}` : ""}`;
+    if (outOfReach.length) summary += `; still fed by ${outOfReach.join(", ")}, which no device of the project can disconnect`;
   } else if (opened.length === 0) {
     summary = `not isolated: nothing operates within ${fmtS(horizon)}`;
   } else {

@@ -143,7 +143,7 @@ export interface TimelineEvent {
 export interface ClearingTimeline {
   caseId: string;
   events: TimelineEvent[];
-  /** True when every source path into the fault was opened within the horizon. */
+  /** True when every source path into the fault that a device of the project can open was opened within the horizon. */
   isolated: boolean;
   /** Time at which the last source path opened, null when not isolated. */
   clearedAt_s: number | null;

@@ -2,7 +2,7 @@
 // primary device looks into can carry the fault current (damage curves from src/protection).
 // Infinity where no limit applies (elements without a damage curve, overload region).
 import type { Element, Line, Transformer } from "../model/schema.ts";
-import { cableK, cableWithstand_s, logLogInterpolate, transformerWithstand } from "../protection/index.ts";
+import { cableK, cableWithstand_s, logLogInterpolate, transformerWithstand, type Polyline } from "../protection/index.ts";
 
 /** Cable: adiabatic I^2 t = k^2 S^2 per run (k from IEC 60364-5-54 via src/protection). */
 export function lineWithstand_s(line: Line, current_A: number): number {
@@ -27,4 +27,21 @@ export function withstand_s(element: Element | undefined, end: "from" | "to" | "
   if (element?.kind === "line") return lineWithstand_s(element, current_A);
   if (element?.kind === "transformer" && end !== "terminal") return transformerWithstand_s(element, end, current_A);
   return Infinity;
+}
+
+export type WithstandFn = typeof withstand_s;
+
+/** withstand_s with each transformer's damage curve built once (a study asks thousands of times). */
+export function memoWithstand(): WithstandFn {
+  const curves = new Map<string, Polyline>();
+  return (element, end, current_A) => {
+    if (element?.kind !== "transformer" || end === "terminal") return withstand_s(element, end, current_A);
+    const key = `${element.id}|${end}`;
+    let curve = curves.get(key);
+    if (!curve) {
+      curve = transformerWithstand({ sr_kVA: element.sr_MVA * 1000, ratedCurrent_A: transformerRated_A(element, end), z_pu: element.uk_pct / 100 }).frequent;
+      curves.set(key, curve);
+    }
+    return logLogInterpolate(curve, current_A);
+  };
 }

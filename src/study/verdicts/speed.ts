@@ -2,7 +2,7 @@
 // else criteria.clearingLimit_s) and before the element it looks into exceeds its withstand.
 import type { Criteria, Element, ProtectiveDevice } from "../../model/schema.ts";
 import type { DeviceResponse, FaultCase, FaultChains, Verdict, VerdictStatus } from "../types.ts";
-import { withstand_s } from "../withstand.ts";
+import { withstand_s, type WithstandFn } from "../withstand.ts";
 import { deviceTag, fmtA, fmtS, round } from "./format.ts";
 
 /** The clearing limit for a fault location: the bus's own limit, for a line the tighter of its end buses'. */
@@ -24,6 +24,8 @@ export function speedVerdicts(
   responses: ReadonlyMap<string, DeviceResponse>,
   elements: ReadonlyMap<string, Element>,
   criteria: Criteria,
+  selfCeasing: (source: string) => boolean = () => false,
+  withstand: WithstandFn = withstand_s,
 ): Verdict[] {
   const out: Verdict[] = [];
   const limit = clearingLimit_s(fc, elements, criteria);
@@ -36,12 +38,15 @@ export function speedVerdicts(
     const device = elements.get(r.device) as ProtectiveDevice;
     const tag = deviceTag(device, r.device, r.operatingElement);
     const element = elements.get(device.at.element);
-    const withstand = r.iPhase_A > 0 ? withstand_s(element, device.at.end, r.iPhase_A) : Infinity;
-    const bound = Math.min(limit, withstand);
-    const boundText = withstand < limit ? `withstand of ${device.at.element} ${fmtS(withstand)} at ${fmtA(r.iPhase_A)}` : `limit ${fmtS(limit)}`;
+    const limitOfElement = r.iPhase_A > 0 ? withstand(element, device.at.end, r.iPhase_A) : Infinity;
+    const bound = Math.min(limit, limitOfElement);
+    const boundText = limitOfElement < limit ? `withstand of ${device.at.element} ${fmtS(limitOfElement)} at ${fmtA(r.iPhase_A)}` : `limit ${fmtS(limit)}`;
     let status: VerdictStatus;
     let why: string;
-    if (r.tClear_s === null) {
+    if (r.tClear_s === null && selfCeasing(path.source)) {
+      status = "warn";
+      why = `does not operate (sees ${fmtA(r.iPhase_A)}); the path relies on ${path.source}'s own protection to cease energising`;
+    } else if (r.tClear_s === null) {
       status = "fail";
       why = `does not operate (sees ${fmtA(r.iPhase_A)})`;
     } else if ((r.tClearMax_s ?? r.tClear_s) <= bound) {
@@ -57,7 +62,7 @@ export function speedVerdicts(
     const numbers: Record<string, number> = { current_A: round(r.iPhase_A, 1), limit_s: limit };
     if (r.tClear_s !== null) numbers.tClear_s = round(r.tClear_s);
     if (r.tClearMax_s !== null) numbers.tClearSlow_s = round(r.tClearMax_s);
-    if (Number.isFinite(withstand)) numbers.withstand_s = round(withstand);
+    if (Number.isFinite(limitOfElement)) numbers.withstand_s = round(limitOfElement);
     out.push({
       id: `speed|${r.device}|${fc.id}`,
       kind: "speed",

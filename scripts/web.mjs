@@ -4,6 +4,7 @@
 import { spawn } from "node:child_process";
 import { existsSync, readdirSync, statSync } from "node:fs";
 import { get } from "node:http";
+import { createServer } from "node:net";
 import { dirname, join, resolve } from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
 
@@ -91,11 +92,24 @@ function answers(url) {
   });
 }
 
+/** Whether host:port can be listened on now (so the URL we print is really ours). */
+export function portIsFree(port, host = STUDIO_HOST) {
+  return new Promise((resolveFree) => {
+    const probe = createServer();
+    probe.once("error", () => resolveFree(false));
+    probe.listen(port, host, () => probe.close(() => resolveFree(true)));
+  });
+}
+
 /**
  * Serve out/renderer with vite preview until the server exits or this process is stopped.
  * Resolves to the exit code to use.
  */
 export async function serveStudio(root = repoRoot, log = console.log) {
+  if (!(await portIsFree(STUDIO_PORT))) {
+    log(`Islet: port ${STUDIO_PORT} on ${STUDIO_HOST} is already in use (is the studio already running?). Stop that server and try again.`);
+    return 1;
+  }
   if (!(await ensureRendererBuilt(root, log))) return 1;
   const { cmd, args } = viteCommand(root, ["preview", "--config", "renderer/vite.config.ts", "--host", STUDIO_HOST, "--port", String(STUDIO_PORT), "--strictPort"]);
   const child = spawn(cmd, args, { cwd: root, stdio: "inherit" });

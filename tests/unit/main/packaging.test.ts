@@ -179,3 +179,16 @@ describe("npm start", () => {
     expect(desktopArgs(["/s/a.islet"])).toEqual([".", "/s/a.islet"]);
   });
 });
+
+describe("browser studio port check", () => {
+  it("reports a port in use instead of printing an address that is not ours", async () => {
+    const { portIsFree } = await importScript<{ portIsFree(port: number, host?: string): Promise<boolean> }>("web.mjs");
+    const { createServer } = await import("node:net");
+    const holder = createServer();
+    await new Promise<void>((ok) => holder.listen(0, "127.0.0.1", () => ok()));
+    const port = (holder.address() as { port: number }).port;
+    expect(await portIsFree(port)).toBe(false);
+    await new Promise<void>((ok) => holder.close(() => ok()));
+    expect(await portIsFree(port)).toBe(true);
+  });
+});

@@ -16,6 +16,7 @@ import "../../styles/studio.css";
 interface PreviewLog {
   settings: { deviceId: string; functionId: string; patch: TccSettingPatch; final: boolean }[];
   steps: string[];
+  selects: string[];
   selections: { caseId: string; scenarioId: string }[];
   exports: { suggestedName: string; mime: string; size: number; text?: string }[];
   errors: string[];
@@ -25,7 +26,7 @@ declare global {
     __panes: PreviewLog;
   }
 }
-window.__panes = { settings: [], steps: [], selections: [], exports: [], errors: [] };
+window.__panes = { settings: [], steps: [], selects: [], selections: [], exports: [], errors: [] };
 
 const params = new URLSearchParams(location.search);
 document.documentElement.dataset.theme = params.get("theme") === "dark" ? "dark" : "light";
@@ -81,7 +82,10 @@ function Preview() {
       notice={empty ? 'Relay R-TX1 "TX1 HV feeder": functions[0].pickup_A must be > 0 (got -3)' : null}
       highlightDeviceId={step}
       onSettingChange={onSettingChange}
-      onDeviceSelect={(id) => setStep(id)}
+      onDeviceSelect={(id) => {
+        window.__panes.selects.push(id);
+        setStep(id);
+      }}
       onExport={onExport}
       onExportError={(m) => window.__panes.errors.push(m)}
       exportName="tcc B-WS 3ph"

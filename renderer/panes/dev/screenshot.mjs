@@ -97,6 +97,13 @@ try {
   });
   void eLog;
 
+  // A click on a legend entry selects that device.
+  const legendLog = await shot("tcc-legend-click", "?pane=tcc", { width: 1366, height: 768 }, async (page) => {
+    await page.locator(".tcc-legend-row.is-device", { hasText: "LV incomer" }).click();
+  });
+  console.log("legend click selects:", legendLog.selects.join(","));
+  if (legendLog.selects.join(",") !== "Q-INC") problems.push("legend click did not select the device");
+
   // Empty states and a notice.
   await shot("empty", "?empty=1", { width: 1366, height: 768 });
 

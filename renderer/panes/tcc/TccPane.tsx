@@ -71,9 +71,17 @@ interface DragState {
 }
 
 const DEFAULT_TIME: readonly [number, number] = [0.01, 1000];
+// Shared empty lists: a fresh [] per render would defeat the memoised layers.
+const NONE_EQUIPMENT: readonly TccEquipmentCurve[] = [];
+const NONE_MARKERS: readonly TccMarkerPoint[] = [];
+const NONE_MARKS: readonly TccFaultMark[] = [];
 
 export function TccPane(props: TccPaneProps) {
-  const { bands, equipment = [], markers = [], faultMarks = [], highlightDeviceId = null, onSettingChange, onExport } = props;
+  const { bands, equipment = NONE_EQUIPMENT, markers = NONE_MARKERS, faultMarks = NONE_MARKS, highlightDeviceId = null, onSettingChange, onExport } = props;
+  // A stable wrapper so the memoised static layer does not redraw when the shell passes a new arrow function.
+  const selectRef = useRef(props.onDeviceSelect);
+  selectRef.current = props.onDeviceSelect;
+  const selectDevice = useCallback((deviceId: string) => selectRef.current?.(deviceId), []);
   const boxRef = useRef<HTMLDivElement>(null);
   const svgRef = useRef<SVGSVGElement>(null);
   const { width, height } = useElementSize(boxRef);
@@ -149,7 +157,7 @@ export function TccPane(props: TccPaneProps) {
     if (!drag || e.pointerId !== drag.pointerId) return;
     const band = bands[drag.bandIndex];
     if (band && drag.patch) onSettingChange?.(band.deviceId, band.functionId, drag.patch, { final: true });
-    else if (band && !drag.moved) props.onDeviceSelect?.(band.deviceId);
+    else if (band && !drag.moved) selectDevice(band.deviceId);
     setDrag(null);
   };
 
@@ -247,6 +255,7 @@ export function TccPane(props: TccPaneProps) {
               highlightDeviceId={highlightDeviceId}
               referenceVoltage_kV={props.referenceVoltage_kV}
               uid={uid}
+              onLegendSelect={selectDevice}
             />
             {drag && drag.patch && bands[drag.bandIndex] ? (
               <DragGhost uid={uid} band={bands[drag.bandIndex]} patch={drag.patch} x={x} y={y} layout={layout} color={colors.get(bands[drag.bandIndex].deviceId) ?? "currentColor"} />
@@ -297,6 +306,8 @@ interface StaticProps {
   referenceVoltage_kV: number;
   /** Prefix of the SVG ids (clip path, hatch patterns). */
   uid: string;
+  /** A device's legend entry was clicked. */
+  onLegendSelect: (deviceId: string) => void;
 }
 
 /** Everything that does not move with the pointer, memoised so the read-out stays cheap. */
@@ -416,7 +427,7 @@ const PlotStatic = memo(function PlotStatic(p: StaticProps) {
 
 function Legend(p: StaticProps) {
   const L = p.layout;
-  const rows: { key: string; swatch: ReactElement; title: string; detail: string; setting?: string; highlight: boolean }[] = [];
+  const rows: { key: string; swatch: ReactElement; title: string; detail: string; setting?: string; highlight: boolean; deviceId?: string }[] = [];
   for (const b of p.bands) {
     const color = p.colors.get(b.deviceId) ?? "currentColor";
     const setting = [`pickup ${formatCurrent_A(b.pickup_A)}`, b.multiplier !== undefined ? `multiplier ${trimNumber(b.multiplier, 3)}` : ""].filter(Boolean).join(" · ");
@@ -432,6 +443,7 @@ function Legend(p: StaticProps) {
       detail: b.functionLabel,
       setting,
       highlight: b.deviceId === p.highlightDeviceId,
+      deviceId: b.deviceId,
     });
   }
   for (const e of p.equipment) {
@@ -484,7 +496,12 @@ function Legend(p: StaticProps) {
         </text>
       ) : null}
       {shown.map((r, k) => (
-        <g key={r.key} transform={`translate(0 ${rowY[k]})`} className={r.highlight ? "tcc-legend-row is-highlight" : "tcc-legend-row"}>
+        <g
+          key={r.key}
+          transform={`translate(0 ${rowY[k]})`}
+          className={`tcc-legend-row${r.highlight ? " is-highlight" : ""}${r.deviceId ? " is-device" : ""}`}
+          onClick={r.deviceId ? () => p.onLegendSelect(r.deviceId!) : undefined}
+        >
           {r.swatch}
           <text x={24} y={0} className="tcc-legend-title">
             {ellipsis(r.title, titleChars)}

@@ -25,6 +25,12 @@ export interface PhaseModelOptions {
   prefault_pu: number;
   /** Generator negative- and zero-sequence resistance: the positive-sequence RG, or rx times x2 / x0. */
   generatorSeqR: "RG" | "rx";
+  /** Correction factor on an element's own impedances by id (IEC 60909 KT, KG); earthing impedances stay as they are. */
+  impedanceFactor?: Record<string, number>;
+  /** Factor on line and cable resistances (conductor temperature for minimum currents). */
+  lineResistanceFactor?: number;
+  /** Element kinds left out (IEC 60909: motors in minimum calculations). */
+  omitKinds?: string[];
 }
 
 export const DEFAULT_PHASE_OPTIONS: PhaseModelOptions = { gridSk: "max", gridC: 1, prefault_pu: 1, generatorSeqR: "RG" };
@@ -116,7 +122,10 @@ export function phaseDomainFault(project: Project, fault: PhaseFault, options: P
   const scenario = o.scenario ? project.scenarios.find((s) => s.id === o.scenario) : undefined;
   if (o.scenario && !scenario) throw new Error(`phaseDomainFault: no scenario "${o.scenario}"`);
   const out = new Set(scenario?.outOfService ?? []);
-  const elements = project.elements.filter((e) => !out.has(e.id));
+  const omit = new Set(o.omitKinds ?? []);
+  const elements = project.elements.filter((e) => !out.has(e.id) && !omit.has(e.kind));
+  const kOf = (id: string) => o.impedanceFactor?.[id] ?? 1;
+  const rLine = o.lineResistanceFactor ?? 1;
 
   // Nodes: three per bus, then star points and the fault point.
   const busIndex = new Map<string, number>();
@@ -179,7 +188,7 @@ export function phaseDomainFault(project: Project, fault: PhaseFault, options: P
       }
       case "generator": {
         // pu of the machine rating at Ur, referred to the bus base (IEC 60909-0: Z = (R + jX) Ur^2 / Sr).
-        const scale = (sBase / e.sr_MVA) * (e.ur_kV / (unOf.get(e.bus) as number)) ** 2;
+        const scale = (sBase / e.sr_MVA) * (e.ur_kV / (unOf.get(e.bus) as number)) ** 2 * kOf(e.id);
         const rG = e.rx * e.xdss_pu;
         const z1 = c(rG * scale, e.xdss_pu * scale);
         const z2 = c((o.generatorSeqR === "RG" ? rG : e.rx * e.x2_pu) * scale, e.x2_pu * scale);
@@ -201,8 +210,8 @@ export function phaseDomainFault(project: Project, fault: PhaseFault, options: P
       case "line": {
         const zb = zBase(e.fromBus);
         const k = e.length_km / e.parallel / zb;
-        const z1 = c(e.r1_ohmPerKm * k, e.x1_ohmPerKm * k);
-        const z0 = c(e.r0_ohmPerKm * k, e.x0_ohmPerKm * k);
+        const z1 = c(e.r1_ohmPerKm * rLine * k, e.x1_ohmPerKm * k);
+        const z0 = c(e.r0_ohmPerKm * rLine * k, e.x0_ohmPerKm * k);
         const y = inv(selfMutual(z1, z0)) as unknown as CMatrix;
         stamps.push({ element: e.id, ports: [0, 1, 2].map((p) => [node(e.fromBus, p), node(e.toBus, p)] as [number, number]), y });
         ends.push({ element: e.id, end: "from", bus: e.fromBus, nodes: [0, 1, 2].map((p) => node(e.fromBus, p)) });
@@ -224,8 +233,8 @@ export function phaseDomainFault(project: Project, fault: PhaseFault, options: P
   function transformerStamp(t: Extract<Element, { kind: "transformer" }>) {
     const w = WIRING[t.vectorGroup];
     // Leakage impedance in pu of Sbase (IEC 60909-0: ZT = uk Ur^2 / (100 Sr), RT = ur Ur^2 / (100 Sr)).
-    const zAbs = ((t.uk_pct / 100) * sBase) / t.sr_MVA;
-    const r = ((t.ur_pct / 100) * sBase) / t.sr_MVA;
+    const zAbs = (((t.uk_pct / 100) * sBase) / t.sr_MVA) * kOf(t.id);
+    const r = (((t.ur_pct / 100) * sBase) / t.sr_MVA) * kOf(t.id);
     const z1 = c(r, Math.sqrt(Math.max(0, zAbs * zAbs - r * r)));
     const z0 = multiply(t.z0z1, z1) as Complex;
     // Winding leakage as a coupled 3x3 on the star-equivalent winding base; primitive of the six windings [hv a,b,c, lv a,b,c].

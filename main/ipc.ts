@@ -142,7 +142,11 @@ export function registerIpcHandlers(ipcMain: IpcMainLike, deps: IpcDeps): IpcReg
     return { ok: true, file: fileRefFor(target) };
   });
 
-  handle(CHANNELS.listRecent, "listRecent", async () => (await deps.store.listRecent()).map(fileRefFor));
+  handle(CHANNELS.listRecent, "listRecent", async () => {
+    const list = await deps.store.listRecent();
+    deps.onRecentChanged(list); // files deleted since leave the menu too
+    return list.map(fileRefFor);
+  });
 
   ipcMain.on(CHANNELS.setDocumentState, (event, stateArg) => {
     if (!isAppFrameUrl(event.senderFrame?.url)) return deps.warn("setDocumentState: refused, the message did not come from the studio page");

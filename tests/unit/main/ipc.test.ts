@@ -151,9 +151,10 @@ describe("opening", () => {
   it("opens the file chosen in the dialog and lets it be reopened from the recent list", async () => {
     const path = join(newDir(), "site.islet");
     writeFileSync(path, "project text");
-    const { invoke } = setup({ chooseProjectToOpen: path });
+    const { invoke, deps } = setup({ chooseProjectToOpen: path });
     expect(await invoke(CHANNELS.openProject)).toEqual({ file: { name: "site.islet", key: path }, text: "project text" });
     expect(await invoke(CHANNELS.listRecent)).toEqual([{ name: "site.islet", key: path }]);
+    expect(deps.onRecentChanged).toHaveBeenLastCalledWith([path]);
     expect(await invoke(CHANNELS.openRecent, { name: "site.islet", key: path })).toEqual({ file: { name: "site.islet", key: path }, text: "project text" });
   });
 

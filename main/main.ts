@@ -10,7 +10,7 @@ import { aboutText } from "./aboutText.ts";
 import { CLOSE_DIALOG_BUTTONS, closeChoiceFromButton, createCloseGuard, type CloseGuard } from "./closeGuard.ts";
 import { electronFileDialogs } from "./dialogs.ts";
 import { createFileStore } from "./fileStore.ts";
-import { fileRefFor, registerIpcHandlers, type IpcMainLike } from "./ipc.ts";
+import { fileRefFor, registerIpcHandlers } from "./ipc.ts";
 import { parseLaunchArgs, startupCommand } from "./launchArgs.ts";
 import { installMenu } from "./menu.ts";
 import { registerAppScheme, serveAppProtocol } from "./protocol.ts";
@@ -61,7 +61,7 @@ function refreshMenu(paths: readonly string[]): void {
   installMenu({ isMac, dev, recent: paths.map(fileRefFor), send, showAbout });
 }
 
-const ipc = registerIpcHandlers(ipcMain as unknown as IpcMainLike, {
+const ipc = registerIpcHandlers(ipcMain, {
   store,
   dialogs: electronFileDialogs(() => win, () => app.getPath("documents")),
   demoPath,

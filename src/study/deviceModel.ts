@@ -4,7 +4,14 @@ import type { ProtectiveDevice } from "../model/schema.ts";
 import type { Band, Measurement, OperatingResult, TravelState } from "../protection/types.ts";
 
 export interface DevicePickups {
+  /**
+   * Lowest pickup of the short-circuit elements on phase current. For an LV breaker that is the short-time
+   * or instantaneous pickup when it has one (its long-time element is overload protection: a fault cleared
+   * only by it takes seconds to minutes, common practice); for relays and fuses their lowest phase pickup.
+   */
   phase_A: number | null;
+  /** Lowest phase pickup of any element, overload elements included: what load current must stay below. */
+  overload_A: number | null;
   residual_A: number | null;
   negative_A: number | null;
 }

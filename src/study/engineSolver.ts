@@ -157,12 +157,13 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   const sweepBusIndex = new WeakMap<SweepResult, Map<string, number>>();
   /** One sweep of every energised bus and every fault type per network variant and limit. */
   const sweeps = new Map<string, SweepResult | null>();
-  const sweepOf = (key: string, net: CompiledNetwork): SweepResult | null => {
+  const sweepOf = (key: string, net: CompiledNetwork, variant: Project, scenarioId: string): SweepResult | null => {
     if (sweeps.has(key)) return sweeps.get(key)!;
     let sweep: SweepResult | null = null;
     if (!sweepBroken) {
       try {
-        const locs = devices.map((d) => {
+        const out = new Set(variant.scenarios.find((s) => s.id === scenarioId)?.outOfService ?? []);
+        const locs = devices.filter((d) => !out.has(d.at.element) && !out.has(locKey.get(d.id)!.split("|")[0])).map((d) => {
           const [element, end] = locKey.get(d.id)!.split("|");
           return { element, end: end as OpenEnd["end"] };
         });
@@ -185,7 +186,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     const net = c.network;
     const where = locations.map((l) => split.locate(l));
     const buses = [...new Set(where.filter((l) => l.kind === "bus").map((l) => (l as { bus: string }).bus))];
-    const sweep = buses.length > singleLimit ? sweepOf(`${v.key}#${limit}`, net) : null;
+    const sweep = buses.length > singleLimit ? sweepOf(`${v.key}#${limit}`, net, v.project, v.scenarioId) : null;
     const first = sweep && !sweepsReported.has(sweep);
     if (sweep) sweepsReported.add(sweep);
     const out = where.map((loc) => (sweep && loc.kind === "bus" ? fromSweep(net, sweep, loc.bus, type) : solveSingle(net, v.project, loc, type)));

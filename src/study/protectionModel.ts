@@ -46,13 +46,20 @@ export function protectionModel(warn: (text: string) => void = () => {}): Device
     pickups(device: ProtectiveDevice): DevicePickups {
       const known = pickups.get(device.id);
       if (known) return known;
-      const p: DevicePickups = { phase_A: null, residual_A: null, negative_A: null };
+      const p: DevicePickups = { phase_A: null, residual_A: null, negative_A: null, overload_A: null };
+      const lower = (a: number | null, b: number) => (b > 0 && Number.isFinite(b) && (a === null || b < a) ? b : a);
       try {
+        let shortCircuit: number | null = null;
         for (const el of deviceElements(device)) {
-          const key = el.quantity === "phase" ? "phase_A" : el.quantity === "residual" ? "residual_A" : "negative_A";
           const a = el.pickup_A("nominal");
-          if (a > 0 && Number.isFinite(a) && (p[key] === null || a < p[key]!)) p[key] = a;
+          if (el.quantity === "residual") p.residual_A = lower(p.residual_A, a);
+          else if (el.quantity === "negative") p.negative_A = lower(p.negative_A, a);
+          else {
+            p.overload_A = lower(p.overload_A, a);
+            if (el.id === "short-time" || el.id === "instantaneous") shortCircuit = lower(shortCircuit, a);
+          }
         }
+        p.phase_A = device.kind === "lvbreaker" && shortCircuit !== null ? shortCircuit : p.overload_A;
       } catch (err) {
         refuse(device, err);
       }

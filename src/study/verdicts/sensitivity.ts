@@ -78,7 +78,7 @@ export function loadVerdicts(
   for (const [id, iLoad] of Object.entries(load_A)) {
     const device = devices.get(id);
     if (!device || !(iLoad > 0)) continue;
-    const pickup = device.kind === "fuse" ? device.rating_A : model.pickups(device).phase_A;
+    const pickup = device.kind === "fuse" ? device.rating_A : model.pickups(device).overload_A;
     if (pickup === null) continue;
     const ratio = pickup / iLoad;
     const status: VerdictStatus = ratio >= criteria.loadMargin ? "pass" : ratio >= 1 ? "warn" : "fail";

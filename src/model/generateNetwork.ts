@@ -225,7 +225,7 @@ function build(o: GenerateNetworkOptions, ties: number, shape: "radial" | "meshe
   // A few inverters, preferably on LV buses: PV that follows the grid, one battery that forms it.
   const lvBuses = tree.map((_, i) => i).filter((i) => tree[i].un_kV === LV_KV);
   const candidates = lvBuses.length > 0 ? lvBuses : tree.map((_, i) => i).filter((i) => i > 0);
-  const nInverters = Math.min(40, Math.max(2, Math.round(o.buses / 50)));
+  const nInverters = Math.min(12, Math.max(2, Math.round(o.buses / 100))); // a few, not one per feeder
   for (let k = 0; k < nInverters; k++) {
     const bi = pick(rnd, candidates);
     const battery = k === 0;

@@ -18,7 +18,7 @@ interface PreviewLog {
   steps: string[];
   selects: string[];
   selections: { caseId: string; scenarioId: string }[];
-  exports: { suggestedName: string; mime: string; size: number; text?: string }[];
+  exports: { suggestedName: string; mime: string; size: number; text?: string; base64?: string }[];
   errors: string[];
 }
 declare global {
@@ -33,6 +33,12 @@ document.documentElement.dataset.theme = params.get("theme") === "dark" ? "dark"
 const only = params.get("pane");
 const buses = Number(params.get("buses") ?? "40");
 const empty = params.get("empty") === "1";
+
+function toBase64(bytes: Uint8Array): string {
+  let s = "";
+  for (let k = 0; k < bytes.length; k += 0x8000) s += String.fromCharCode(...bytes.subarray(k, k + 0x8000));
+  return btoa(s);
+}
 
 function applyPatch(d: ProtectiveDevice, functionId: string, patch: TccSettingPatch): ProtectiveDevice {
   switch (d.kind) {
@@ -68,7 +74,7 @@ function Preview() {
     setDevices((ds) => ds.map((d) => (d.device.id === deviceId ? { ...d, device: applyPatch(d.device, functionId, patch) } : d)));
   };
   const onExport = (f: TccExportFile) => {
-    window.__panes.exports.push({ suggestedName: f.suggestedName, mime: f.mime, size: typeof f.data === "string" ? f.data.length : f.data.byteLength, text: typeof f.data === "string" ? f.data : undefined });
+    window.__panes.exports.push({ suggestedName: f.suggestedName, mime: f.mime, size: typeof f.data === "string" ? f.data.length : f.data.byteLength, text: typeof f.data === "string" ? f.data : undefined, base64: typeof f.data === "string" ? undefined : toBase64(f.data) });
   };
 
   const tcc = (

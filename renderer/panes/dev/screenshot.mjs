@@ -1,4 +1,4 @@
-/* global process, console, window, document */
+/* global process, console, window, document, Buffer */
 // Screenshots and a smoke check of the panes preview in Debian's Chromium (playwright-core, no downloaded browser).
 // Start the preview first:  node_modules/.bin/vite --config renderer/panes/dev/vite.config.ts &
 // then:                     node renderer/panes/dev/screenshot.mjs [outDir]
@@ -94,6 +94,16 @@ try {
     if (!svgText.includes("review by a licensed engineer")) problems.push("SVG export lacks the caution");
     if (svgText.includes("tcc-readout")) problems.push("SVG export contains the pointer read-out");
     if (!(png.size > 10000)) problems.push("PNG export too small");
+    const { writeFile } = await import("node:fs/promises");
+    const bytes = Buffer.from(png.base64, "base64");
+    await writeFile(`${out}/tcc-exported.png`, bytes);
+    // PNG header: width and height are big-endian at bytes 16 and 20 (PNG specification, IHDR chunk)
+    const w = bytes.readUInt32BE(16);
+    const h = bytes.readUInt32BE(20);
+    const plot = await page.locator(".tcc-svg").boundingBox();
+    console.log("PNG size:", w, "x", h, "for a plot of", Math.round(plot.width), "x", Math.round(plot.height));
+    // 26 px title band above the plot (svgExport.ts)
+    if (w !== Math.round(plot.width * 2) || h !== Math.round((plot.height + 26) * 2)) problems.push("PNG is not drawn at 2x");
   });
   void eLog;
 

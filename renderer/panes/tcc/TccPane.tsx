@@ -185,7 +185,8 @@ export function TccPane(props: TccPaneProps) {
     if (!svgRef.current || !onExport || busy) return;
     setBusy(true);
     try {
-      onExport(await exportPlot(svgRef.current, kind, props.exportName ?? "time-current"));
+      const title = [`Time-current, currents at ${trimNumber(props.referenceVoltage_kV, 4)} kV`, props.title].filter(Boolean).join(" · ");
+      onExport(await exportPlot(svgRef.current, kind, props.exportName ?? "time-current", title));
     } catch (err) {
       props.onExportError?.(err instanceof Error ? err.message : String(err));
     } finally {

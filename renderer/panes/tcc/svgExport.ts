@@ -28,8 +28,12 @@ export const INLINED_PROPERTIES = [
 /** Attribute that marks on-screen-only parts (pointer cross-hair, read-out, drag ghost, buttons). */
 export const NO_EXPORT_ATTR = "data-no-export";
 
-/** A standalone SVG document of `svg`, styles inlined, on-screen-only parts dropped, with an opaque background. */
-export function serializeSvg(svg: SVGSVGElement): string {
+/** Height in px of the title band added above the plot in an export. */
+const TITLE_BAND_PX = 26;
+
+/** A standalone SVG document of `svg`, styles inlined, on-screen-only parts dropped, with an opaque
+ * background and, when given, a title band above the plot (what the file shows, since the pane's header is not in it). */
+export function serializeSvg(svg: SVGSVGElement, title?: string): string {
   const clone = svg.cloneNode(true) as SVGSVGElement;
   const srcNodes = [svg, ...Array.from(svg.querySelectorAll("*"))];
   const dstNodes = [clone, ...Array.from(clone.querySelectorAll("*"))];
@@ -48,13 +52,30 @@ export function serializeSvg(svg: SVGSVGElement): string {
     });
   }
   clone.querySelectorAll(`[${NO_EXPORT_ATTR}]`).forEach((n) => n.remove());
-  const { width, height } = svg.getBoundingClientRect();
-  clone.setAttribute("xmlns", "http://www.w3.org/2000/svg");
+  const { width, height: plotHeight } = svg.getBoundingClientRect();
+  const ns = "http://www.w3.org/2000/svg";
+  const band = title ? TITLE_BAND_PX : 0;
+  const height = plotHeight + band;
+  if (title) {
+    const body = svg.ownerDocument.createElementNS(ns, "g");
+    body.setAttribute("transform", `translate(0 ${band})`);
+    while (clone.firstChild) body.appendChild(clone.firstChild);
+    clone.appendChild(body);
+    const text = svg.ownerDocument.createElementNS(ns, "text");
+    const fg = view ? view.getComputedStyle(svg).color : "";
+    const font = view ? view.getComputedStyle(svg).fontFamily : "";
+    text.setAttribute("x", "12");
+    text.setAttribute("y", String(band - 8));
+    text.setAttribute("style", `fill:${fg || "#1d2430"};font-family:${font || "sans-serif"};font-size:13px;font-weight:600`);
+    text.textContent = title;
+    clone.appendChild(text);
+  }
+  clone.setAttribute("xmlns", ns);
   clone.setAttribute("width", String(Math.round(width)));
   clone.setAttribute("height", String(Math.round(height)));
   clone.setAttribute("viewBox", `0 0 ${Math.round(width)} ${Math.round(height)}`);
   const bgColor = view ? view.getComputedStyle(svg).getPropertyValue("--tcc-export-bg") || view.getComputedStyle(svg.parentElement ?? svg).backgroundColor : "";
-  const bg = svg.ownerDocument.createElementNS("http://www.w3.org/2000/svg", "rect");
+  const bg = svg.ownerDocument.createElementNS(ns, "rect");
   bg.setAttribute("width", "100%");
   bg.setAttribute("height", "100%");
   bg.setAttribute("style", `fill:${bgColor.trim() || "#ffffff"}`);
@@ -89,13 +110,13 @@ export async function svgToPng(svgText: string, width_px: number, height_px: num
   }
 }
 
-/** Both export files of the plot, named after `baseName` ("tcc-F3-dock" -> "tcc-F3-dock.svg"/".png"). */
-export async function exportPlot(svg: SVGSVGElement, kind: "svg" | "png", baseName: string): Promise<TccExportFile> {
-  const text = serializeSvg(svg);
+/** One export file of the plot, named after `baseName` ("tcc-F3-dock" -> "tcc-F3-dock.svg" or ".png"), titled `title`. */
+export async function exportPlot(svg: SVGSVGElement, kind: "svg" | "png", baseName: string, title?: string): Promise<TccExportFile> {
+  const text = serializeSvg(svg, title);
   const safe = exportBaseName(baseName);
   if (kind === "svg") return { suggestedName: `${safe}.svg`, mime: "image/svg+xml", data: text };
   const { width, height } = svg.getBoundingClientRect();
-  return { suggestedName: `${safe}.png`, mime: "image/png", data: await svgToPng(text, width, height, 2) };
+  return { suggestedName: `${safe}.png`, mime: "image/png", data: await svgToPng(text, width, height + (title ? TITLE_BAND_PX : 0), 2) };
 }
 
 /** A file-system-safe base name: letters, digits, dot, dash and underscore; other runs become "-". */

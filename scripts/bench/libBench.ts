@@ -13,18 +13,31 @@ export function median(xs: number[]): number {
   return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
 }
 
-/** Runs fn `warmup` times untimed, then `runs` times timed with performance.now(); returns the median. */
-export function timeMedian(fn: () => unknown, opts: { warmup?: number; runs?: number } = {}): Timing {
+/**
+ * Runs fn `warmup` times untimed, then `runs` times timed with performance.now(); returns the median.
+ * A time budget keeps a slow function from stalling the benchmark: warm-up stops after a quarter of the budget,
+ * timed runs stop once the budget is spent (at least one timed run), and when a single call takes more than half the
+ * budget that first (cold) call is the only sample.
+ */
+export function timeMedian(fn: () => unknown, opts: { warmup?: number; runs?: number; budget_ms?: number } = {}): Timing {
   const warmup = opts.warmup ?? 2;
   const runs = Math.max(1, opts.runs ?? 7);
-  for (let i = 0; i < warmup; i++) fn();
+  const budget = opts.budget_ms ?? 20000;
+  const start = performance.now();
   const t: number[] = [];
-  for (let i = 0; i < runs; i++) {
+  for (let i = 0; i < warmup && performance.now() - start < budget / 4; i++) {
+    const t0 = performance.now();
+    fn();
+    const dt = performance.now() - t0;
+    if (i === 0 && dt > budget / 2) return { median_ms: dt, min_ms: dt, runs: 1 };
+  }
+  const timedStart = performance.now();
+  while (t.length < runs && (t.length === 0 || performance.now() - timedStart < budget)) {
     const t0 = performance.now();
     fn();
     t.push(performance.now() - t0);
   }
-  return { median_ms: median(t), min_ms: Math.min(...t), runs };
+  return { median_ms: median(t), min_ms: Math.min(...t), runs: t.length };
 }
 
 const fmt = (v: number) => (Math.abs(v) >= 100 ? v.toFixed(0) : Math.abs(v) >= 10 ? v.toFixed(1) : v.toPrecision(3));

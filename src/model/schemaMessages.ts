@@ -1,7 +1,7 @@
 // Turns zod issues on a raw project document into messages that name the element (id and name)
 // and the field: the issue path tells which element (by index) and which field.
 import type { z } from "zod";
-import { elementLabel } from "./elementLabel.ts";
+import { elementLabel, idText } from "./elementLabel.ts";
 import { errorMessage, type Message } from "./messages.ts";
 
 type Issue = z.core.$ZodIssue;
@@ -38,7 +38,7 @@ function locate(doc: unknown, path: Path): { subject: string; elementId?: string
     const label = elementLabel(isObject(record) ? { ...record, kind: "scenario" } : { kind: "scenario" });
     return { subject: id ? label : `${label} (scenarios[${index}])`, elementId: id, fieldPath: rest };
   }
-  if (head === "layout" && typeof index === "string") return { subject: `Layout of ${index}`, elementId: index, fieldPath: rest };
+  if (head === "layout" && typeof index === "string") return { subject: `Layout of ${idText(index)}`, elementId: index, fieldPath: rest };
   if (head === "meta") return { subject: "Project settings (meta)", fieldPath: path.slice(1) };
   if (head === "study") return { subject: "Study settings (study)", fieldPath: path.slice(1) };
   if (head === "criteria") return { subject: "Criteria (criteria)", fieldPath: path.slice(1) };

@@ -2,6 +2,7 @@
 // the layout names elements. A project needs at least one scenario to be studied.
 import { errorMessage, warningMessage, type Message } from "../messages.ts";
 import { kindWord, type RuleContext } from "./ruleContext.ts";
+import { idText } from "../elementLabel.ts";
 
 export function scenarios(ctx: RuleContext): Message[] {
   const out: Message[] = [];
@@ -20,7 +21,7 @@ export function scenarios(ctx: RuleContext): Message[] {
     }
   }
   for (const key of Object.keys(ctx.project.layout)) {
-    if (!ctx.byId.has(key)) out.push(warningMessage(`Layout of ${key}: names no element in the project (a left-over position; it is kept but unused)`, key, `layout.${key}`));
+    if (!ctx.byId.has(key)) out.push(warningMessage(`Layout of ${idText(key)}: names no element in the project (a left-over position; it is kept but unused)`, key, `layout.${key}`));
   }
   return out;
 }

@@ -11,7 +11,7 @@ const demoText = readFileSync(new URL("../../../assets/demo/dairy-coop.islet", i
 const demo = JSON.parse(demoText) as { elements: Record<string, unknown>[] } & Record<string, unknown>;
 
 const SUBJECT =
-  /^(Project file|Project settings \(meta\)|Study settings \(study\)|Criteria \(criteria\)|Layout of \S+|Scenario \S+|Bus|Grid feeder|Transformer|Cable|Overhead line|Generator|Inverter|Motor|Load|Switch|Relay|Fuse|LV breaker|Element(?: of kind "[^"]*")?)[ :]/;
+  /^(Project file|Project settings \(meta\)|Study settings \(study\)|Criteria \(criteria\)|Layout of (?:\S+|"(?:[^"\\]|\\.)*")|Scenario (?:\S+|"(?:[^"\\]|\\.)*")|Bus|Grid feeder|Transformer|Cable|Overhead line|Generator|Inverter|Motor|Load|Switch|Relay|Fuse|LV breaker|Element(?: of kind "(?:[^"\\]|\\.)*")?)[ :]/;
 
 /** A message is helpful when it starts with what it is about and then says what is wrong. */
 function assertHelpful(r: LoadResult): void {

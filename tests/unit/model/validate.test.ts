@@ -277,3 +277,14 @@ describe("topology warnings", () => {
     expect(warnings(validateProject(doc))).toMatchObject([{ elementId: "OLD", field: "layout.OLD" }]);
   });
 });
+
+describe("ids in messages", () => {
+  it("are quoted when they hold spaces or quotes, so the message still reads unambiguously", () => {
+    const doc = smallDoc();
+    doc.elements.push({ kind: "load", id: "spare way 3", bus: "NOWHERE", p_kW: 1, q_kvar: 0 });
+    doc.layout = { 'old "B"': { x: 0, y: 0 } };
+    const texts = validateProject(doc).map((m) => m.text);
+    expect(texts).toContain('Load "spare way 3": bus "NOWHERE" names no element in the project (dangling reference)');
+    expect(texts).toContain('Layout of "old \\"B\\"": names no element in the project (a left-over position; it is kept but unused)');
+  });
+});

@@ -87,7 +87,7 @@ export function TccPane(props: TccPaneProps) {
   const { width, height } = useElementSize(boxRef);
   // Font size of the pane sets the scale of every fixed length (fluid root font size in the studio).
   const fontPx = boxRef.current ? parseFloat(getComputedStyle(boxRef.current).fontSize) || 12 : 12;
-  const layout = useMemo(() => plotLayout(Math.max(width, 320), Math.max(height, 240), fontPx / 12), [width, height, fontPx]);
+  const layout = useMemo(() => plotLayout(Math.max(width, 320), Math.max(height, 150), fontPx / 12), [width, height, fontPx]);
   const [pointer, setPointer] = useState<{ x: number; y: number } | null>(null);
   const [hoverIndex, setHoverIndex] = useState<number | null>(null);
   const [drag, setDrag] = useState<DragState | null>(null);
@@ -269,18 +269,26 @@ export function TccPane(props: TccPaneProps) {
   );
 }
 
-/** Whole decades from half the lowest pickup to three times the largest fault current (or, without
- * fault marks, the end of the longest curve): the region where settings are judged. */
+/** Whole decades from half the lowest curve start (or the lowest equipment current) up to three times
+ * the largest fault current, and at least ten times the highest curve start so every curve shows its
+ * knee; without fault marks, up to the end of the longest curve. Equipment never widens the range upwards. */
 function autoCurrentDomain(
   bands: readonly TccBand[],
   equipment: readonly TccEquipmentCurve[],
   marks: readonly TccFaultMark[],
   markers: readonly TccMarkerPoint[],
 ): [number, number] {
-  const lows = bands.map((b) => Math.min(b.nominal[0]?.[0] ?? Infinity, b.min[0]?.[0] ?? Infinity) * 0.5); // referred currents (pickup_A is device-side)
+  // referred currents only (a band's pickup_A is device-side)
+  const starts = bands.map((b) => Math.min(b.nominal[0]?.[0] ?? Infinity, b.min[0]?.[0] ?? Infinity)).filter(Number.isFinite);
+  const lows = [...starts.map((i) => i * 0.5), ...markers.map((m) => m.current_A)];
   for (const e of equipment) if (e.points.length > 0) lows.push(Math.min(...e.points.map((p) => p[0])) * 0.8);
-  const highs = marks.length > 0 ? marks.map((m) => m.current_A * 3) : bands.map((b) => b.max[b.max.length - 1]?.[0] ?? 0);
-  return decadeDomain([...lows, ...highs, ...markers.map((m) => m.current_A)], 2, [10, 10000]);
+  const highs = marks.length > 0 ? [...marks.map((m) => m.current_A * 3), ...starts.map((i) => i * 10)] : bands.map((b) => b.max[b.max.length - 1]?.[0] ?? 0);
+  highs.push(...markers.map((m) => m.current_A * 1.5));
+  const pos = (v: number[]) => v.filter((x) => Number.isFinite(x) && x > 0);
+  const lo = Math.min(...pos(lows));
+  const hi = Math.max(...pos(highs));
+  if (!Number.isFinite(lo) || !Number.isFinite(hi)) return [10, 10000];
+  return decadeDomain([lo, Math.max(hi, lo * 10)], 2, [10, 10000]);
 }
 
 function clampPx(v: number, lo: number, hi: number): number {
@@ -475,13 +483,18 @@ function Legend(p: StaticProps) {
     });
   }
   // Drawn in 12 px units and scaled by L.s as a whole, like the read-out box.
-  const rowHeight = (r: (typeof rows)[number]) => (r.setting ? 41 : 30);
+  // Full rows (name, function, setting); when they do not all fit, compact rows (name and setting);
+  // then one line per entry, and "+ n more" for what is left.
   const room = (L.bottom - L.top) / L.s - 40;
+  const fullHeight = (r: (typeof rows)[number]) => (r.setting ? 41 : 30);
+  const total = (h: (r: (typeof rows)[number]) => number) => rows.reduce((a, r) => a + h(r), 0);
+  const mode: "full" | "compact" | "line" = total(fullHeight) <= room ? "full" : rows.length * 30 <= room ? "compact" : "line";
+  const rowHeight = mode === "full" ? fullHeight : mode === "compact" ? () => 30 : () => 16;
   const shown: typeof rows = [];
   const rowY: number[] = [];
   let used = 0;
   for (const r of rows) {
-    if (used + rowHeight(r) > room) break;
+    if (used + rowHeight(r) > room + 12) break;
     rowY.push(30 + used);
     shown.push(r);
     used += rowHeight(r);
@@ -507,10 +520,12 @@ function Legend(p: StaticProps) {
           <text x={24} y={0} className="tcc-legend-title">
             {ellipsis(r.title, titleChars)}
           </text>
-          <text x={24} y={12} className="tcc-legend-detail">
-            {ellipsis(r.detail, maxChars)}
-          </text>
-          {r.setting ? (
+          {mode !== "line" ? (
+            <text x={24} y={12} className="tcc-legend-detail">
+              {ellipsis(mode === "compact" && r.setting ? r.setting : r.detail, maxChars)}
+            </text>
+          ) : null}
+          {r.setting && mode === "full" ? (
             <text x={24} y={23} className="tcc-legend-detail tcc-legend-setting">
               {ellipsis(r.setting, maxChars)}
             </text>

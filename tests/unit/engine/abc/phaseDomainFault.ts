@@ -31,6 +31,14 @@ export interface PhaseModelOptions {
   lineResistanceFactor?: number;
   /** Element kinds left out (IEC 60909: motors in minimum calculations). */
   omitKinds?: string[];
+  /**
+   * Solve by superposition with a flat prefault state instead of with source voltages: the sources become their
+   * impedances and the fault branches carry the prefault voltage across them (Thevenin / compensation theorem),
+   * every bus assumed at prefault_pu with its vector-group shift before the fault. This is the classic method's and
+   * IEC 60909's assumption (equivalent voltage source at the fault) and differs from the source solution only when
+   * transformer ratios are off nominal.
+   */
+  equivalentSource?: boolean;
 }
 
 export const DEFAULT_PHASE_OPTIONS: PhaseModelOptions = { gridSk: "max", gridC: 1, prefault_pu: 1, generatorSeqR: "RG" };
@@ -293,6 +301,10 @@ export function phaseDomainFault(project: Project, fault: PhaseFault, options: P
   // Source voltages follow their bus's shift so that the unfaulted network is at rest at prefault_pu everywhere.
   for (const s of stamps) {
     if (!s.j) continue;
+    if (o.equivalentSource) {
+      s.j = undefined;
+      continue;
+    }
     const bus = elements.find((e) => e.id === s.element && "bus" in e) as { bus: string };
     const rot = polar(1, shift.get(bus.bus) as number);
     const eRot = s.j.map((v) => multiply(v, rot) as Complex);
@@ -350,8 +362,17 @@ export function phaseDomainFault(project: Project, fault: PhaseFault, options: P
       if (q !== GROUND) { rhsRe[q] -= v.re; rhsIm[q] -= v.im; }
     });
   }
+  // Flat prefault voltage of every node (bus phases at prefault_pu with their shift; star and fault points at 0).
+  const vPre = new Array<Complex>(nNodes).fill(c(0));
+  if (o.equivalentSource) {
+    for (const [b, i0] of busIndex) for (let k = 0; k < 3; k++) vPre[i0 + k] = polar(o.prefault_pu, (shift.get(b) as number) - 120 * k);
+  }
+  const pre = (i: number) => (i === GROUND ? c(0) : vPre[i]);
   branches.forEach((b, k) => {
     const r = nNodes + k;
+    const dv = csub(pre(b.p), pre(b.q));
+    rhsRe[r] = -dv.re;
+    rhsIm[r] = -dv.im;
     if (b.p !== GROUND) { re[b.p][r] += 1; re[r][b.p] += 1; }
     if (b.q !== GROUND) { re[b.q][r] -= 1; re[r][b.q] -= 1; }
     re[r][r] -= b.z.re;
@@ -360,7 +381,7 @@ export function phaseDomainFault(project: Project, fault: PhaseFault, options: P
   const A = re.map((row, i) => Array.from(row, (x, j) => c(x, im[i][j])));
   const bVec = Array.from(rhsRe, (x, i) => c(x, rhsIm[i]));
   const x = (lusolve(A, bVec) as unknown as Complex[][]).map((r) => r[0]);
-  const V = (i: number) => (i === GROUND ? c(0) : x[i]);
+  const V = (i: number) => (i === GROUND ? c(0) : cadd(x[i], vPre[i]));
 
   // Results, rotated so that prefault phase a at the faulted bus is the angle reference.
   const rot = polar(1, -(shift.get(fBus) as number));
@@ -381,7 +402,9 @@ export function phaseDomainFault(project: Project, fault: PhaseFault, options: P
     m.set(nodeIx, cadd(m.get(nodeIx) ?? c(0), v));
   };
   for (const s of stamps) {
-    const vPort = s.ports.map(([p, q]) => csub(V(p), V(q)));
+    // Currents from the change of voltage only: with a flat prefault state there is no prefault current.
+    const dV = (i: number) => (i === GROUND ? c(0) : x[i]);
+    const vPort = s.ports.map(([p, q]) => csub(dV(p), dV(q)));
     s.ports.forEach(([p, q], i) => {
       let iPort = c(0);
       for (let j = 0; j < vPort.length; j++) iPort = cadd(iPort, cmul(s.y[i][j], vPort[j]));

@@ -9,6 +9,8 @@ import { splitLine } from "../network/splitLine.ts";
 import { solveLinearFault, type ComplexVec, type LinearFault } from "./solveLinearFault.ts";
 import { iecInjections } from "../inverter/iecInjections.ts";
 import { refinedIteration, type RefinedOutcome } from "../inverter/refinedIteration.ts";
+import { compactUnits, solveCompactFault, unitColumns, type CompactFaultInput } from "./compactFault.ts";
+import type { SeqView } from "./faultEquations.ts";
 import { allEndCurrents, type RawEnd } from "./endCurrents.ts";
 import { faultMagnitudes } from "./faultCurrentMagnitude.ts";
 import { seqToPhase, shiftSeq, toPhasor } from "./phasors.ts";
@@ -117,7 +119,25 @@ export function solveFault(network: CompiledNetwork, location: FaultLocation, ty
   if (hasInv) {
     sysR = hasGfm ? systems(model, cache, "refined") : sysI;
     zkR = hasGfm ? cols(sysR) : zkI;
-    refined = refinedIteration(units, n, vpre, (a, b) => solveLinearFault({ systems: sysR, k, type, zf, vpre, live, zk: zkR, inj: [null, a, b] }));
+    const full = (a: ComplexVec, b: ComplexVec) => solveLinearFault({ systems: sysR, k, type, zf, vpre, live, zk: zkR, inj: [null, a, b] });
+    if (!sysR[1].floating[sysR[1].comp[k]] && !sysR[2].floating[sysR[2].comp[k]]) {
+      // Iterate on the unit nodes only (cached columns of Z), then one full solution with the final injections.
+      const unitIdx = model.inverters.map((u, g) => (model.nodes[u.node].island === island ? g : -1)).filter((g) => g >= 0);
+      const colU = unitColumns(model, cache, hasGfm ? "refined" : "iec");
+      const zeroView: SeqView = sysR[0].floating[sysR[0].comp[k]] ? { floating: true, j: { re: 0, im: 0 } } : { floating: false, e: { re: 0, im: 0 }, z: { re: zkR[0].re[k], im: zkR[0].im[k] } };
+      const cin: CompactFaultInput = { model, unitIdx, colU, k, type, zf, c, zeroView, z1kk: { re: zkR[1].re[k], im: zkR[1].im[k] }, z2kk: { re: zkR[2].re[k], im: zkR[2].im[k] } };
+      const r = refinedIteration(compactUnits(model, unitIdx), unitIdx.length, new Float64Array(unitIdx.length).fill(c), (a, b) => solveCompactFault(cin, a, b));
+      const inj1 = { re: new Float64Array(n), im: new Float64Array(n) };
+      const inj2 = { re: new Float64Array(n), im: new Float64Array(n) };
+      unitIdx.forEach((g, l) => {
+        const node = model.inverters[g].node;
+        inj1.re[node] += r.inj[0].re[l];
+        inj1.im[node] += r.inj[0].im[l];
+        inj2.re[node] += r.inj[1].re[l];
+        inj2.im[node] += r.inj[1].im[l];
+      });
+      refined = { ...r, fault: full(inj1, inj2), inj: [inj1, inj2] };
+    } else refined = refinedIteration(units, n, vpre, full);
   }
   const used = hasInv ? (options.inverterModel ?? opts.inverterModel) : "iec";
   const fault: LinearFault = used === "refined" && refined ? refined.fault : iecFault;

@@ -6,12 +6,13 @@
 // Buses where a sequence network floats (islands of current sources only) are solved one by one (overrides).
 import type { CompiledNetwork, EngineMessage, FaultType, SweepOptions, SweepResult } from "../types.ts";
 import { FAULT_TYPES } from "../types.ts";
-import type { Cx, InverterUnit } from "../network/model.ts";
-import { sequenceSystem, zColumn, type SequenceSystem } from "../network/sequenceSystem.ts";
+import type { Cx } from "../network/model.ts";
+import { sequenceSystem, type SequenceSystem } from "../network/sequenceSystem.ts";
+import { compactUnits, solveCompactFault, unitColumns, type CompactFaultInput } from "./compactFault.ts";
 import { solveLdlt } from "../sparse/ldlt.ts";
 import { inverseSubset, type InverseSubset } from "../sparse/takahashi.ts";
 import { deviceCombination } from "./deviceCombination.ts";
-import { faultEquations, type SeqView } from "./faultEquations.ts";
+import type { SeqView } from "./faultEquations.ts";
 import { faultMagnitudes } from "./faultCurrentMagnitude.ts";
 import { refinedIteration } from "../inverter/refinedIteration.ts";
 import { voltageFactor, peakFactor } from "../iec60909/factors.ts";
@@ -89,8 +90,7 @@ export function sweepFaults(network: CompiledNetwork, options: SweepOptions = {}
     }
   }
   // Columns of Z at the inverter nodes (positive and negative sequence).
-  const colU: ComplexVec[][] = [[], [], []];
-  for (const s of [1, 2]) for (const u of model.inverters) colU[s].push(zColumn(sys[s], u.node));
+  const colU = unitColumns(model, cache, sysVariant);
 
   const ikss_kA = new Float64Array(B * T);
   const maxPhase_kA = new Float64Array(B * T);
@@ -131,51 +131,9 @@ export function sweepFaults(network: CompiledNetwork, options: SweepOptions = {}
       if (model.nodes[u.node].island === node.island) unitIdx.push(j);
     });
     const Jl = unitIdx.length;
-    // Compact fault solution with injections at the island's units (arrays of length Jl).
-    const solveCompact = (type: FaultType, inj1: ComplexVec, inj2: ComplexVec): LinearFault => {
-      let e1r = c;
-      let e1i = 0;
-      let e2r = 0;
-      let e2i = 0;
-      for (let l = 0; l < Jl; l++) {
-        const g = unitIdx[l];
-        const a = colU[1][g];
-        const z2 = colU[2][g];
-        e1r += a.re[k] * inj1.re[l] - a.im[k] * inj1.im[l];
-        e1i += a.re[k] * inj1.im[l] + a.im[k] * inj1.re[l];
-        e2r += z2.re[k] * inj2.re[l] - z2.im[k] * inj2.im[l];
-        e2i += z2.re[k] * inj2.im[l] + z2.im[k] * inj2.re[l];
-      }
-      const fp = faultEquations(type, [zeroView, { floating: false, e: { re: e1r, im: e1i }, z: zkk[1] }, { floating: false, e: { re: e2r, im: e2i }, z: zkk[2] }], zf);
-      const v1 = { re: new Float64Array(Jl), im: new Float64Array(Jl) };
-      const v2 = { re: new Float64Array(Jl), im: new Float64Array(Jl) };
-      for (let u = 0; u < Jl; u++) {
-        const nu = model.inverters[unitIdx[u]].node;
-        let ar = c;
-        let ai = 0;
-        let br = 0;
-        let bi = 0;
-        for (let l = 0; l < Jl; l++) {
-          const a = colU[1][unitIdx[l]];
-          const z2 = colU[2][unitIdx[l]];
-          ar += a.re[nu] * inj1.re[l] - a.im[nu] * inj1.im[l];
-          ai += a.re[nu] * inj1.im[l] + a.im[nu] * inj1.re[l];
-          br += z2.re[nu] * inj2.re[l] - z2.im[nu] * inj2.im[l];
-          bi += z2.re[nu] * inj2.im[l] + z2.im[nu] * inj2.re[l];
-        }
-        const g = unitIdx[u];
-        const zu1 = { re: colU[1][g].re[k], im: colU[1][g].im[k] };
-        const zu2 = { re: colU[2][g].re[k], im: colU[2][g].im[k] };
-        const [, i1, i2] = fp.i;
-        v1.re[u] = ar - (zu1.re * i1.re - zu1.im * i1.im);
-        v1.im[u] = ai - (zu1.re * i1.im + zu1.im * i1.re);
-        v2.re[u] = br - (zu2.re * i2.re - zu2.im * i2.im);
-        v2.im[u] = bi - (zu2.re * i2.im + zu2.im * i2.re);
-      }
-      const z0 = { re: new Float64Array(Jl), im: new Float64Array(Jl) };
-      return { v: [z0, v1, v2], i: fp.i, consistent: fp.consistent, zkk: [null, zkk[1], zkk[2]] };
-    };
-    const compactUnits: InverterUnit[] = unitIdx.map((g, j) => ({ ...model.inverters[g], node: j }));
+    const cin: CompactFaultInput = { model, unitIdx, colU, k, type: "3ph", zf, c, zeroView, z1kk: zkk[1], z2kk: zkk[2] };
+    const solveCompact = (type: FaultType, a: ComplexVec, bb: ComplexVec): LinearFault => solveCompactFault({ ...cin, type }, a, bb);
+    const cUnits = compactUnits(model, unitIdx);
     const vpreC = new Float64Array(Jl).fill(c);
     let ik3 = -1;
     for (let t = 0; t < T; t++) {
@@ -193,7 +151,7 @@ export function sweepFaults(network: CompiledNetwork, options: SweepOptions = {}
         });
         fp = solveCompact(type, inj1, inj2);
       } else {
-        const r = refinedIteration(compactUnits, Jl, vpreC, (a, bb) => solveCompact(type, a, bb));
+        const r = refinedIteration(cUnits, Jl, vpreC, (a, bb) => solveCompact(type, a, bb));
         fp = r.fault;
         // Per-unit injections (grid-forming: the limiting correction; the shunt part is in the transfer).
         [inj1, inj2] = r.inj;

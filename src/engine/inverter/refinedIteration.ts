@@ -1,19 +1,24 @@
 // Islet's refined inverter model: each unit's fault current follows its terminal voltage.
 //  grid-following: reactive support Iq = kFactor (1 - |V1|) Ir plus the prefault active current P Ir, reactive
-//    first, limited to iMax Ir, in phase with the terminal positive-sequence voltage (the reactive part lags it by
-//    90 degrees); optional negative sequence k2 |V2| Ir (leading V2 by 90 degrees, as an inductive negative-sequence
-//    impedance would draw) within what the limit leaves.
+//    first, limited to iMax Ir, in phase with the positive-sequence voltage the unit's phase-locked loop follows (the
+//    reactive part lags it by 90 degrees); optional negative sequence k2 |V2| Ir, leading V2 by 90 degrees as an
+//    inductive negative-sequence impedance would draw, within what the limit leaves.
+//    The angle reference is the unit's terminal voltage with every converter's injection removed (the part the
+//    voltage sources and the fault make): where converters alone hold up a collapsed voltage, the terminal angle
+//    is made by their own currents, has no fixed point and rotates from one iteration to the next. Where the grid
+//    dominates, the two angles agree. At a dead terminal (no source voltage at all) the prefault angle is used.
 //  grid-forming: a voltage source (the prefault voltage) behind zForming, stamped in the refined networks; when its
 //    current exceeds iMax Ir an extra injection holds it at the limit, at the angle of the unlimited current.
-// Solved by a damped fixed-point iteration on the injections; the report says whether it converged.
+// The network response is affine in the injections, so it is sampled once (2J + 1 solutions for J units) and the
+// damped fixed-point iteration runs on that small map; the damping halves whenever the residual grows.
 import type { InverterUnit } from "../network/model.ts";
 import type { ComplexVec, LinearFault } from "../fault/solveLinearFault.ts";
 import type { InverterUnitResult } from "../types.ts";
-import { abs, div, mul, sub } from "../complex.ts";
 
-export const DAMPING = 0.5;
-export const MAX_ITERATIONS = 400;
+export const MAX_ITERATIONS = 2000;
 export const TOLERANCE_PU = 1e-11;
+
+type C = { re: number; im: number };
 
 export interface RefinedOutcome {
   fault: LinearFault;
@@ -23,103 +28,158 @@ export interface RefinedOutcome {
   converged: boolean;
   units: InverterUnitResult[];
   /** Total current out of each unit into its bus (positive, negative), node pu. */
-  out: { i1: { re: number; im: number }; i2: { re: number; im: number } }[];
+  out: { i1: C; i2: C }[];
 }
 
+const cm = (a: C, b: C): C => ({ re: a.re * b.re - a.im * b.im, im: a.re * b.im + a.im * b.re });
+const cabs = (a: C) => Math.hypot(a.re, a.im);
+
 interface Target {
-  x1: { re: number; im: number }[];
-  x2: { re: number; im: number }[];
-  out: RefinedOutcome["out"];
+  x1: C[];
+  x2: C[];
+  out: { i1: C; i2: C }[];
   limited: boolean[];
 }
 
-function targets(units: InverterUnit[], f: LinearFault, vpre: Float64Array): Target {
-  const x1: Target["x1"] = [];
-  const x2: Target["x2"] = [];
-  const out: Target["out"] = [];
-  const limited: boolean[] = [];
-  for (const u of units) {
-    const v1 = { re: f.v[1].re[u.node], im: f.v[1].im[u.node] };
-    const v2 = { re: f.v[2].re[u.node], im: f.v[2].im[u.node] };
+function targets(units: InverterUnit[], v1s: C[], v2s: C[], vext: C[], vpre: Float64Array): Target {
+  const t: Target = { x1: [], x2: [], out: [], limited: [] };
+  units.forEach((u, j) => {
+    const v1 = v1s[j];
+    const v2 = v2s[j];
     const lim = u.iMax_pu * u.ir_pu;
     if (u.control === "grid-forming") {
-      const iu = div(sub({ re: vpre[u.node], im: 0 }, v1), u.zForming);
-      const m = abs(iu);
+      const d = { re: vpre[u.node] - v1.re, im: -v1.im };
+      const z2 = u.zForming.re ** 2 + u.zForming.im ** 2;
+      const iu = { re: (d.re * u.zForming.re + d.im * u.zForming.im) / z2, im: (d.im * u.zForming.re - d.re * u.zForming.im) / z2 };
+      const m = cabs(iu);
       const over = m > lim;
       const target = over ? { re: (iu.re * lim) / m, im: (iu.im * lim) / m } : iu;
-      x1.push(sub(target, iu));
-      x2.push({ re: 0, im: 0 });
-      const i2 = div({ re: -v2.re, im: -v2.im }, u.zForming);
-      out.push({ i1: target, i2 });
-      limited.push(over);
-      continue;
+      t.x1.push({ re: target.re - iu.re, im: target.im - iu.im });
+      t.x2.push({ re: 0, im: 0 });
+      const i2 = { re: -(v2.re * u.zForming.re + v2.im * u.zForming.im) / z2, im: -(v2.im * u.zForming.re - v2.re * u.zForming.im) / z2 };
+      t.out.push({ i1: target, i2 });
+      t.limited.push(over);
+      return;
     }
-    const vm = abs(v1) * u.vScale;
+    const vm = cabs(v1) * u.vScale;
     const dip = Math.max(0, 1 - vm);
     const iq = Math.min(u.kFactor * dip, u.iMax_pu);
     const pmax = Math.sqrt(Math.max(0, u.iMax_pu * u.iMax_pu - iq * iq));
     const ip = Math.max(-pmax, Math.min(pmax, u.activePower_pu));
-    const ang = vm > 1e-9 ? Math.atan2(v1.im, v1.re) : 0;
-    const rot = { re: Math.cos(ang), im: Math.sin(ang) };
-    const i1 = mul({ re: ip * u.ir_pu, im: -iq * u.ir_pu }, rot);
+    const ref = cabs(vext[j]) > 1e-9 ? vext[j] : { re: 1, im: 0 };
+    const rm = cabs(ref);
+    const i1 = cm({ re: ip * u.ir_pu, im: -iq * u.ir_pu }, { re: ref.re / rm, im: ref.im / rm });
     let i2 = { re: 0, im: 0 };
     if (u.negSeq === "k-factor") {
-      const v2m = abs(v2) * u.vScale;
+      const v2m = cabs(v2) * u.vScale;
       const room = Math.max(0, u.iMax_pu - Math.hypot(ip, iq));
       const m2 = Math.min(u.k2 * v2m, room);
-      if (v2m > 1e-12) i2 = mul({ re: 0, im: (m2 * u.ir_pu) / abs(v2) }, v2);
+      if (v2m > 1e-12) i2 = cm({ re: 0, im: (m2 * u.ir_pu) / cabs(v2) }, v2);
     }
-    x1.push(i1);
-    x2.push(i2);
-    out.push({ i1, i2 });
-    limited.push(Math.hypot(ip, iq) + abs(i2) / u.ir_pu >= u.iMax_pu * (1 - 1e-9));
-  }
-  return { x1, x2, out, limited };
+    t.x1.push(i1);
+    t.x2.push(i2);
+    t.out.push({ i1, i2 });
+    t.limited.push(Math.hypot(ip, iq) + cabs(i2) / u.ir_pu >= u.iMax_pu * (1 - 1e-9));
+  });
+  return t;
 }
 
 export function refinedIteration(units: InverterUnit[], n: number, vpre: Float64Array, solve: (inj1: ComplexVec, inj2: ComplexVec) => LinearFault): RefinedOutcome {
   const J = units.length;
-  let x1 = Array.from({ length: J }, () => ({ re: 0, im: 0 }));
-  let x2 = Array.from({ length: J }, () => ({ re: 0, im: 0 }));
-  const build = () => {
-    const a = { re: new Float64Array(n), im: new Float64Array(n) };
-    const b = { re: new Float64Array(n), im: new Float64Array(n) };
-    units.forEach((u, j) => {
-      a.re[u.node] += x1[j].re;
-      a.im[u.node] += x1[j].im;
-      b.re[u.node] += x2[j].re;
-      b.im[u.node] += x2[j].im;
-    });
-    return [a, b] as [ComplexVec, ComplexVec];
+  const vec = () => ({ re: new Float64Array(n), im: new Float64Array(n) });
+  const at = (f: LinearFault, s: 1 | 2, u: InverterUnit): C => ({ re: f.v[s].re[u.node], im: f.v[s].im[u.node] });
+  // Sample the affine response V = a + M x at the unit nodes.
+  const base = solve(vec(), vec());
+  const a1 = units.map((u) => at(base, 1, u));
+  const a2 = units.map((u) => at(base, 2, u));
+  const m1: C[][] = [];
+  const m2: C[][] = [];
+  for (let q = 0; q < 2 * J; q++) {
+    const i1 = vec();
+    const i2 = vec();
+    const u = units[q % J];
+    (q < J ? i1 : i2).re[u.node] = 1;
+    const f = solve(i1, i2);
+    m1.push(units.map((w, j) => ({ re: f.v[1].re[w.node] - a1[j].re, im: f.v[1].im[w.node] - a1[j].im })));
+    m2.push(units.map((w, j) => ({ re: f.v[2].re[w.node] - a2[j].re, im: f.v[2].im[w.node] - a2[j].im })));
+  }
+  // Flattened response matrices: [q * J + j] for injection q (0..2J-1) and unit j.
+  const M1r = new Float64Array(2 * J * J);
+  const M1i = new Float64Array(2 * J * J);
+  const M2r = new Float64Array(2 * J * J);
+  const M2i = new Float64Array(2 * J * J);
+  for (let q = 0; q < 2 * J; q++) {
+    for (let j = 0; j < J; j++) {
+      M1r[q * J + j] = m1[q][j].re;
+      M1i[q * J + j] = m1[q][j].im;
+      M2r[q * J + j] = m2[q][j].re;
+      M2i[q * J + j] = m2[q][j].im;
+    }
+  }
+  const evalV = (x1: C[], x2: C[]) => {
+    const v1 = a1.map((a) => ({ ...a }));
+    const v2 = a2.map((a) => ({ ...a }));
+    for (let q = 0; q < 2 * J; q++) {
+      const x = q < J ? x1[q] : x2[q - J];
+      const xr = x.re;
+      const xi = x.im;
+      if (xr === 0 && xi === 0) continue;
+      const o = q * J;
+      for (let j = 0; j < J; j++) {
+        const a = M1r[o + j];
+        const b = M1i[o + j];
+        const c = M2r[o + j];
+        const d = M2i[o + j];
+        v1[j].re += a * xr - b * xi;
+        v1[j].im += a * xi + b * xr;
+        v2[j].re += c * xr - d * xi;
+        v2[j].im += c * xi + d * xr;
+      }
+    }
+    return { v1, v2, vext: a1 };
   };
-  // Start from the prefault state: every unit at its prefault active current.
-  let inj = build();
-  let f = solve(inj[0], inj[1]);
-  let t = targets(units, f, vpre);
+  let x1: C[] = units.map(() => ({ re: 0, im: 0 }));
+  let x2: C[] = units.map(() => ({ re: 0, im: 0 }));
+  let e = evalV(x1, x2);
+  let t = targets(units, e.v1, e.v2, e.vext, vpre);
   x1 = t.x1;
   x2 = t.x2;
+  let alpha = 0.5;
   let residual = Infinity;
+  let previous = Infinity;
   let it = 0;
   for (; it < MAX_ITERATIONS; it++) {
-    inj = build();
-    f = solve(inj[0], inj[1]);
-    t = targets(units, f, vpre);
+    e = evalV(x1, x2);
+    t = targets(units, e.v1, e.v2, e.vext, vpre);
     residual = 0;
     for (let j = 0; j < J; j++) {
-      residual = Math.max(residual, abs(sub(t.x1[j], x1[j])) / units[j].ir_pu, abs(sub(t.x2[j], x2[j])) / units[j].ir_pu);
+      const r1 = Math.hypot(t.x1[j].re - x1[j].re, t.x1[j].im - x1[j].im);
+      const r2 = Math.hypot(t.x2[j].re - x2[j].re, t.x2[j].im - x2[j].im);
+      residual = Math.max(residual, r1 / units[j].ir_pu, r2 / units[j].ir_pu);
     }
     if (residual < TOLERANCE_PU) break;
-    x1 = x1.map((x, j) => ({ re: x.re + DAMPING * (t.x1[j].re - x.re), im: x.im + DAMPING * (t.x1[j].im - x.im) }));
-    x2 = x2.map((x, j) => ({ re: x.re + DAMPING * (t.x2[j].re - x.re), im: x.im + DAMPING * (t.x2[j].im - x.im) }));
+    if (residual > previous) alpha = Math.max(0.01, alpha / 2);
+    previous = residual;
+    x1 = x1.map((x, j) => ({ re: x.re + alpha * (t.x1[j].re - x.re), im: x.im + alpha * (t.x1[j].im - x.im) }));
+    x2 = x2.map((x, j) => ({ re: x.re + alpha * (t.x2[j].re - x.re), im: x.im + alpha * (t.x2[j].im - x.im) }));
   }
   const converged = residual < TOLERANCE_PU;
+  const inj1 = vec();
+  const inj2 = vec();
+  units.forEach((u, j) => {
+    inj1.re[u.node] += x1[j].re;
+    inj1.im[u.node] += x1[j].im;
+    inj2.re[u.node] += x2[j].re;
+    inj2.im[u.node] += x2[j].im;
+  });
+  const fault = solve(inj1, inj2);
   const unitsOut: InverterUnitResult[] = units.map((u, j) => ({
     element: u.element,
     control: u.control,
-    i1_pu: abs(t.out[j].i1) / u.ir_pu,
-    i2_pu: abs(t.out[j].i2) / u.ir_pu,
-    v1_pu: Math.hypot(f.v[1].re[u.node], f.v[1].im[u.node]) * u.vScale,
+    i1_pu: cabs(t.out[j].i1) / u.ir_pu,
+    i2_pu: cabs(t.out[j].i2) / u.ir_pu,
+    v1_pu: cabs(e.v1[j]) * u.vScale,
     limited: t.limited[j],
   }));
-  return { fault: f, inj, iterations: it + 1, residual_pu: residual, converged, units: unitsOut, out: t.out };
+  return { fault, inj: [inj1, inj2], iterations: it + 1, residual_pu: residual, converged, units: unitsOut, out: t.out };
 }

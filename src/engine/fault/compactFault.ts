@@ -1,0 +1,90 @@
+// A fault seen only at the fault node and at the inverter units' nodes: enough for the inverter iteration once the
+// columns of Z at the unit nodes are known (reciprocity gives Z[k, u] = Z[u, k]). Requires the fault node's positive
+// and negative-sequence parts not to float; its zero-sequence part may (then no zero-sequence current flows).
+import type { Cx, InverterUnit, Model } from "../network/model.ts";
+import type { FaultType } from "../types.ts";
+import { faultEquations, type SeqView } from "./faultEquations.ts";
+import type { ComplexVec, LinearFault } from "./solveLinearFault.ts";
+import { sequenceSystem, zColumn, type Variant } from "../network/sequenceSystem.ts";
+import type { EngineCache } from "../network/engineCache.ts";
+
+/** Columns of Z' (positive [1], negative [2]) at every inverter unit's node, cached per variant. */
+export function unitColumns(model: Model, cache: EngineCache, variant: Variant): ComplexVec[][] {
+  const key = `units:${variant}`;
+  const hit = cache.unitColumns.get(key);
+  if (hit) return hit;
+  const cols: ComplexVec[][] = [[], [], []];
+  for (const s of [1, 2] as const) {
+    const sys = sequenceSystem(model, cache, s, variant);
+    for (const u of model.inverters) cols[s].push(zColumn(sys, u.node));
+  }
+  cache.unitColumns.set(key, cols);
+  return cols;
+}
+
+export interface CompactFaultInput {
+  model: Model;
+  /** Global indices (into model.inverters) of the units taking part. */
+  unitIdx: number[];
+  colU: ComplexVec[][];
+  k: number;
+  type: FaultType;
+  zf: Cx;
+  c: number;
+  zeroView: SeqView;
+  z1kk: Cx;
+  z2kk: Cx;
+}
+
+/** Units renumbered 0..J-1 (their `node` is the compact index) for the iteration. */
+export function compactUnits(model: Model, unitIdx: number[]): InverterUnit[] {
+  return unitIdx.map((g, j) => ({ ...model.inverters[g], node: j }));
+}
+
+/** Solution at the compact nodes for injections inj1/inj2 indexed by compact unit. */
+export function solveCompactFault(p: CompactFaultInput, inj1: ComplexVec, inj2: ComplexVec): LinearFault {
+  const { colU, k, unitIdx, c } = p;
+  const Jl = unitIdx.length;
+  let e1r = c;
+  let e1i = 0;
+  let e2r = 0;
+  let e2i = 0;
+  for (let l = 0; l < Jl; l++) {
+    const a = colU[1][unitIdx[l]];
+    const z2 = colU[2][unitIdx[l]];
+    e1r += a.re[k] * inj1.re[l] - a.im[k] * inj1.im[l];
+    e1i += a.re[k] * inj1.im[l] + a.im[k] * inj1.re[l];
+    e2r += z2.re[k] * inj2.re[l] - z2.im[k] * inj2.im[l];
+    e2i += z2.re[k] * inj2.im[l] + z2.im[k] * inj2.re[l];
+  }
+  const fp = faultEquations(p.type, [p.zeroView, { floating: false, e: { re: e1r, im: e1i }, z: p.z1kk }, { floating: false, e: { re: e2r, im: e2i }, z: p.z2kk }], p.zf);
+  const v1 = { re: new Float64Array(Jl), im: new Float64Array(Jl) };
+  const v2 = { re: new Float64Array(Jl), im: new Float64Array(Jl) };
+  const [, i1, i2] = fp.i;
+  for (let u = 0; u < Jl; u++) {
+    const nu = p.model.inverters[unitIdx[u]].node;
+    let ar = c;
+    let ai = 0;
+    let br = 0;
+    let bi = 0;
+    for (let l = 0; l < Jl; l++) {
+      const a = colU[1][unitIdx[l]];
+      const z2 = colU[2][unitIdx[l]];
+      ar += a.re[nu] * inj1.re[l] - a.im[nu] * inj1.im[l];
+      ai += a.re[nu] * inj1.im[l] + a.im[nu] * inj1.re[l];
+      br += z2.re[nu] * inj2.re[l] - z2.im[nu] * inj2.im[l];
+      bi += z2.re[nu] * inj2.im[l] + z2.im[nu] * inj2.re[l];
+    }
+    const g = unitIdx[u];
+    const zu1r = colU[1][g].re[k];
+    const zu1i = colU[1][g].im[k];
+    const zu2r = colU[2][g].re[k];
+    const zu2i = colU[2][g].im[k];
+    v1.re[u] = ar - (zu1r * i1.re - zu1i * i1.im);
+    v1.im[u] = ai - (zu1r * i1.im + zu1i * i1.re);
+    v2.re[u] = br - (zu2r * i2.re - zu2i * i2.im);
+    v2.im[u] = bi - (zu2r * i2.im + zu2i * i2.re);
+  }
+  const z0 = { re: new Float64Array(Jl), im: new Float64Array(Jl) };
+  return { v: [z0, v1, v2], i: fp.i, consistent: fp.consistent, zkk: [null, p.z1kk, p.z2kk] };
+}

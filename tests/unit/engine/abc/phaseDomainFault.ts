@@ -44,8 +44,12 @@ export interface PhaseModelOptions {
 export const DEFAULT_PHASE_OPTIONS: PhaseModelOptions = { gridSk: "max", gridC: 1, prefault_pu: 1, generatorSeqR: "RG" };
 
 export interface PhaseFault {
+  /** The faulted bus; with type "none", the bus whose prefault phase a is the angle reference. */
   bus: string;
-  type: PhaseFaultType;
+  /** "none": no fault, only the injections (for transfer impedances). */
+  type: PhaseFaultType | "none";
+  /** Currents injected into buses, pu of the bus base, positive sequence as [a, b, c] in the bus's own frame. */
+  injections?: Array<{ bus: string; phase_pu: Complex[] }>;
   /** Fault impedance in ohm: per faulted phase for 3ph (to a common point), between b and c for LL, a to earth for LG,
    * the common point of b and c to earth for LLG. */
   zf_ohm?: { re: number; im: number };
@@ -328,7 +332,7 @@ export function phaseDomainFault(project: Project, fault: PhaseFault, options: P
     addFault(0, node(fBus, 0), GROUND, zf);
   } else if (fault.type === "LL") {
     addFault(1, node(fBus, 1), node(fBus, 2), zf);
-  } else {
+  } else if (fault.type === "LLG") {
     const f = newNode();
     addFault(1, node(fBus, 1), f, c(0));
     addFault(2, node(fBus, 2), f, c(0));
@@ -368,6 +372,14 @@ export function phaseDomainFault(project: Project, fault: PhaseFault, options: P
     for (const [b, i0] of busIndex) for (let k = 0; k < 3; k++) vPre[i0 + k] = polar(o.prefault_pu, (shift.get(b) as number) - 120 * k);
   }
   const pre = (i: number) => (i === GROUND ? c(0) : vPre[i]);
+  for (const inj of fault.injections ?? []) {
+    const rot = polar(1, shift.get(inj.bus) as number);
+    inj.phase_pu.forEach((v, k) => {
+      const vr = cmul(v, rot);
+      rhsRe[node(inj.bus, k)] += vr.re;
+      rhsIm[node(inj.bus, k)] += vr.im;
+    });
+  }
   branches.forEach((b, k) => {
     const r = nNodes + k;
     const dv = csub(pre(b.p), pre(b.q));

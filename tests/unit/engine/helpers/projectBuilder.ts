@@ -15,3 +15,14 @@ export function buildProject(elements: RawElement[], study: Record<string, unkno
 }
 
 export const bus = (id: string, un_kV: number): RawElement => ({ kind: "bus", id, name: id, un_kV });
+
+import type { Phasor } from "../../../../src/engine/index.ts";
+export const toRect = (p: Phasor) => ({ re: p.mag * Math.cos((p.ang_deg * Math.PI) / 180), im: p.mag * Math.sin((p.ang_deg * Math.PI) / 180) });
+
+/** Wraps an angle difference into (-180, 180]. */
+export function wrapDeg(a: number): number {
+  let x = a % 360;
+  if (x <= -180) x += 360;
+  if (x > 180) x -= 360;
+  return x;
+}

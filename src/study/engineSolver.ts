@@ -157,7 +157,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   const sweepBusIndex = new WeakMap<SweepResult, Map<string, number>>();
   /** One sweep of every energised bus and every fault type per network variant and limit. */
   const sweeps = new Map<string, SweepResult | null>();
-  const sweepOf = (key: string, net: CompiledNetwork, variant: Project, scenarioId: string): SweepResult | null => {
+  const sweepOf = (key: string, net: CompiledNetwork, variant: Project, scenarioId: string, buses?: string[]): SweepResult | null => {
     if (sweeps.has(key)) return sweeps.get(key)!;
     let sweep: SweepResult | null = null;
     if (!sweepBroken) {
@@ -167,7 +167,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
           const [element, end] = locKey.get(d.id)!.split("|");
           return { element, end: end as OpenEnd["end"] };
         });
-        sweep = sweepFaults(net, { types: [...FAULT_TYPES], devices: locs });
+        sweep = sweepFaults(net, buses ? { types: [...FAULT_TYPES], devices: locs, buses } : { types: [...FAULT_TYPES], devices: locs });
         sweepDeviceIndex.set(sweep, new Map(sweep.devices.map((d, i) => [`${d.element}|${d.end}`, i] as const)));
         sweepBusIndex.set(sweep, new Map(sweep.busIds.map((b, i) => [b, i] as const)));
       } catch {
@@ -186,7 +186,10 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     const net = c.network;
     const where = locations.map((l) => split.locate(l));
     const buses = [...new Set(where.filter((l) => l.kind === "bus").map((l) => (l as { bus: string }).bus))];
-    const sweep = buses.length > singleLimit ? sweepOf(`${v.key}#${limit}`, net, v.project, v.scenarioId) : null;
+    // the scenario itself: one sweep of every bus; a variant (an infeed switched out): only the buses asked for
+    const isBase = v.project === base;
+    const sweepKey = isBase ? `${v.key}#${limit}` : `${v.key}#${limit}#${[...buses].sort().join(",")}`;
+    const sweep = buses.length > singleLimit ? sweepOf(sweepKey, net, v.project, v.scenarioId, isBase ? undefined : buses) : null;
     const first = sweep && !sweepsReported.has(sweep);
     if (sweep) sweepsReported.add(sweep);
     const out = where.map((loc) => (sweep && loc.kind === "bus" ? fromSweep(net, sweep, loc.bus, type) : solveSingle(net, v.project, loc, type)));

@@ -11,14 +11,26 @@ export interface PickupRatio {
 }
 
 export function pickupRatio(r: Pick<DeviceResponse, "iPhase_A" | "iResidual_A" | "iNegative_A">, p: DevicePickups): PickupRatio {
-  let best: PickupRatio = { ratio: 0, quantity: null, current_A: r.iPhase_A, pickup_A: p.phase_A ?? NaN };
-  const consider = (quantity: PickupRatio["quantity"], current_A: number, pickup_A: number | null) => {
-    if (pickup_A === null || !(pickup_A > 0)) return;
-    const ratio = current_A / pickup_A;
-    if (ratio > best.ratio || best.quantity === null) best = { ratio, quantity, current_A, pickup_A };
-  };
-  consider("phase", r.iPhase_A, p.phase_A);
-  consider("residual", r.iResidual_A, p.residual_A);
-  consider("negative", r.iNegative_A, p.negative_A);
-  return best;
+  // written out without closures: this runs for every device in every fault case
+  let ratio = 0;
+  let quantity: PickupRatio["quantity"] = null;
+  let current_A = r.iPhase_A;
+  let pickup_A = p.phase_A ?? NaN;
+  if (p.phase_A !== null && p.phase_A > 0) {
+    ratio = r.iPhase_A / p.phase_A;
+    quantity = "phase";
+  }
+  if (p.residual_A !== null && p.residual_A > 0 && (quantity === null || r.iResidual_A / p.residual_A > ratio)) {
+    ratio = r.iResidual_A / p.residual_A;
+    quantity = "residual";
+    current_A = r.iResidual_A;
+    pickup_A = p.residual_A;
+  }
+  if (p.negative_A !== null && p.negative_A > 0 && (quantity === null || r.iNegative_A / p.negative_A > ratio)) {
+    ratio = r.iNegative_A / p.negative_A;
+    quantity = "negative";
+    current_A = r.iNegative_A;
+    pickup_A = p.negative_A;
+  }
+  return { ratio, quantity, current_A, pickup_A };
 }

@@ -9,7 +9,7 @@ import { deviceSides } from "./deviceSides.ts";
 import { caseId, caseLabel, faultLocations, locationKey } from "./faultCases.ts";
 import { studyMatrix } from "./matrix.ts";
 import { scenarioNetwork, type ScenarioNetwork } from "./scenarioNetwork.ts";
-import { findSourcePaths, type SourcePath } from "./sourcePaths.ts";
+import { findSourcePaths, sourceTrees, type SourcePath } from "./sourcePaths.ts";
 import type { FaultSnapshot, StudySolver } from "./studySolver.ts";
 import { clearingTimeline } from "./timeline.ts";
 import {
@@ -71,8 +71,12 @@ export function analyseCase(
   model: DeviceModel,
   withstand: WithstandFn = withstand_s,
 ): { work: CaseWork; verdicts: Verdict[] } {
+  // responses of the devices that see current, and of every device on a source path (zero when it sees none)
   const responses = new Map<string, DeviceResponse>();
-  for (const id of net.deviceEdge.keys()) responses.set(id, deviceResponse(net.devices.get(id)!, snapshot.readings[id], model));
+  for (const id in snapshot.readings) if (net.deviceEdge.has(id)) responses.set(id, deviceResponse(net.devices.get(id)!, snapshot.readings[id], model));
+  for (const p of paths)
+    for (const step of p.steps)
+      for (const id of net.edges[step.edge].devices) if (!responses.has(id)) responses.set(id, deviceResponse(net.devices.get(id)!, undefined, model));
   const { chains, sympatheticCandidates } = buildChains(fc.id, net, paths, responses, sides);
   for (const path of chains.paths)
     for (const l of path.links) {
@@ -166,7 +170,8 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
     const sides = deviceSides(net);
     const infeeds = infeedsByBus(net);
     const pathsByLoc = new Map<string, SourcePath[]>();
-    for (const loc of locations) pathsByLoc.set(locationKey(loc), findSourcePaths(net, loc));
+    const trees = sourceTrees(net);
+    for (const loc of locations) pathsByLoc.set(locationKey(loc), findSourcePaths(net, loc, trees));
     const sensLimit: FaultLimit = limits.includes("min") ? "min" : "max";
     const zone = new ZoneMinimum(net.devices, model);
     const works: CaseWork[] = [];
@@ -211,27 +216,32 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
     }
     hooks.onProgress?.(done, total, "verdicts");
 
-    // blinding: re-solve the affected locations with each infeed switched out
-    const byInfeedType = new Map<string, { infeed: string; type: FaultType; items: { work: CaseWork; pair: BlindingPair; locIndex: number }[] }>();
+    // blinding: re-solve the affected locations with each infeed switched out (one location set per infeed,
+    // so that the solver can answer every fault type from one sweep)
+    const byInfeed = new Map<string, { work: CaseWork; pair: BlindingPair; locIndex: number; type: FaultType }[]>();
     for (const b of blinding)
       for (const pair of b.pairs) {
-        const key = `${pair.infeed}|${b.type}`;
-        if (!byInfeedType.has(key)) byInfeedType.set(key, { infeed: pair.infeed, type: b.type, items: [] });
-        byInfeedType.get(key)!.items.push({ work: b.work, pair, locIndex: b.locIndex });
+        const list = byInfeed.get(pair.infeed) ?? [];
+        list.push({ work: b.work, pair, locIndex: b.locIndex, type: b.type });
+        byInfeed.set(pair.infeed, list);
       }
-    for (const group of byInfeedType.values()) {
+    for (const [infeed, items] of byInfeed) {
       if (hooks.isCancelled?.()) throw new StudyCancelled();
-      const variant: Scenario = { ...scenario, outOfService: [...scenario.outOfService, group.infeed] };
-      const locIdx = [...new Set(group.items.map((x) => x.locIndex))];
+      const variant: Scenario = { ...scenario, outOfService: [...scenario.outOfService, infeed] };
+      const locIdx = [...new Set(items.map((x) => x.locIndex))].sort((a, b) => a - b);
       const locs: FaultLocation[] = locIdx.map((k) => locations[k]);
-      const snaps = solver.solveMany(variant, locs, group.type, sensLimit);
-      const snapAt = new Map(locIdx.map((k, j) => [k, snaps[j]] as const));
-      for (const item of group.items) {
-        const device = net.devices.get(item.pair.device) as ProtectiveDevice;
-        const without = deviceResponse(device, snapAt.get(item.locIndex)!.readings[device.id], model);
-        const v = blindingVerdict(item.work.result.faultCase, item.pair, item.work.responses.get(device.id)!, without, device, model, project.criteria);
-        addVerdicts([v]);
-        item.work.result.verdictIds.push(v.id);
+      for (const type of types) {
+        const ofType = items.filter((x) => x.type === type);
+        if (ofType.length === 0) continue;
+        const snaps = solver.solveMany(variant, locs, type, sensLimit);
+        const snapAt = new Map(locIdx.map((k, j) => [k, snaps[j]] as const));
+        for (const item of ofType) {
+          const device = net.devices.get(item.pair.device) as ProtectiveDevice;
+          const without = deviceResponse(device, snapAt.get(item.locIndex)!.readings[device.id], model);
+          const v = blindingVerdict(item.work.result.faultCase, item.pair, item.work.responses.get(device.id)!, without, device, model, project.criteria);
+          addVerdicts([v]);
+          item.work.result.verdictIds.push(v.id);
+        }
       }
       await hooks.yieldNow?.();
     }

@@ -111,7 +111,13 @@ export function solveFault(network: CompiledNetwork, location: FaultLocation, ty
   const sysI = systems(model, cache, "iec");
   const zkI = cols(sysI);
   const iecInj = hasInv ? iecInjections(units, sysI[1], zkI[1], k) : null;
-  const iecFault = solveLinearFault({ systems: sysI, k, type, zf, vpre, live, zk: zkI, inj: [null, iecInj ? iecInj.inj : null, null] });
+  let iecFault = solveLinearFault({ systems: sysI, k, type, zf, vpre, live, zk: zkI, inj: [null, iecInj ? iecInj.inj : null, null] });
+  if (!iecFault.consistent && iecInj) {
+    // Current sources with no return path for this fault: undetermined, reported as no fault current.
+    iecFault = solveLinearFault({ systems: sysI, k, type, zf, vpre, live, zk: zkI, inj: [null, null, null] });
+    iecFault.consistent = false;
+    for (const x of iecInj.perUnit) x.re = x.im = 0;
+  }
 
   let refined: RefinedOutcome | null = null;
   let sysR = sysI;
@@ -138,6 +144,10 @@ export function solveFault(network: CompiledNetwork, location: FaultLocation, ty
       });
       refined = { ...r, fault: full(inj1, inj2), inj: [inj1, inj2] };
     } else refined = refinedIteration(units, n, vpre, full);
+    if (!refined.fault.consistent) {
+      const zero = { re: new Float64Array(n), im: new Float64Array(n) };
+      refined = { ...refined, fault: { ...full(zero, zero), consistent: false }, inj: [zero, zero], out: refined.out.map(() => ({ i1: { re: 0, im: 0 }, i2: { re: 0, im: 0 } })) };
+    }
   }
   const used = hasInv ? (options.inverterModel ?? opts.inverterModel) : "iec";
   const fault: LinearFault = used === "refined" && refined ? refined.fault : iecFault;

@@ -8,10 +8,10 @@ import { describe, it, expect } from "vitest";
 import fc from "fast-check";
 import type { Complex } from "mathjs";
 import { compileNetwork, solveFault } from "../../../../src/engine/index.ts";
-import { projectSchema, type Project } from "../../../../src/model/schema.ts";
+import type { Project } from "../../../../src/model/schema.ts";
 import { phaseDomainFault } from "./phaseDomainFault.ts";
 import { A_OP, phaseToSequence } from "./symmetricalComponents.ts";
-import { smallCase } from "./smallNetworkArbitrary.ts";
+import { smallInverterCase } from "./smallInverterCase.ts";
 import { complex, multiply } from "mathjs";
 
 const positive = (): Complex[] => [complex(1, 0), multiply(A_OP, A_OP) as Complex, A_OP];
@@ -27,37 +27,11 @@ function transferZ(project: Project, k: string, j: string): number {
   return Math.hypot(v1.re, v1.im);
 }
 
-interface ConverterCase {
-  project: Project;
-  bus: string;
-  seed: number;
-}
-
-function converterCase(seed: number): ConverterCase {
-  const base = smallCase(seed, seed % 2 === 0);
-  let s = seed >>> 0;
-  const r = () => {
-    s = (Math.imul(s, 1664525) + 1013904223) >>> 0; // LCG, enough to place a few units
-    return s / 4294967296;
-  };
-  const buses = base.project.elements.flatMap((e) => (e.kind === "bus" ? [e] : []));
-  const units = 1 + Math.floor(r() * 3);
-  const extra = Array.from({ length: units }, (_, i) => {
-    const b = buses[Math.floor(r() * buses.length)];
-    return {
-      kind: "inverter", id: `PV${i}`, name: `PV ${i}`, bus: b.id, sr_MVA: b.un_kV < 1 ? 0.05 + r() * 0.5 : 0.5 + r() * 2, ur_kV: b.un_kV,
-      iMax_pu: 1.1 + r() * 0.4, control: "grid-following",
-    };
-  });
-  const project = projectSchema.parse({ ...base.project, elements: [...base.project.elements, ...extra] });
-  return { project, bus: buses[Math.floor(r() * buses.length)].id, seed };
-}
-
 describe("full-size converters, IEC 60909 superposition, three-phase fault (classic method, prefault 1 pu)", () => {
   it("gives I\"k = (E + sum |Z_kj| I_kPFj) / |Z_kk| with impedances from the phase-domain reference", () => {
     fc.assert(
       fc.property(fc.integer({ min: 0, max: 2 ** 31 - 1 }), (seed) => {
-        const k = converterCase(seed);
+        const k = smallInverterCase(seed);
         const compiled = compileNetwork(k.project, { scenario: "s", limit: "max", method: "classic" });
         if (!compiled.ok) throw new Error(compiled.errors.map((e) => e.text).join("; "));
         const eng = solveFault(compiled.network, { kind: "bus", bus: k.bus }, "3ph", { inverterModel: "iec", faultR_ohm: 0, faultX_ohm: 0 }); // bolted, as the formula

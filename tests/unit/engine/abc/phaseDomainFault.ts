@@ -48,8 +48,9 @@ export interface PhaseFault {
   bus: string;
   /** "none": no fault, only the injections (for transfer impedances). */
   type: PhaseFaultType | "none";
-  /** Currents injected into buses, pu of the bus base, positive sequence as [a, b, c] in the bus's own frame. */
-  injections?: Array<{ bus: string; phase_pu: Complex[] }>;
+  /** Currents injected into buses, pu of the bus base, as [a, b, c] phasors in the bus's own frame (angle 0 = its
+   * prefault phase a) or, with frame "fault", in the faulted bus's frame (as the results are reported). */
+  injections?: Array<{ bus: string; phase_pu: Complex[]; frame?: "bus" | "fault" }>;
   /** Fault impedance in ohm: per faulted phase for 3ph (to a common point), between b and c for LL, a to earth for LG,
    * the common point of b and c to earth for LLG. */
   zf_ohm?: { re: number; im: number };
@@ -373,7 +374,7 @@ export function phaseDomainFault(project: Project, fault: PhaseFault, options: P
   }
   const pre = (i: number) => (i === GROUND ? c(0) : vPre[i]);
   for (const inj of fault.injections ?? []) {
-    const rot = polar(1, shift.get(inj.bus) as number);
+    const rot = polar(1, shift.get(inj.frame === "fault" ? fault.bus : inj.bus) as number);
     inj.phase_pu.forEach((v, k) => {
       const vr = cmul(v, rot);
       rhsRe[node(inj.bus, k)] += vr.re;

@@ -148,7 +148,7 @@ export function ChainPane(props: ChainPaneProps) {
                       <td className="num">{formatCurrent_A(link.current_A)}</td>
                       <td className="num">{operate.has(link.device) ? formatTime_s(operate.get(link.device)) : "—"}</td>
                       <td className="num">{link.tClear_s === null ? <span className="chain-no-op">no trip</span> : formatTime_s(link.tClear_s)}</td>
-                      <td className="num">{formatTime_s(link.marginToNext_s)}</td>
+                      <td className={`num${link.marginToNext_s !== null && link.marginToNext_s < 0 ? " chain-negative" : ""}`}>{formatTime_s(link.marginToNext_s)}</td>
                     </tr>
                   );
                 })}

@@ -375,12 +375,14 @@ const PlotStatic = memo(function PlotStatic(p: StaticProps) {
             </text>
           </g>
         ))}
-        {p.faultMarks.map((m) => {
+        {p.faultMarks.map((m, k) => {
           const xi = x(m.current_A);
+          // A label that would overlap its left neighbour's goes on the right of its line.
+          const crowded = p.faultMarks.some((o, j) => j < k && Math.abs(x(o.current_A) - xi) < 13 * L.s);
           return (
             <g key={m.id} className="tcc-fault-mark">
               <line x1={xi} x2={xi} y1={L.top} y2={L.bottom} strokeDasharray={scenarioDash(scenarioIds.indexOf(m.scenarioId ?? ""))} className="tcc-fault-line" />
-              <text className="tcc-fault-label" transform={`translate(${xi - 4 * L.s} ${L.top + 6 * L.s}) rotate(-90)`} textAnchor="end">
+              <text className="tcc-fault-label" transform={`translate(${crowded ? xi + 11 * L.s : xi - 4 * L.s} ${L.top + 6 * L.s}) rotate(-90)`} textAnchor="end">
                 {m.label} · {formatCurrent_A(m.current_A)}
               </text>
             </g>

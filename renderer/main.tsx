@@ -25,11 +25,14 @@ async function start(): Promise<void> {
   if (params.get("theme") === "dark" || (!params.has("theme") && window.matchMedia?.("(prefers-color-scheme: dark)").matches)) {
     useSessionStore.getState().set({ theme: "dark" });
   }
-  const { port, mode } = createStudioPort(params.get("worker") !== "0");
-  (window as unknown as { __isletEngineMode: string }).__isletEngineMode = mode;
-  const study = studyClient(port);
+  // two workers: the fault overlay never waits behind a study
+  const preferWorker = params.get("worker") !== "0";
+  const enginePort = createStudioPort(preferWorker, "islet-engine");
+  const studyPort = createStudioPort(preferWorker, "islet-study");
+  (window as unknown as { __isletEngineMode: string }).__isletEngineMode = enginePort.mode;
+  const study = studyClient(studyPort.port);
   setStudyClient(study);
-  startFaultRunner(engineClient(port), study);
+  startFaultRunner(engineClient(enginePort.port), study);
 
   const recovery = params.has("empty") || params.has("generate") ? null : await host.readAutosave().catch(() => null);
   const root = createRoot(document.getElementById("root") as HTMLElement);
@@ -40,7 +43,9 @@ async function start(): Promise<void> {
     await showProject(newProject("Untitled project"), null);
   } else if (generate > 0) {
     const { generateRadialNetwork } = await import("../src/model/generateNetwork.ts");
-    await showProject(generateRadialNetwork({ buses: Math.max(2, Math.round(generate)), devices: Math.round(generate / 4), seed: 7 }), null);
+    const buses = Math.max(2, Math.round(generate));
+    const devices = Number(params.get("devices") ?? buses);
+    await showProject(generateRadialNetwork({ buses, devices, seed: Number(params.get("seed") ?? 7) }), null);
   } else {
     await loadDemo();
   }

@@ -1,10 +1,9 @@
 // The status area: the caution, the document state, validation counts and the last fault timing.
-import { useMemo } from "react";
-import { validateProject } from "../../src/model/validate.ts";
 import { useDocumentStore } from "../store/documentStore.ts";
 import { useSessionStore } from "../store/sessionStore.ts";
 import { useFaultStore } from "../fault/faultStore.ts";
 import { CAUTION_TEXT } from "./caution.ts";
+import { useValidation } from "../store/validation.ts";
 
 export function StatusBar() {
   const doc = useDocumentStore((s) => s.doc);
@@ -12,7 +11,7 @@ export function StatusBar() {
   const savedRevision = useSessionStore((s) => s.savedRevision);
   const file = useSessionStore((s) => s.file);
   const timings = useFaultStore((s) => s.timings_ms);
-  const messages = useMemo(() => validateProject(doc), [doc]);
+  const messages = useValidation();
   const errors = messages.filter((m) => m.severity === "error").length;
   const warnings = messages.filter((m) => m.severity === "warning").length;
   const dirty = revision !== savedRevision;

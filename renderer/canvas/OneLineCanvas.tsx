@@ -9,6 +9,7 @@ import {
   MiniMap,
   ConnectionMode,
   useReactFlow,
+  useStore,
   type Connection,
   type NodeChange,
   type NodeTypes,
@@ -19,7 +20,8 @@ import { useDocumentStore } from "../store/documentStore.ts";
 import { useSessionStore } from "../store/sessionStore.ts";
 import { useFaultStore } from "../fault/faultStore.ts";
 import type { NodePlace } from "../store/changes.ts";
-import type { OneLineNode } from "./flowTypes.ts";
+import type { OneLineEdge, OneLineNode } from "./flowTypes.ts";
+import { stableItems } from "./stableItems.ts";
 import { toFlow, terminalFields } from "./toFlow.ts";
 import { BusNode } from "./nodes/BusNode.tsx";
 import { BranchNode } from "./nodes/BranchNode.tsx";
@@ -31,6 +33,7 @@ import { PALETTE_DRAG_TYPE } from "./Palette.tsx";
 const nodeTypes: NodeTypes = { bus: BusNode, branch: BranchNode, shunt: ShuntNode };
 const edgeTypes: EdgeTypes = { tie: TieEdge };
 const GRID = 10;
+const FAR_ZOOM = 0.4;
 /** Layout positions in the document are node centres. */
 const NODE_ORIGIN: [number, number] = [0.5, 0.5];
 
@@ -43,11 +46,19 @@ export function OneLineCanvas() {
   const fitSeq = useSessionStore((s) => s.fitSeq);
   const overlay = useFaultStore((s) => s.overlay);
   const flow = useReactFlow();
+  // level of detail: far out, labels and device markers are dropped (they would be unreadable)
+  const far = useStore((s) => s.transform[2] < FAR_ZOOM);
   const [dragPlaces, setDragPlaces] = useState<Record<string, NodePlace>>({});
   const dragRef = useRef(dragPlaces);
   dragRef.current = dragPlaces;
 
-  const built = useMemo(() => toFlow(doc, selection, overlay), [doc, selection, overlay]);
+  const previous = useRef<{ nodes: OneLineNode[]; edges: OneLineEdge[] }>({ nodes: [], edges: [] });
+  const built = useMemo(() => {
+    const next = toFlow(doc, selection, overlay);
+    const stable = { nodes: stableItems(previous.current.nodes, next.nodes), edges: stableItems(previous.current.edges, next.edges) };
+    previous.current = stable;
+    return stable;
+  }, [doc, selection, overlay]);
   const nodes = useMemo(() => {
     if (Object.keys(dragPlaces).length === 0) return built.nodes;
     return built.nodes.map((n) => (dragPlaces[n.id] ? ({ ...n, position: { x: dragPlaces[n.id].x, y: dragPlaces[n.id].y } } as OneLineNode) : n));
@@ -142,7 +153,7 @@ export function OneLineCanvas() {
   );
 
   return (
-    <div className="canvas-wrap" data-testid="one-line" onDragOver={onDragOver} onDrop={onDrop}>
+    <div className={`canvas-wrap${far ? " lod-far" : ""}`} data-testid="one-line" onDragOver={onDragOver} onDrop={onDrop}>
       <ReactFlow<OneLineNode>
         nodes={nodes}
         edges={built.edges}

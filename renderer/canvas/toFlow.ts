@@ -113,6 +113,8 @@ export function toFlow(doc: Project, selection: readonly string[], overlay: Faul
     const devicesA = devicesAt.get(`${e.id}:${branch ? "from" : "terminal"}`) ?? EMPTY;
     const devicesB = branch ? (devicesAt.get(`${e.id}:to`) ?? EMPTY) : EMPTY;
     const selectedDevices = [...devicesA, ...devicesB].filter((d) => selected.has(d.id)).map((d) => d.id);
+    const marks: FaultOverlay["devices"] = {};
+    if (overlay) for (const d of [...devicesA, ...devicesB]) if (overlay.devices[d.id]) marks[d.id] = overlay.devices[d.id];
     nodes.push({
       id: e.id,
       type: branch ? "branch" : "shunt",
@@ -130,7 +132,7 @@ export function toFlow(doc: Project, selection: readonly string[], overlay: Faul
         caption: e.name || e.id,
         detail: elementCaption(e),
         flow: overlay?.flows[e.id] ?? null,
-        marks: overlay?.devices ?? {},
+        marks,
         faulted: overlay?.at === e.id,
         ikss_kA: overlay?.at === e.id ? overlay.ikss_kA : null,
         down: !branch && isDown(e, doc.layout),

@@ -38,6 +38,7 @@ export function startFaultRunner(engine: EngineClient, study: StudyClient): () =
     const location: FaultLocation = target.kind === "bus" ? { kind: "bus", bus: target.bus } : { kind: "line", line: target.line, pct: target.pct };
     const { result } = engine.call({ kind: "fault", channel: "overlay", project: doc, scenario: scenario?.id, limit: session.faultLimit, location, faultType: session.faultType });
     const response = await result;
+    performance.mark(`${mark}-answered`);
     if (seq !== markSeq) return; // superseded
     if (!response.ok) {
       if (response.cancelled) return;
@@ -53,9 +54,11 @@ export function startFaultRunner(engine: EngineClient, study: StudyClient): () =
     requestAnimationFrame(() =>
       setTimeout(() => {
         const m = performance.measure(`islet-overlay-${seq}`, mark);
+        performance.measure(`islet-answer-${seq}`, mark, `${mark}-answered`);
         const timings = [...useFaultStore.getState().timings_ms, m.duration].slice(-MAX_TIMINGS);
         useFaultStore.getState().set({ timings_ms: timings });
         performance.clearMarks(mark);
+        performance.clearMarks(`${mark}-answered`);
       }, 0),
     );
     if (!scenario) return;

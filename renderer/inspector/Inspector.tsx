@@ -3,7 +3,7 @@
 // only the fields they share. Every edit is one undoable change through the document store.
 import { useMemo } from "react";
 import { isProtectiveDevice, type Element, type ElementKind } from "../../src/model/schema.ts";
-import { validateProject } from "../../src/model/validate.ts";
+import { validationOf } from "../store/validation.ts";
 import { elementLabel } from "../../src/model/elementLabel.ts";
 import { useDocumentStore } from "../store/documentStore.ts";
 import { useSessionStore } from "../store/sessionStore.ts";
@@ -49,7 +49,7 @@ export function Inspector() {
   const doc = useDocumentStore((s) => s.doc);
   const apply = useDocumentStore((s) => s.applyChanges);
   const selection = useSessionStore((s) => s.selection);
-  const messages = useMemo(() => validateProject(doc), [doc]);
+  const messages = validationOf(doc);
   const selected = useMemo(() => selection.map((id) => doc.elements.find((e) => e.id === id)).filter((e): e is Element => !!e), [doc, selection]);
   const ids = selected.map((e) => e.id);
   const ctx: RowContext = useMemo(

@@ -46,10 +46,10 @@ export function mainThreadPort(): WorkerPort {
   };
 }
 
-export function createStudioPort(preferWorker: boolean): { port: WorkerPort; mode: "worker" | "main-thread" } {
+export function createStudioPort(preferWorker: boolean, name = "islet-calc"): { port: WorkerPort; mode: "worker" | "main-thread" } {
   if (preferWorker && typeof Worker !== "undefined") {
     try {
-      const worker = new Worker(new URL("./engine.worker.ts", import.meta.url), { type: "module", name: "islet-calc" });
+      const worker = new Worker(new URL("./engine.worker.ts", import.meta.url), { type: "module", name });
       return { port: workerPort(worker), mode: "worker" };
     } catch {
       // fall back to the main thread

@@ -1,8 +1,10 @@
-// The pane's own series palette: eight hues spaced for both themes, in a fixed order so a device keeps
-// its colour while the selected path changes as long as its position does.
-const SERIES = ["#2a7fa8", "#d0632a", "#5a9a3c", "#9a4fb5", "#c79a16", "#c23b5d", "#3f8f86", "#6b6fd1"] as const;
+// The pane's own series palette: eight hues in a fixed order, defined in panes.css as
+// --p-series-0..7 for the light and the dark theme, so a device keeps its colour while the
+// selected path changes as long as its position does.
+const SERIES_COUNT = 8;
 
-/** Colour of the n-th device on the plot (cycles after eight). */
+/** CSS colour of the n-th device on the plot (cycles after eight). */
 export function deviceColor(index: number): string {
-  return SERIES[((index % SERIES.length) + SERIES.length) % SERIES.length];
+  const k = ((index % SERIES_COUNT) + SERIES_COUNT) % SERIES_COUNT;
+  return `var(--p-series-${k})`;
 }

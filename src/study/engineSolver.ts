@@ -204,15 +204,18 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     return solveSingle(c.network, v.project, split.locate(location), type);
   };
 
+  // The load flow runs on the project as drawn: splitting lines changes nothing in it, and very short
+  // segments only make its iteration harder.
   const loadCurrentsOf = (scenario: Scenario): Record<string, number> | null => {
     try {
-      const v = variantOf(scenario, []);
-      const lf = runLoadFlow(v.project, { scenario: v.scenarioId });
+      const original = project.scenarios.find((s) => s.id === scenario.id) === scenario;
+      const lfProject = original ? project : { ...project, scenarios: [...project.scenarios, { ...scenario, id: `${scenario.id}~study-variant` }] };
+      const lf = runLoadFlow(lfProject, { scenario: original ? scenario.id : `${scenario.id}~study-variant` });
       if (!lf.converged) return null;
       const at = new Map(loadCurrents(lf).map((l) => [`${l.element}|${l.end}`, Math.abs(l.i_A)] as const));
       const out: Record<string, number> = {};
       for (const d of devices) {
-        const i = at.get(locKey.get(d.id)!);
+        const i = at.get(`${d.at.element}|${d.at.end}`);
         if (i !== undefined) out[d.id] = i;
       }
       return out;

@@ -3,7 +3,7 @@ import type { ProtectiveDevice } from "../../model/schema.ts";
 
 export const fmtS = (t: number | null): string => (t === null ? "never" : `${t.toFixed(2)} s`);
 export const fmtA = (i: number): string => (i >= 1000 ? `${(i / 1000).toFixed(2)} kA` : `${i.toFixed(0)} A`);
-export const fmtX = (x: number): string => `${x.toFixed(2)} x`;
+export const fmtX = (x: number): string => `${x < 10 ? x.toFixed(3) : x.toFixed(1)} x`;
 
 /** `R-T1-HV 51` for a relay operating through a function, `F-7` for a fuse. */
 export function deviceTag(device: ProtectiveDevice | undefined, id: string, functionId: string | null = null): string {

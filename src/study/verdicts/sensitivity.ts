@@ -92,7 +92,7 @@ export function loadVerdicts(
       device: id,
       other: null,
       numbers: { ratio: round(ratio, 3), margin: criteria.loadMargin, load_A: round(iLoad, 1), pickup_A: round(pickup, 1) },
-      explanation: `${deviceTag(device, id)} against load: ${what} ${fmtA(pickup)} is ${fmtX(ratio)} the maximum load current ${fmtA(iLoad)} ${ratio >= criteria.loadMargin ? ">=" : "<"} ${criteria.loadMargin} (${scenario.name})`,
+      explanation: `${deviceTag(device, id)} against load: ${what} ${fmtA(pickup)} is ${fmtX(ratio)} the load-flow current ${fmtA(iLoad)} ${ratio >= criteria.loadMargin ? ">=" : "<"} ${criteria.loadMargin} (${scenario.name})`,
     });
   }
   return out;

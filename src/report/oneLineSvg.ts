@@ -170,7 +170,7 @@ export function oneLineSvg(project: Project, options: OneLineOptions = {}): stri
     const b = busPlace(e.id)!;
     const color = voltageColor(e.un_kV);
     marks.push(`<rect x="${n(b.x - b.half)}" y="${n(b.y - 3)}" width="${n(2 * b.half)}" height="6" rx="1.5" fill="${color}"/>`);
-    labels.push(svgText(b.x - b.half, b.y - 8, `${e.id}  ${sig(e.un_kV)} kV`, `font-size="11" font-weight="600" fill="${color}"`));
+    labels.push(svgText(b.x - b.half, b.y - 8, `${e.id}  ${sig(e.un_kV)} kV`, `font-size="12" font-weight="600" fill="${color}"`));
     grow(b.x - b.half, b.y - 20, b.x + b.half, b.y + 6);
   }
 
@@ -218,14 +218,14 @@ export function oneLineSvg(project: Project, options: OneLineOptions = {}): stri
         const dx = devX(j);
         const dy = devY(j);
         marks.push(deviceMark(d, dx, dy, horizontal));
-        labels.push(svgText(dx - 9, dy + 3.5, d.id, `font-size="9" text-anchor="end" fill="${REPORT_COLORS.device}"`));
+        labels.push(svgText(dx - 9, dy + 3.5, d.id, `font-size="10" text-anchor="end" fill="${REPORT_COLORS.device}"`));
       });
     });
     marks.push(symbol(e, p.x, p.y, colors[0] ?? REPORT_COLORS.ink, colors[1] ?? colors[0] ?? REPORT_COLORS.ink, horizontal, closed));
     const lx = horizontal ? p.x - 12 : p.x + (e.kind === "line" ? 10 : 18);
     const ly = horizontal ? p.y + 24 : p.y - 2;
-    labels.push(svgText(lx, ly, e.id, `font-size="11" font-weight="600" fill="${REPORT_COLORS.ink}"`));
-    labels.push(svgText(lx, ly + 12, caption(e, closed), `font-size="9.5" fill="${REPORT_COLORS.muted}"`));
+    labels.push(svgText(lx, ly, e.id, `font-size="12" font-weight="600" fill="${REPORT_COLORS.ink}"`));
+    labels.push(svgText(lx, ly + 12, caption(e, closed), `font-size="10" fill="${REPORT_COLORS.muted}"`));
     grow(p.x - 90, p.y - 40, p.x + 170, p.y + 40);
   }
   if (!Number.isFinite(minX)) {

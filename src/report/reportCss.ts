@@ -34,7 +34,11 @@ td.refs a { color: ${C.muted}; text-decoration: none; }
 td.ref { white-space: nowrap; font-weight: 600; }
 table.data { font-size: 8.5pt; }
 table.verdicts td:nth-child(2), table.verdicts td:nth-child(3) { white-space: nowrap; }
-table.verdicts.pass { font-size: 7.5pt; }
+table.verdicts:not(.pass-summary) td:nth-child(4) { width: 55%; }
+table.verdicts:not(.pass-summary) td:nth-child(5) { width: 30%; font-size: 7pt; }
+table.pass-summary td:nth-child(4) { width: 60%; }
+table.verdicts { font-size: 7.5pt; }
+table.verdicts td { padding: 0.8mm 1.4mm; }
 table.narrow { width: auto; min-width: 70mm; }
 table.kv td:first-child { width: 60%; }
 tr.fail td.ref, .status-fail { color: ${C.fail}; }

@@ -75,7 +75,7 @@ export function verdictSection(project: Project, study: StudyResult, refs: Reado
     );
     return `<h3 id="verdicts-${status}" class="status-${status}">${title} (${list.length})</h3>\n${table}`;
   });
-  return `<section id="verdicts" class="break">
+  return `<section id="verdicts" class="break wide-page">
 <h2>5 Coordination verdicts</h2>
 <p>Every check of the study: sensitivity (fault current over pickup at the end of each zone and pickup over load), selectivity (primary before backup by the CTI across tolerance bands), speed (primary clearing within the bus's limit), blinding (reach lost when an infeed is in service) and sympathetic tripping (a healthy feeder's device operating before the fault clears).</p>
 <div class="twocol">${totals}${byScenario}</div>

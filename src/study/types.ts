@@ -120,6 +120,7 @@ export interface CaseResult {
   faultCase: FaultCase;
   /** Current at the fault point, A (largest phase current into the fault). */
   iFault_A: number;
+  /** Every device that carries current in this case or sits on one of its source paths (others see nothing). */
   responses: DeviceResponse[];
   chains: FaultChains;
   verdictIds: string[];

@@ -258,6 +258,7 @@ export function TccPane(props: TccPaneProps) {
               referenceVoltage_kV={props.referenceVoltage_kV}
               uid={uid}
               onLegendSelect={selectDevice}
+              hoverIndex={activeIndex}
             />
             {drag && drag.patch && bands[drag.bandIndex] ? (
               <DragGhost uid={uid} band={bands[drag.bandIndex]} patch={drag.patch} x={x} y={y} layout={layout} color={colors.get(bands[drag.bandIndex].deviceId) ?? "currentColor"} />
@@ -296,6 +297,8 @@ interface StaticProps {
   uid: string;
   /** A device's legend entry was clicked. */
   onLegendSelect: (deviceId: string) => void;
+  /** Band under the pointer or being dragged (drawn a little stronger). */
+  hoverIndex: number | null;
 }
 
 /** Everything that does not move with the pointer, memoised so the read-out stays cheap. */
@@ -392,7 +395,7 @@ const PlotStatic = memo(function PlotStatic(p: StaticProps) {
           const b = p.bands[k];
           const color = p.colors.get(b.deviceId) ?? "currentColor";
           const hl = b.deviceId === p.highlightDeviceId;
-          const cls = `tcc-device${hl ? " is-highlight" : ""}${anyHighlight && !hl ? " is-dimmed" : ""}`;
+          const cls = `tcc-device${hl ? " is-highlight" : ""}${anyHighlight && !hl ? " is-dimmed" : ""}${k === p.hoverIndex ? " is-hover" : ""}`;
           return (
             <g key={`${b.deviceId}/${b.functionId}`} className={cls} data-device-id={b.deviceId}>
               <path className="tcc-band" d={bandPath(b.min, b.max, x, y)} style={{ fill: color }} />

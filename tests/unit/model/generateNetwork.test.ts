@@ -2,6 +2,8 @@ import { describe, it, expect } from "vitest";
 import fc from "fast-check";
 import { generateRadialNetwork, generateMeshedNetwork, GENERATED_SCENARIOS } from "../../../src/model/generateNetwork.ts";
 import { projectSchema, elementBuses, type Element, type Project } from "../../../src/model/schema.ts";
+import { compileNetwork } from "../../../src/engine/index.ts";
+import { validateProject } from "../../../src/model/validate.ts";
 
 const byKind = <K extends Element["kind"]>(p: Project, kind: K) => p.elements.filter((e): e is Extract<Element, { kind: K }> => e.kind === kind);
 
@@ -116,6 +118,24 @@ describe("generateRadialNetwork", () => {
       const phase = r.functions.find((f) => f.quantity === "phase");
       expect(phase).toBeDefined();
       expect(ik_A / (phase?.pickup_A ?? Infinity)).toBeGreaterThanOrEqual(1.5);
+    }
+  });
+
+  it("passes the project's validation rules without an error or a warning", () => {
+    for (const p of [generateRadialNetwork({ buses: 400, devices: 150, seed: 13 }), generateMeshedNetwork({ buses: 300, devices: 100, seed: 13 })]) {
+      expect(validateProject(p).filter((m) => m.severity !== "info")).toEqual([]);
+    }
+  });
+
+  it("compiles in both scenarios with every bus fed by a source (no dead island, no input error)", () => {
+    for (const p of [generateRadialNetwork({ buses: 300, devices: 60, seed: 3 }), generateMeshedNetwork({ buses: 200, devices: 60, seed: 3 })]) {
+      for (const scenario of [GENERATED_SCENARIOS.gridTied, GENERATED_SCENARIOS.islanded]) {
+        for (const limit of ["max", "min"] as const) {
+          const r = compileNetwork(p, { scenario, limit });
+          expect(r.ok, `${p.meta.name} ${scenario} ${limit}: ${r.ok ? "" : r.errors.map((e) => e.text).join("; ")}`).toBe(true);
+          if (r.ok) expect(r.network.messages.filter((m) => m.code === "dead-island")).toEqual([]);
+        }
+      }
     }
   });
 

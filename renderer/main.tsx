@@ -17,6 +17,7 @@ import { setStudyClient } from "./fault/studyCommands.ts";
 import { startFaultRunner } from "./fault/faultRunner.ts";
 import { useSessionStore } from "./store/sessionStore.ts";
 import { studioPanes } from "./app/studioPanes.tsx";
+import { listenToMenu } from "./app/menuCommands.ts";
 
 async function start(): Promise<void> {
   const params = new URLSearchParams(location.search);
@@ -50,6 +51,7 @@ async function start(): Promise<void> {
     await loadDemo();
   }
   startAutosave(host);
+  listenToMenu(host);
   document.documentElement.dataset.ready = "1";
 }
 

@@ -69,7 +69,7 @@ export function OneLineCanvas() {
     if (fitSeq === 0) return;
     requestAnimationFrame(() => {
       if (useDocumentStore.getState().doc.elements.length === 0) void flow.setViewport({ x: 0, y: 0, zoom: 1 });
-      else void flow.fitView({ padding: 0.08, maxZoom: 1, duration: 0 });
+      else void flow.fitView({ padding: 0.08, maxZoom: 1.5, duration: 0 });
     });
   }, [fitSeq, flow]);
 

@@ -1,13 +1,13 @@
 // Automatic layout for networks without positions (imported or generated): a layered drawing,
 // top to bottom, with elkjs. Buses and elements are nodes; ties are edges from element to bus,
 // reversed for the upstream terminal so sources sit above their bus and loads below.
-import ELK from "elkjs/lib/elk.bundled.js";
 import { isProtectiveDevice, type Layout, type Project } from "../../src/model/schema.ts";
 import { nodeSize, terminalFields, DEFAULT_BUS_WIDTH } from "./toFlow.ts";
 
-const elk = new ELK();
-
 export async function autoLayout(doc: Project): Promise<Layout> {
+  // elkjs is large: loaded only when a layout is needed
+  const { default: ELK } = await import("elkjs/lib/elk.bundled.js");
+  const elk = new ELK();
   const ids = new Set(doc.elements.map((e) => e.id));
   const children: { id: string; width: number; height: number }[] = [];
   const edges: { id: string; sources: string[]; targets: string[] }[] = [];

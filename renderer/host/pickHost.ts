@@ -1,6 +1,8 @@
-// The desktop app's preload exposes window.isletHost; a plain browser gets the browser adapter.
+// The desktop app's preload exposes window.isletHost (wrapped by desktopHost); a plain browser
+// gets the browser adapter.
 import type { HostApi } from "../../src/model/hostContract.ts";
 import { browserHost } from "./browserHost.ts";
+import { desktopHost } from "./desktopHost.ts";
 
 declare global {
   interface Window {
@@ -9,5 +11,5 @@ declare global {
 }
 
 export function pickHost(): HostApi {
-  return window.isletHost ?? browserHost();
+  return window.isletHost ? desktopHost(window.isletHost) : browserHost();
 }

@@ -158,6 +158,16 @@ describe("the demo's report", () => {
     }
   });
 
+  it("shows the clearing timeline of every failed case the study simulated, and only those", () => {
+    const failed = new Set(study.verdicts.filter((v) => v.status === "fail").map((v) => v.caseId));
+    const section = report.html.slice(report.html.indexOf('id="timelines"'), report.html.indexOf('id="open-items"'));
+    const label = (id: string) => study.cases.find((c) => c.faultCase.id === id)!.faultCase.label.replace(/&/g, "&amp;").replace(/'/g, "&#39;").replace(/"/g, "&quot;");
+    const shown = study.timelines.filter((t) => failed.has(t.caseId));
+    expect(shown.length).toBeGreaterThan(0);
+    for (const t of shown) expect(section).toContain(`<h3>${label(t.caseId)}</h3>`);
+    expect([...section.matchAll(/<div class="timeline-block">/g)]).toHaveLength(shown.length);
+  });
+
   it("is byte-identical when built twice from the same input", () => {
     const again = buildReport(input);
     expect(again.html).toBe(report.html);

@@ -64,6 +64,7 @@ export function bandsFromDevices(devices: readonly DeviceOnPlot[], opts: BandOpt
           functionId: "fuse",
           functionLabel: device.curve.kind === "parametric" ? `fuse, ${FUSE_FAMILY_TITLES[device.curve.family].replace(/ \(.*\)$/, "").toLowerCase()}` : "fuse, tabulated curve",
           pickup_A: device.rating_A,
+          pickupLabel: "rating",
           draggable: { pickup: true },
         };
       case "lvbreaker": {
@@ -73,6 +74,7 @@ export function bandsFromDevices(devices: readonly DeviceOnPlot[], opts: BandOpt
           functionId: "long-time",
           functionLabel: `LV trip unit ${regions}`,
           pickup_A: device.longTime.ir_x * device.in_A,
+          pickupLabel: "Ir",
           draggable: { pickup: true },
         };
       }

@@ -17,6 +17,8 @@ export interface TccBand {
   functionLabel: string;
   /** Pickup in the device's own primary amperes (what onSettingChange edits). */
   pickup_A: number;
+  /** What the legend calls pickup_A: "pickup" (default), "rating" for a fuse, "Ir" for an LV trip unit. */
+  pickupLabel?: string;
   /** Time multiplier (IEC TMS, IEEE TD) when the curve has one. */
   multiplier?: number;
   /** Nominal characteristic, increasing current. */

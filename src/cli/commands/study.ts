@@ -1,11 +1,71 @@
+// `islet study FILE [--scenario ID] [--json]`: every bus's initial short-circuit currents for the four fault types,
+// peak current and X/R, per scenario and per limit (max/min, as each scenario asks). With --json stdout holds only
+// JSON (shape in README.md). Exit 0 on success, 1 when the project is invalid or a network cannot be built, 2 on
+// usage errors.
 import type { CliCommand } from "../command.ts";
+import { readTextFile } from "../fileIo.ts";
+import { loadProject } from "../../model/projectFile.ts";
+import { busFaultTable, formatBusFaultTable } from "../../engine/index.ts";
 
-// Placeholder until this command lands; it refuses rather than pretending to work.
+const USAGE = "Usage: islet study FILE [--scenario ID] [--json]";
+
+function parseArgs(args: string[]): { ok: true; file: string; scenario?: string; json: boolean } | { ok: false; message: string } {
+  let file: string | undefined;
+  let scenario: string | undefined;
+  let json = false;
+  for (let i = 0; i < args.length; i++) {
+    const a = args[i];
+    if (a === "--json") json = true;
+    else if (a === "--scenario") {
+      if (i + 1 >= args.length) return { ok: false, message: "--scenario needs an ID" };
+      scenario = args[++i];
+    } else if (a.startsWith("--scenario=")) scenario = a.slice("--scenario=".length);
+    else if (a.startsWith("--")) return { ok: false, message: `unknown option ${a}` };
+    else if (file === undefined) file = a;
+    else return { ok: false, message: "expected one FILE" };
+  }
+  if (file === undefined) return { ok: false, message: "missing FILE" };
+  return { ok: true, file, scenario, json };
+}
+
 export const studyCommand: CliCommand = {
   name: "study",
-  summary: "(not yet available)",
-  async run() {
-    console.error("islet study: not yet available in this build");
-    return 2;
+  summary: 'every bus\'s I"k (3ph, LL, LG, LLG), ip and X/R per scenario and max/min limit',
+  async run(args) {
+    const parsed = parseArgs(args);
+    if (!parsed.ok) {
+      console.error(`islet study: ${parsed.message}\n${USAGE}`);
+      return 2;
+    }
+    const file = readTextFile(parsed.file);
+    if (!file.ok) {
+      console.error(`islet study: ${file.message}`);
+      return 2;
+    }
+    const loaded = loadProject(file.text);
+    if (!loaded.ok) {
+      if (parsed.json) console.log(JSON.stringify({ ok: false, file: parsed.file, error: loaded.error }, null, 2));
+      else {
+        console.error(`${parsed.file}: not a valid Islet project (${loaded.error.kind}):`);
+        for (const m of loaded.error.messages) console.error(`  error: ${m}`);
+      }
+      return 1;
+    }
+    let report;
+    try {
+      report = busFaultTable(loaded.project, parsed.scenario);
+    } catch (err) {
+      const message = err instanceof Error ? err.message : String(err);
+      if (parsed.json) console.log(JSON.stringify({ ok: false, file: parsed.file, error: { kind: "usage", messages: [message] } }, null, 2));
+      else console.error(`islet study: ${message}`);
+      return 2;
+    }
+    const ok = report.runs.every((r) => r.ok);
+    if (parsed.json) console.log(JSON.stringify({ ok, file: parsed.file, caution: report.caution, warnings: loaded.warnings, runs: report.runs }, null, 2));
+    else {
+      for (const w of loaded.warnings) console.log(`warning: ${w}`);
+      console.log(formatBusFaultTable(report));
+    }
+    return ok ? 0 : 1;
   },
 };

@@ -162,14 +162,16 @@ export function solveFault(network: CompiledNetwork, location: FaultLocation, ty
     // Grid-forming units: the shunt carries the unlimited part; the injection is the limiting correction.
     units.forEach((u, j) => {
       if (u.control !== "grid-forming") return;
-      const v1 = { re: fault.v[1].re[u.node], im: fault.v[1].im[u.node] };
-      const d = { re: vpre[u.node] - v1.re, im: -v1.im };
       const zf2 = u.zForming.re ** 2 + u.zForming.im ** 2;
-      const iu = { re: (d.re * u.zForming.re + d.im * u.zForming.im) / zf2, im: (d.im * u.zForming.re - d.re * u.zForming.im) / zf2 };
-      unitInj.set(u.element, [{ re: refined.out[j].i1.re - iu.re, im: refined.out[j].i1.im - iu.im }, { re: 0, im: 0 }]);
+      const divZ = (a: Cx): Cx => ({ re: (a.re * u.zForming.re + a.im * u.zForming.im) / zf2, im: (a.im * u.zForming.re - a.re * u.zForming.im) / zf2 });
+      const i1u = divZ({ re: vpre[u.node] - fault.v[1].re[u.node], im: -fault.v[1].im[u.node] });
+      const i2u = divZ({ re: -fault.v[2].re[u.node], im: -fault.v[2].im[u.node] });
+      unitInj.set(u.element, [
+        { re: refined.out[j].i1.re - i1u.re, im: refined.out[j].i1.im - i1u.im },
+        { re: refined.out[j].i2.re - i2u.re, im: refined.out[j].i2.im - i2u.im },
+      ]);
     });
   }
-
   if (!fault.consistent) {
     messages.push({
       level: "warning",

@@ -7,8 +7,9 @@
 //    voltage sources and the fault make): where converters alone hold up a collapsed voltage, the terminal angle
 //    is made by their own currents, has no fixed point and rotates from one iteration to the next. Where the grid
 //    dominates, the two angles agree. At a dead terminal (no source voltage at all) the prefault angle is used.
-//  grid-forming: a voltage source (the prefault voltage) behind zForming, stamped in the refined networks; when its
-//    current exceeds iMax Ir an extra injection holds it at the limit, at the angle of the unlimited current.
+//  grid-forming: a voltage source (the prefault voltage) behind zForming, stamped in the refined networks (positive
+//    and negative sequence); when its largest phase current exceeds iMax Ir, extra injections scale its positive and
+//    negative-sequence currents down together to the limit.
 // The network response is affine in the injections, so it is sampled once (2J + 1 solutions for J units) and the
 // damped fixed-point iteration runs on that small map; the damping halves whenever the residual grows.
 import type { InverterUnit } from "../network/model.ts";
@@ -34,6 +35,17 @@ export interface RefinedOutcome {
 const cm = (a: C, b: C): C => ({ re: a.re * b.re - a.im * b.im, im: a.re * b.im + a.im * b.re });
 const cabs = (a: C) => Math.hypot(a.re, a.im);
 
+const A: C = { re: -0.5, im: Math.sqrt(3) / 2 };
+const A2: C = { re: -0.5, im: -Math.sqrt(3) / 2 };
+/** Largest phase-current magnitude of positive and negative-sequence currents (no zero sequence in a converter). */
+function maxPhase(i1: C, i2: C): number {
+  const b1 = cm(A2, i1);
+  const b2 = cm(A, i2);
+  const c1 = cm(A, i1);
+  const c2 = cm(A2, i2);
+  return Math.max(Math.hypot(i1.re + i2.re, i1.im + i2.im), Math.hypot(b1.re + b2.re, b1.im + b2.im), Math.hypot(c1.re + c2.re, c1.im + c2.im));
+}
+
 interface Target {
   x1: C[];
   x2: C[];
@@ -48,17 +60,20 @@ function targets(units: InverterUnit[], v1s: C[], v2s: C[], vext: C[], vpre: Flo
     const v2 = v2s[j];
     const lim = u.iMax_pu * u.ir_pu;
     if (u.control === "grid-forming") {
-      const d = { re: vpre[u.node] - v1.re, im: -v1.im };
+      // Unlimited currents out of the source behind zForming (positive: E - V1; negative: -V2), then one common
+      // scale so that the largest phase current stays within iMax Ir.
       const z2 = u.zForming.re ** 2 + u.zForming.im ** 2;
-      const iu = { re: (d.re * u.zForming.re + d.im * u.zForming.im) / z2, im: (d.im * u.zForming.re - d.re * u.zForming.im) / z2 };
-      const m = cabs(iu);
-      const over = m > lim;
-      const target = over ? { re: (iu.re * lim) / m, im: (iu.im * lim) / m } : iu;
-      t.x1.push({ re: target.re - iu.re, im: target.im - iu.im });
-      t.x2.push({ re: 0, im: 0 });
-      const i2 = { re: -(v2.re * u.zForming.re + v2.im * u.zForming.im) / z2, im: -(v2.im * u.zForming.re - v2.re * u.zForming.im) / z2 };
-      t.out.push({ i1: target, i2 });
-      t.limited.push(over);
+      const divZ = (a: C): C => ({ re: (a.re * u.zForming.re + a.im * u.zForming.im) / z2, im: (a.im * u.zForming.re - a.re * u.zForming.im) / z2 });
+      const i1u = divZ({ re: vpre[u.node] - v1.re, im: -v1.im });
+      const i2u = divZ({ re: -v2.re, im: -v2.im });
+      const m = maxPhase(i1u, i2u);
+      const k = m > lim ? lim / m : 1;
+      const target1 = { re: i1u.re * k, im: i1u.im * k };
+      const target2 = { re: i2u.re * k, im: i2u.im * k };
+      t.x1.push({ re: target1.re - i1u.re, im: target1.im - i1u.im });
+      t.x2.push({ re: target2.re - i2u.re, im: target2.im - i2u.im });
+      t.out.push({ i1: target1, i2: target2 });
+      t.limited.push(k < 1);
       return;
     }
     const vm = cabs(v1) * u.vScale;

@@ -73,7 +73,7 @@ export function solveFlow(pr: FlowProblem): FlowSolution {
   const nb: number[][] = Array.from({ length: m }, () => []);
   for (const b of pr.branches) {
     const y = b.y[1];
-    if (!y) continue;
+    if (!y || b.from === b.to) continue;
     const f = pos[b.from];
     const t = pos[b.to];
     const tt = b.t * b.t;

@@ -139,10 +139,8 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
         if (!okF || !okT) break;
         const f = busNode.get(e.fromBus)!;
         const t = busNode.get(e.toBus)!;
-        if (f === t) {
-          messages.push({ level: "info", code: "branch-shorted", text: `${label}: both ends on the same node (closed switch); left out`, element: e.id });
-          break;
-        }
+        // Both ends on one node (a closed coupler in parallel): no current for bus faults, but kept so that a
+        // fault along it can be placed; its stamps cancel and assembly skips them.
         const uf = nodes[f].un_kV;
         if (Math.abs(uf - nodes[t].un_kV) > 1e-9 * uf) {
           errors.push(err(`${label}: fromBus and toBus have different un_kV (${uf} and ${nodes[t].un_kV})`, e.id));

@@ -58,6 +58,7 @@ export function sequenceSystem(model: Model, cache: EngineCache, seq: Seq, varia
   const hasShunt = new Uint8Array(n);
   for (const b of model.branches) {
     const y = b.y[seq];
+    if (b.from === b.to) continue; // a self-loop's stamps cancel (t = 1 for lines)
     if (y) {
       const t = b.t;
       put(b.from, b.from, y.re / (t * t), y.im / (t * t));

@@ -15,6 +15,11 @@ export interface SymmetricTriplets {
 export interface LdltFactor {
   n: number;
   ordering: Ordering;
+  /** The permuted matrix itself (lower CSC incl. diagonal), kept for iterative refinement. */
+  aPtr: Int32Array;
+  aRow: Int32Array;
+  aRe: Float64Array;
+  aIm: Float64Array;
   lre: Float64Array;
   lim: Float64Array;
   dre: Float64Array;
@@ -106,19 +111,52 @@ export function factorLdlt(a: SymmetricTriplets, ordering: Ordering): LdltFactor
       wim[i] = 0;
     }
   }
-  return { n, ordering, lre, lim, dre, dim };
+  return { n, ordering, aPtr, aRow, aRe, aIm, lre, lim, dre, dim };
 }
 
-/** Solves A x = b in place (b given in original indices, separate re/im arrays). */
+/**
+ * Solves A x = b in place (b given in original indices, separate re/im arrays), with one step of iterative
+ * refinement: without pivoting, a very short branch next to long ones costs digits that the residual step restores.
+ */
 export function solveLdlt(f: LdltFactor, bre: Float64Array, bim: Float64Array): void {
-  const { n, lre, lim, dre, dim } = f;
-  const { perm, colPtr, rowIdx } = f.ordering;
-  const xr = new Float64Array(n);
-  const xi = new Float64Array(n);
+  const { n, aPtr, aRow, aRe, aIm } = f;
+  const { perm } = f.ordering;
+  const br = new Float64Array(n);
+  const bi = new Float64Array(n);
   for (let k = 0; k < n; k++) {
-    xr[k] = bre[perm[k]];
-    xi[k] = bim[perm[k]];
+    br[k] = bre[perm[k]];
+    bi[k] = bim[perm[k]];
   }
+  const xr = br.slice();
+  const xi = bi.slice();
+  solvePermuted(f, xr, xi);
+  // r = b - A x (symmetric, lower storage)
+  const rr = br;
+  const ri = bi;
+  for (let j = 0; j < n; j++) {
+    for (let p = aPtr[j]; p < aPtr[j + 1]; p++) {
+      const i = aRow[p];
+      const ar = aRe[p];
+      const ai = aIm[p];
+      rr[i] -= ar * xr[j] - ai * xi[j];
+      ri[i] -= ar * xi[j] + ai * xr[j];
+      if (i !== j) {
+        rr[j] -= ar * xr[i] - ai * xi[i];
+        ri[j] -= ar * xi[i] + ai * xr[i];
+      }
+    }
+  }
+  solvePermuted(f, rr, ri);
+  for (let k = 0; k < n; k++) {
+    bre[perm[k]] = xr[k] + rr[k];
+    bim[perm[k]] = xi[k] + ri[k];
+  }
+}
+
+/** Forward, diagonal and backward substitution on a right-hand side already in permuted order. */
+function solvePermuted(f: LdltFactor, xr: Float64Array, xi: Float64Array): void {
+  const { n, lre, lim, dre, dim } = f;
+  const { colPtr, rowIdx } = f.ordering;
   for (let k = 0; k < n; k++) {
     const r = xr[k];
     const i = xi[k];
@@ -146,9 +184,5 @@ export function solveLdlt(f: LdltFactor, bre: Float64Array, bim: Float64Array): 
     }
     xr[k] = r;
     xi[k] = i;
-  }
-  for (let k = 0; k < n; k++) {
-    bre[perm[k]] = xr[k];
-    bim[perm[k]] = xi[k];
   }
 }

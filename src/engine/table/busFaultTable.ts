@@ -1,0 +1,81 @@
+// The data behind `islet study`: every bus's I"k for the four fault types, ip and X/R, per scenario and limit.
+// Pure: the CLI command does the file and console work. The JSON shape is documented in README.md.
+import type { Project } from "../../model/schema.ts";
+import { FAULT_TYPES, CAUTION, type EngineMessage, type Limit, type ResolvedOptions, type FaultType } from "../types.ts";
+import { compileNetwork } from "../network/compileNetwork.ts";
+import { sweepFaults } from "../fault/sweepFaults.ts";
+
+export interface BusFaultRow {
+  bus: string;
+  un_kV: number;
+  ikss_kA: Record<FaultType, number>;
+  ip_kA: number;
+  xr: number;
+}
+
+export interface BusFaultRun {
+  scenario: string;
+  scenarioName: string;
+  limit: Limit;
+  ok: boolean;
+  options: ResolvedOptions | null;
+  buses: BusFaultRow[];
+  messages: EngineMessage[];
+}
+
+export interface BusFaultTable {
+  caution: string;
+  runs: BusFaultRun[];
+}
+
+/** Runs every (scenario, limit) pair, or the one scenario asked for. Throws only on an unknown scenario id. */
+export function busFaultTable(project: Project, scenarioId?: string): BusFaultTable {
+  const scenarios = scenarioId !== undefined ? project.scenarios.filter((s) => s.id === scenarioId) : project.scenarios;
+  if (scenarioId !== undefined && scenarios.length === 0) throw new Error(`scenario "${scenarioId}" not found; the project has: ${project.scenarios.map((s) => s.id).join(", ") || "none"}`);
+  const plan: { id: string | undefined; name: string; limits: Limit[] }[] = scenarios.length
+    ? scenarios.map((s) => ({ id: s.id, name: s.name, limits: s.limits }))
+    : [{ id: undefined, name: "(as drawn)", limits: ["max", "min"] }];
+  const runs: BusFaultRun[] = [];
+  const unOf = new Map(project.elements.filter((e) => e.kind === "bus").map((e) => [e.id, (e as { un_kV: number }).un_kV]));
+  for (const sc of plan) {
+    for (const limit of sc.limits) {
+      const c = compileNetwork(project, { scenario: sc.id, limit });
+      if (!c.ok) {
+        runs.push({ scenario: sc.id ?? "", scenarioName: sc.name, limit, ok: false, options: null, buses: [], messages: c.errors });
+        continue;
+      }
+      const sw = sweepFaults(c.network, { types: [...FAULT_TYPES], devices: [] });
+      const T = sw.types.length;
+      const buses: BusFaultRow[] = sw.busIds.map((bus, b) => {
+        const ikss = {} as Record<FaultType, number>;
+        sw.types.forEach((t, ti) => (ikss[t] = sw.ikss_kA[b * T + ti]));
+        return { bus, un_kV: unOf.get(bus) ?? 0, ikss_kA: ikss, ip_kA: sw.ip_kA[b], xr: sw.xr[b] };
+      });
+      runs.push({ scenario: c.network.scenario, scenarioName: sc.name, limit, ok: true, options: sw.options, buses, messages: [...c.network.messages, ...sw.messages] });
+    }
+  }
+  return { caution: CAUTION, runs };
+}
+
+/** Human-readable table. */
+export function formatBusFaultTable(report: BusFaultTable): string {
+  const lines: string[] = [];
+  const num = (x: number, w: number, d = 3) => (Number.isFinite(x) ? x.toFixed(d) : "-").padStart(w);
+  for (const r of report.runs) {
+    lines.push(`Scenario ${r.scenario || "(as drawn)"} "${r.scenarioName}", ${r.limit} (${r.options ? `${r.options.method}, inverters: ${r.options.inverterModel}` : "not computed"})`);
+    if (!r.ok) {
+      for (const m of r.messages) lines.push(`  error: ${m.text}`);
+      lines.push("");
+      continue;
+    }
+    lines.push(`  ${"bus".padEnd(16)} ${"Un kV".padStart(7)} ${"3ph kA".padStart(9)} ${"LL kA".padStart(9)} ${"LG kA".padStart(9)} ${"LLG kA".padStart(10)} ${"ip kA".padStart(9)} ${"X/R".padStart(7)}`);
+    for (const b of r.buses) {
+      lines.push(`  ${b.bus.padEnd(16)} ${num(b.un_kV, 7, 2)} ${num(b.ikss_kA["3ph"], 9)} ${num(b.ikss_kA.LL, 9)} ${num(b.ikss_kA.LG, 9)} ${num(b.ikss_kA.LLG, 10)} ${num(b.ip_kA, 9)} ${num(b.xr >= 1e9 ? Infinity : b.xr, 7, 2)}`);
+    }
+    for (const m of r.messages) lines.push(`  ${m.level}: ${m.text}`);
+    lines.push("");
+  }
+  lines.push('Initial symmetrical short-circuit current I"k: 3ph symmetrical, LL line current, LG and LLG earth current 3I0; ip peak (3ph).');
+  lines.push(report.caution);
+  return lines.join("\n");
+}

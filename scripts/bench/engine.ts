@@ -69,11 +69,15 @@ for (const c of cases) {
   const label = `all-bus sweep, 4 fault types, ${c.label}`;
   // Probe with a partial sweep first, so a slow engine cannot stall the benchmark: extrapolate when too slow.
   const allBuses = net.nodes.flatMap((nd) => nd.buses.slice(0, 1));
-  const probeBuses = allBuses.slice(0, Math.min(allBuses.length, 50));
-  const probeT = timeMedian(() => sweepFaults(net, { types, buses: probeBuses }), { warmup: 1, runs: 3, budget_ms: 20000 });
-  const projected_ms = (probeT.median_ms * allBuses.length) / probeBuses.length;
+  // Two partial sweeps (25 and 50 buses) give the fixed and the per-bus cost: t(n) = a + b n.
+  const n1 = Math.min(allBuses.length, 25);
+  const n2 = Math.min(allBuses.length, 50);
+  const t1 = timeMedian(() => sweepFaults(net, { types, buses: allBuses.slice(0, n1) }), { warmup: 1, runs: 3, budget_ms: 20000 }).median_ms;
+  const t2 = timeMedian(() => sweepFaults(net, { types, buses: allBuses.slice(0, n2) }), { warmup: 0, runs: 3, budget_ms: 20000 }).median_ms;
+  const perBus = n2 > n1 ? Math.max(0, (t2 - t1) / (n2 - n1)) : t2 / n2;
+  const projected_ms = Math.max(t2, t2 + perBus * (allBuses.length - n2));
   if (projected_ms > 120000) {
-    const msg = `projected from ${probeBuses.length} buses; full sweep skipped`;
+    const msg = `projected from partial sweeps of ${n1} and ${n2} buses (${t1.toFixed(0)} and ${t2.toFixed(0)} ms); full sweep skipped`;
     if (c.sweepTarget_ms) target(label, projected_ms, "ms", "lower", c.sweepTarget_ms);
     else figure(label, projected_ms, "ms");
     console.log(`      (${msg})`);

@@ -45,7 +45,7 @@ export function openItemsSection(project: Project, study: StudyResult, refs: Rea
         { className: "data open", columnClasses: ["", "", "", "num", "", "refs"], rowAttributes: (i) => `class="${rows[i].status}"` },
       )
     : '<p class="note">No failed or warned verdicts.</p>';
-  return `<section id="open-items" class="break">
+  return `<section id="open-items" class="break wide-page">
 <h2>8 Open items</h2>
 <h3>Notes and warnings</h3>
 ${htmlTable(["Source", "Item"], items.map(([a, b]) => [escapeHtml(a), escapeHtml(b)]), { className: "data notes" })}

@@ -30,7 +30,9 @@ thead { display: table-header-group; }
 tr { break-inside: avoid; }
 td.num, th.num { text-align: right; white-space: nowrap; }
 td.small, td.refs { font-size: 7.5pt; color: ${C.muted}; }
-td.refs a { color: ${C.muted}; text-decoration: none; }
+td.refs a { color: ${C.muted}; text-decoration: none; white-space: nowrap; }
+table.open td:nth-child(5) { width: 45%; }
+table.open td:nth-child(6) { width: 30%; }
 td.ref { white-space: nowrap; font-weight: 600; }
 table.data { font-size: 8.5pt; }
 table.verdicts td:nth-child(2), table.verdicts td:nth-child(3) { white-space: nowrap; }

@@ -32,7 +32,7 @@ export function timelineSection(project: Project, study: StudyResult, timelines:
       : `<p class="note">No device operates within ${formatNumber(t.horizon_s, 1)} s.</p>`;
     return `<div class="timeline-block">
 <h3>${escapeHtml(label)}</h3>
-<p><strong>${escapeHtml(t.summary)}</strong>. ${fails} failed verdict${fails === 1 ? "" : "s"} in this case. ${t.isolated ? `Isolated at ${formatNumber(t.clearedAt_s, 3)} s.` : `Not isolated within ${formatNumber(t.horizon_s, 1)} s.`}
+<p><strong>${escapeHtml(t.summary)}</strong>. ${fails} failed verdict${fails === 1 ? "" : "s"} in this case.
 De-energised: ${escapeHtml(t.deenergisedBuses.join(", ") || "none")} (${formatNumber(t.loadLost_kW, 0)} kW lost); ideal isolation by ${escapeHtml(t.ideal.devices.join(", ") || "–")}: ${escapeHtml(t.ideal.deenergisedBuses.join(", ") || "none")} (${formatNumber(t.ideal.loadLost_kW, 0)} kW).</p>
 ${events}
 </div>`;

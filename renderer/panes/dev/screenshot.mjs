@@ -114,6 +114,15 @@ try {
   console.log("legend click selects:", legendLog.selects.join(","));
   if (legendLog.selects.join(",") !== "Q-INC") problems.push("legend click did not select the device");
 
+  // Arrow keys on the focused plot change the highlighted device's setting, one final edit per press.
+  const keyLog = await shot("tcc-keys", "?pane=tcc", { width: 1366, height: 768 }, async (page) => {
+    await page.locator(".tcc-svg").focus();
+    await page.keyboard.press("ArrowRight");
+  });
+  console.log("arrow key:", JSON.stringify(keyLog.settings));
+  // the workshop feeder's Ir is 0.8 x 400 A = 320 A; one press raises it 5 % to 336 A
+  if (keyLog.settings.length !== 1 || keyLog.settings[0].patch.pickup_A !== 336 || !keyLog.settings[0].final) problems.push("arrow key did not raise the highlighted pickup by 5 %");
+
   // Empty states and a notice.
   await shot("empty", "?empty=1", { width: 1366, height: 768 });
 

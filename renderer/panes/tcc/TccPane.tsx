@@ -1,13 +1,14 @@
 // The time-current pane: log-log plot of the devices on the selected path as tolerance bands,
 // equipment withstand curves, inrush points and fault-current marks; pointer read-out; drag a curve
 // to change its pickup (horizontal) or time multiplier (vertical); export to SVG and PNG.
-import { useCallback, useEffect, useId, useMemo, useRef, useState, type PointerEvent as ReactPointerEvent } from "react";
+import { useCallback, useEffect, useId, useMemo, useRef, useState, type KeyboardEvent as ReactKeyboardEvent, type PointerEvent as ReactPointerEvent } from "react";
 import { scaleLog } from "d3";
 import type { TccBand, TccEquipmentCurve, TccExportFile, TccFaultMark, TccMarkerPoint, TccSettingPatch } from "./tccTypes.ts";
 import { toScreen } from "./bandPath.ts";
 import { autoCurrentDomain } from "./autoCurrentDomain.ts";
 import { hitTest, type HitTarget } from "./hitTest.ts";
 import { dragAxis, settingFromDrag, type DragAxis, type DragLimits } from "./dragSetting.ts";
+import { isNudgeKey, nudgeSetting } from "./nudgeSetting.ts";
 import { deviceColor } from "./deviceColors.ts";
 import { plotLayout } from "./plotLayout.ts";
 import { exportPlot } from "./svgExport.ts";
@@ -170,15 +171,30 @@ export function TccPane(props: TccPaneProps) {
     setDrag(null);
   }, [drag, bands, onSettingChange]);
 
-  // Escape abandons a drag wherever the keyboard focus is.
+  // Escape abandons a drag wherever the keyboard focus is; caught in the capture phase so the
+  // studio's own Escape (clear the fault, the selection) does not fire as well.
   useEffect(() => {
     if (!drag) return;
     const onKey = (e: KeyboardEvent) => {
-      if (e.key === "Escape") cancelDrag();
+      if (e.key !== "Escape") return;
+      e.preventDefault();
+      e.stopPropagation();
+      cancelDrag();
     };
-    window.addEventListener("keydown", onKey);
-    return () => window.removeEventListener("keydown", onKey);
+    window.addEventListener("keydown", onKey, true);
+    return () => window.removeEventListener("keydown", onKey, true);
   }, [drag, cancelDrag]);
+
+  // With the plot focused, arrow keys change the highlighted (else hovered) curve's setting: one edit per press.
+  const onKeyDown = (e: ReactKeyboardEvent<SVGSVGElement>) => {
+    if (!isNudgeKey(e.key) || drag || !onSettingChange) return;
+    const band = bands.find((b) => b.deviceId === highlightDeviceId && b.draggable) ?? (hoverIndex !== null ? bands[hoverIndex] : undefined);
+    if (!band) return;
+    const patch = nudgeSetting(band, e.key, e.shiftKey, props.dragLimits);
+    if (!patch) return;
+    e.preventDefault();
+    onSettingChange(band.deviceId, band.functionId, patch, { final: true });
+  };
 
   const startExport = async (kind: "svg" | "png") => {
     if (!svgRef.current || !onExport || busy) return;
@@ -231,7 +247,9 @@ export function TccPane(props: TccPaneProps) {
             height={layout.height}
             style={{ cursor }}
             role="img"
-            aria-label={`Time-current plot, currents at ${props.referenceVoltage_kV} kV`}
+            tabIndex={0}
+            aria-label={`Time-current plot, currents at ${props.referenceVoltage_kV} kV. Arrow keys change the highlighted curve: left and right its pickup, up and down its multiplier; Shift for larger steps.`}
+            onKeyDown={onKeyDown}
             onPointerDown={onPointerDown}
             onPointerMove={onPointerMove}
             onPointerUp={endDrag}

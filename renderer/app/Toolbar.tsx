@@ -109,6 +109,26 @@ export function Toolbar() {
           <option value="min">Minimum</option>
         </select>
         <button className="tool-button accent" onClick={faultAtSelection} title="F" data-testid="fault-here">Fault here</button>
+        {session.faultTarget?.kind === "line" && (
+          <label className="tool-check" title="Fault position along the line, percent of its length from its from-bus">
+            at
+            <input
+              type="number"
+              className="pct-input"
+              min={1}
+              max={99}
+              step={1}
+              value={session.faultTarget.pct}
+              aria-label="Fault position along the line"
+              onChange={(e) => {
+                const pct = Math.min(99, Math.max(1, Number(e.target.value) || 50));
+                const t = session.faultTarget;
+                if (t?.kind === "line") session.set({ faultTarget: { ...t, pct } });
+              }}
+            />
+            %
+          </label>
+        )}
         {session.faultTarget && (
           <button className="tool-button" onClick={() => session.set({ faultTarget: null })} title="Esc">Clear fault</button>
         )}

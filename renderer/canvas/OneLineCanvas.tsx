@@ -169,6 +169,12 @@ export function OneLineCanvas() {
         selectionKeyCode="Shift"
         multiSelectionKeyCode={["Shift", "Control", "Meta"]}
         onPaneClick={() => useSessionStore.getState().set({ selection: [] })}
+        onNodeDoubleClick={(_e, node) => {
+          // fault on click: a double click on a bus or a line places the fault there
+          if (node.type === "bus") useSessionStore.getState().set({ selection: [node.id], faultTarget: { kind: "bus", bus: node.id } });
+          else if (node.type === "branch" && node.data.element.kind === "line") useSessionStore.getState().set({ selection: [node.id], faultTarget: { kind: "line", line: node.id, pct: 50 } });
+        }}
+        zoomOnDoubleClick={false}
         onNodeClick={(e, node) => {
           // devices are not nodes: a plain click makes the clicked node the only selection
           if (e.shiftKey || e.ctrlKey || e.metaKey) return;

@@ -13,6 +13,7 @@ import { FieldList } from "./FieldList.tsx";
 import type { RowContext } from "./FieldRow.tsx";
 import { addElement, deviceLocationOn } from "../canvas/editCommands.ts";
 import { kindName } from "../canvas/newElement.ts";
+import { DEFAULT_BUS_WIDTH } from "../canvas/toFlow.ts";
 
 function commonSpecs(kinds: ElementKind[]): FieldSpec[] {
   const lists = kinds.map(fieldsOfKind);
@@ -99,6 +100,29 @@ export function Inspector() {
       )}
       <div className="inspector-body">
         <FieldList specs={specs} values={selected} path={[]} ctx={ctx} />
+        {host?.kind === "bus" && (
+          <div className="field-row" data-field="layout.w">
+            <label className="field-label" title="Length of the bar on the one-line (drawing only)">
+              Bar length on the drawing
+            </label>
+            <div className="field-control">
+              <input
+                className="field-input num"
+                aria-label="Bar length on the drawing"
+                key={`${host.id}-${doc.layout[host.id]?.w ?? DEFAULT_BUS_WIDTH}`}
+                defaultValue={doc.layout[host.id]?.w ?? DEFAULT_BUS_WIDTH}
+                onKeyDown={(e) => e.key === "Enter" && e.currentTarget.blur()}
+                onBlur={(e) => {
+                  const w = Number(e.target.value);
+                  const place = doc.layout[host.id];
+                  if (!(w >= 40 && w <= 5000) || !place || w === place.w) return;
+                  apply([{ type: "moveNodes", places: { [host.id]: { ...place, w } } }], { undoable: true });
+                }}
+              />
+              <span className="field-unit">px</span>
+            </div>
+          </div>
+        )}
         {host && host.kind !== "bus" && !isProtectiveDevice(host) && (
           <fieldset className="field-group">
             <legend>Protection</legend>

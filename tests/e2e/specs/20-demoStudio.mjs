@@ -120,11 +120,29 @@ export const steps = [
       const page = t.state.page;
       await select(page, "C-MS");
       await page.keyboard.press("f");
-      const ikss = await faultLabel_kA(page);
-      assert.ok(ikss > 0, "a current is shown at the cable");
+      const at50 = await faultLabel_kA(page);
+      assert.ok(at50 > 0, "a current is shown at the cable");
       await page.screenshot({ path: join(t.artifacts, "20-cable-fault.png") });
+      await page.getByLabel("Fault position along the line").fill("90");
+      await page.waitForFunction((before) => {
+        const m = /([0-9.]+)\s*kA/.exec(document.querySelector('[data-testid="fault-ikss"]')?.textContent ?? "");
+        return m !== null && Number(m[1]) !== before;
+      }, at50);
+      const at90 = await faultLabel_kA(page);
+      // further along a radial cable from the source, more cable impedance is in series: less current
+      assert.ok(at90 < at50, `I"k at 90 % (${at90} kA) is below I"k at 50 % (${at50} kA)`);
+      await page.evaluate(() => document.activeElement?.blur()); // Esc inside a field belongs to the field
       await page.keyboard.press("Escape");
       await page.locator('[data-testid="fault-ikss"]').waitFor({ state: "detached" });
+    },
+  },
+  {
+    name: "faults a bus with a double click",
+    async run(t) {
+      const page = t.state.page;
+      await page.locator('[data-element="LV-B"] .bus-bar').dblclick({ force: true });
+      await page.locator('[data-element="LV-B"] [data-testid="fault-ikss"]').waitFor();
+      assert.ok((await faultLabel_kA(page)) > 0);
       assert.deepEqual(t.state.problems, [], "no page errors");
     },
   },

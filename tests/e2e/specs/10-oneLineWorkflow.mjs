@@ -104,6 +104,23 @@ export const steps = [
     },
   },
   {
+    name: "shows a bad value's message beside its field and keeps the work",
+    async run(t) {
+      const page = t.state.page;
+      await select(page, "C1");
+      await setField(page, "Route length", -3);
+      const message = page.locator('[data-field="length_km"] [data-testid="field-message"]');
+      await message.waitFor();
+      const text = await message.textContent();
+      assert.match(text, /C1/, "names the element");
+      assert.match(text, /length_km/, "names the field");
+      assert.equal(await page.getByLabel("Route length", { exact: true }).inputValue(), "-3", "the entered value is kept for correction");
+      await page.screenshot({ path: join(t.artifacts, "10-02b-bad-value.png") });
+      await setField(page, "Route length", 0.1);
+      await message.waitFor({ state: "detached" });
+    },
+  },
+  {
     name: "takes the genset out in the operating mode",
     async run(t) {
       const page = t.state.page;

@@ -206,10 +206,10 @@ describe("random cases cover what they claim", () => {
   });
 });
 
-describe("known gap, reported to the engine: a cable whose two ends a closed coupler joins", () => {
-  // The engine leaves such a cable out ("both ends on the same node") and refuses a fault along it, while the
-  // physical fault draws current into the cable from both ends. Marked as an expected failure so that the fix shows.
-  it.fails("faults a point along a cable that runs in parallel with a closed bus coupler", () => {
+describe("a cable whose two ends a closed coupler joins", () => {
+  // The cable carries no current for bus faults, but a fault along it draws current into it from both ends
+  // (found by this comparison; the engine was fixed to keep such cables for line faults).
+  it("faults a point along a cable that runs in parallel with a closed bus coupler", () => {
     const project = miniProject([
       { kind: "bus", id: "B0", un_kV: 11 },
       { kind: "bus", id: "B1", un_kV: 11 },

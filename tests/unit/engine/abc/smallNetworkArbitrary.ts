@@ -81,7 +81,6 @@ export function smallCase(seed: number, meshed: boolean, offNominal = false): Sm
   };
   const lines: string[] = [];
   const branches: string[] = [];
-  const group: number[] = [0]; // buses joined by closed couplers share a group
   for (let i = 1; i < n; i++) {
     const parent = Math.floor(r() * i);
     el.push({ kind: "bus", id: `B${i}`, name: `Bus ${i}`, un_kV: 0 }); // voltage filled below
@@ -105,7 +104,6 @@ export function smallCase(seed: number, meshed: boolean, offNominal = false): Sm
       un.push(un[parent]);
       shift.push(shift[parent]);
       el.push({ kind: "switch", id: `S${i}`, name: `Coupler ${i}`, device: "breaker", busA: `B${parent}`, busB: `B${i}`, closed: true });
-      group[i] = group[parent];
     } else {
       un.push(un[parent]);
       shift.push(shift[parent]);
@@ -114,14 +112,13 @@ export function smallCase(seed: number, meshed: boolean, offNominal = false): Sm
       branches.push(`L${i}`);
     }
     busRec.un_kV = un[i];
-    if (group[i] === undefined) group[i] = i;
   }
   if (meshed) {
     const ties = 1 + Math.floor(r() * 2);
     for (let k = 0; k < ties; k++) {
       const a = Math.floor(r() * n);
-      // Not across a closed coupler: a cable whose ends are one node is a separate, known case (see the tests).
-      const same = [...Array(n).keys()].filter((b) => group[b] !== group[a] && un[b] === un[a] && ((shift[b] - shift[a]) % 360 + 360) % 360 === 0);
+      // Possibly across a closed coupler: a cable whose two ends are one node is a case of its own.
+      const same = [...Array(n).keys()].filter((b) => b !== a && un[b] === un[a] && ((shift[b] - shift[a]) % 360 + 360) % 360 === 0);
       if (same.length === 0) continue;
       const b = pick(same);
       if (r() < 0.25) {

@@ -4,9 +4,10 @@
 // PDF and PNG are printed by headless Chromium at /usr/bin/chromium through playwright-core.
 import { createHash } from "node:crypto";
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
-import { dirname, basename, join } from "node:path";
-import { fileURLToPath } from "node:url";
+import { basename, join } from "node:path";
 import type { CliCommand } from "../command.ts";
+// bundled into the packaged CLI, so the version travels with it
+import packageJson from "../../../package.json" with { type: "json" };
 import { loadProject } from "../../model/projectFile.ts";
 import { studyProject } from "../../study/studyProject.ts";
 import type { ClearingTimeline } from "../../study/types.ts";
@@ -62,20 +63,6 @@ export function parseReportArgs(args: readonly string[]): { ok: true; value: Rep
   return { ok: true, value: { file: files[0], out, formats, page, date, allPasses } };
 }
 
-/** Islet's version from the package.json above this file. */
-function isletVersion(): string {
-  let dir = dirname(fileURLToPath(import.meta.url));
-  for (let k = 0; k < 6; k++) {
-    const p = join(dir, "package.json");
-    if (existsSync(p)) {
-      const pkg = JSON.parse(readFileSync(p, "utf8")) as { name?: string; version?: string };
-      if (pkg.name === "islet" && pkg.version) return pkg.version;
-    }
-    dir = dirname(dir);
-  }
-  return "unknown";
-}
-
 /** Timelines of the worst failed bus faults, each from a narrow study of that one case. */
 async function failureTimelines(project: Parameters<typeof studyProject>[0], study: Awaited<ReturnType<typeof studyProject>>): Promise<ClearingTimeline[]> {
   const out: ClearingTimeline[] = [];
@@ -126,7 +113,7 @@ export const reportCommand: CliCommand = {
       faults: faultTable(project),
       meta: {
         date: parsed.value.date ?? new Date().toISOString().slice(0, 10),
-        version: isletVersion(),
+        version: packageJson.version,
         fileName: basename(file),
         fileSha256: createHash("sha256").update(bytes).digest("hex"),
       },
@@ -152,7 +139,9 @@ export const reportCommand: CliCommand = {
     if (formats.has("svg") || formats.has("png")) mkdirSync(join(out, "plots"), { recursive: true });
     if (formats.has("svg")) for (const p of report.plots) write(join("plots", `${p.name}.svg`), p.svg);
     if (needsBrowser) {
-      const { chromium } = await import("playwright-core");
+      // loaded at run time from node_modules (never bundled): it finds its own files next to it
+      const moduleName = "playwright-core";
+      const { chromium } = (await import(moduleName)) as typeof import("playwright-core");
       const browser = await chromium.launch({ executablePath: CHROMIUM_PATH, args: CHROMIUM_ARGS });
       try {
         if (formats.has("pdf")) {

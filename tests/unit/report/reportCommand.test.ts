@@ -68,6 +68,9 @@ describe("islet report", () => {
     // the cover carries the file's SHA-256 (node:crypto here, as an independent computation of the same hash)
     const sha = createHash("sha256").update(readFileSync(demoPath)).digest("hex");
     expect(readFileSync(join(a, "report.html"), "utf8")).toContain(sha);
+    const version = JSON.parse(readFileSync(join(root, "package.json"), "utf8")).version;
+    expect(readFileSync(join(a, "report.html"), "utf8")).toContain(`<dt>Islet version</dt><dd>${version}</dd>`);
+    expect(readFileSync(join(a, "report.html"), "utf8")).toContain("<dt>Report date</dt><dd>2026-03-04</dd>");
     expect(readFileSync(join(a, "faults.csv"), "utf8").split("\r\n")[0]).toBe("scenario_id,scenario_name,limit,bus_id,bus_name,un_kV,ikss_3ph_kA,ikss_LL_kA,ikss_LG_kA,ikss_LLG_kA,ip_3ph_kA,xr_3ph");
   }, 600_000);
 

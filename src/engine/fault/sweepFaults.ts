@@ -8,7 +8,7 @@ import type { CompiledNetwork, EngineMessage, FaultType, SweepOptions, SweepResu
 import { FAULT_TYPES } from "../types.ts";
 import type { Cx } from "../network/model.ts";
 import { sequenceSystem, type SequenceSystem } from "../network/sequenceSystem.ts";
-import { compactUnits, solveCompactFault, unitColumns, type CompactFaultInput } from "./compactFault.ts";
+import { compactAffineMap, compactUnits, solveCompactFault, unitColumns, type CompactFaultInput } from "./compactFault.ts";
 import { solveLdlt } from "../sparse/ldlt.ts";
 import { inverseSubset, type InverseSubset } from "../sparse/takahashi.ts";
 import { deviceCombination } from "./deviceCombination.ts";
@@ -151,7 +151,7 @@ export function sweepFaults(network: CompiledNetwork, options: SweepOptions = {}
         });
         fp = solveCompact(type, inj1, inj2);
       } else {
-        const r = refinedIteration(cUnits, Jl, vpreC, (a, bb) => solveCompact(type, a, bb));
+        const r = refinedIteration(cUnits, Jl, vpreC, (a, bb) => solveCompact(type, a, bb), compactAffineMap({ ...cin, type }));
         fp = r.fault;
         // Per-unit injections (grid-forming: the limiting correction; the shunt part is in the transfer).
         [inj1, inj2] = r.inj;

@@ -10,11 +10,13 @@
 //  grid-forming: a voltage source (the prefault voltage) behind zForming, stamped in the refined networks (positive
 //    and negative sequence); when its largest phase current exceeds iMax Ir, extra injections scale its positive and
 //    negative-sequence currents down together to the limit.
-// The network response is affine in the injections, so it is sampled once (2J + 1 solutions for J units) and the
+// The network response is affine in the injections, so it is sampled once (2J + 1 solutions for J units, or given in
+// closed form by the caller) and the
 // damped fixed-point iteration runs on that small map; the damping halves whenever the residual grows.
 import type { InverterUnit } from "../network/model.ts";
 import type { ComplexVec, LinearFault } from "../fault/solveLinearFault.ts";
 import type { InverterUnitResult } from "../types.ts";
+import type { AffineMap } from "../fault/compactFault.ts";
 
 export const MAX_ITERATIONS = 2000;
 export const TOLERANCE_PU = 1e-11;
@@ -99,38 +101,46 @@ function targets(units: InverterUnit[], v1s: C[], v2s: C[], vext: C[], vpre: Flo
   return t;
 }
 
-export function refinedIteration(units: InverterUnit[], n: number, vpre: Float64Array, solve: (inj1: ComplexVec, inj2: ComplexVec) => LinearFault): RefinedOutcome {
+/** Samples the affine response V = a + M x at the unit nodes with 2J + 1 network solutions. */
+function sampleMap(units: InverterUnit[], n: number, solve: (inj1: ComplexVec, inj2: ComplexVec) => LinearFault): AffineMap {
   const J = units.length;
   const vec = () => ({ re: new Float64Array(n), im: new Float64Array(n) });
   const at = (f: LinearFault, s: 1 | 2, u: InverterUnit): C => ({ re: f.v[s].re[u.node], im: f.v[s].im[u.node] });
-  // Sample the affine response V = a + M x at the unit nodes.
   const base = solve(vec(), vec());
   const a1 = units.map((u) => at(base, 1, u));
   const a2 = units.map((u) => at(base, 2, u));
-  const m1: C[][] = [];
-  const m2: C[][] = [];
+  const M1r = new Float64Array(2 * J * J);
+  const M1i = new Float64Array(2 * J * J);
+  const M2r = new Float64Array(2 * J * J);
+  const M2i = new Float64Array(2 * J * J);
   for (let q = 0; q < 2 * J; q++) {
     const i1 = vec();
     const i2 = vec();
     const u = units[q % J];
     (q < J ? i1 : i2).re[u.node] = 1;
     const f = solve(i1, i2);
-    m1.push(units.map((w, j) => ({ re: f.v[1].re[w.node] - a1[j].re, im: f.v[1].im[w.node] - a1[j].im })));
-    m2.push(units.map((w, j) => ({ re: f.v[2].re[w.node] - a2[j].re, im: f.v[2].im[w.node] - a2[j].im })));
+    units.forEach((w, j) => {
+      M1r[q * J + j] = f.v[1].re[w.node] - a1[j].re;
+      M1i[q * J + j] = f.v[1].im[w.node] - a1[j].im;
+      M2r[q * J + j] = f.v[2].re[w.node] - a2[j].re;
+      M2i[q * J + j] = f.v[2].im[w.node] - a2[j].im;
+    });
   }
-  // Flattened response matrices: [q * J + j] for injection q (0..2J-1) and unit j.
-  const M1r = new Float64Array(2 * J * J);
-  const M1i = new Float64Array(2 * J * J);
-  const M2r = new Float64Array(2 * J * J);
-  const M2i = new Float64Array(2 * J * J);
-  for (let q = 0; q < 2 * J; q++) {
-    for (let j = 0; j < J; j++) {
-      M1r[q * J + j] = m1[q][j].re;
-      M1i[q * J + j] = m1[q][j].im;
-      M2r[q * J + j] = m2[q][j].re;
-      M2i[q * J + j] = m2[q][j].im;
-    }
-  }
+  return { a1, a2, M1r, M1i, M2r, M2i };
+}
+
+/** `precomputed`: the affine map when the caller has it in closed form (see compactAffineMap). */
+export function refinedIteration(
+  units: InverterUnit[],
+  n: number,
+  vpre: Float64Array,
+  solve: (inj1: ComplexVec, inj2: ComplexVec) => LinearFault,
+  precomputed?: AffineMap,
+): RefinedOutcome {
+  const J = units.length;
+  const vec = () => ({ re: new Float64Array(n), im: new Float64Array(n) });
+  const map = precomputed ?? sampleMap(units, n, solve);
+  const { a1, a2, M1r, M1i, M2r, M2i } = map;
   const evalV = (x1: C[], x2: C[]) => {
     const v1 = a1.map((a) => ({ ...a }));
     const v2 = a2.map((a) => ({ ...a }));
@@ -159,7 +169,7 @@ export function refinedIteration(units: InverterUnit[], n: number, vpre: Float64
   let t = targets(units, e.v1, e.v2, e.vext, vpre);
   x1 = t.x1;
   x2 = t.x2;
-  let alpha = 0.5;
+  let alpha = 1;
   let residual = Infinity;
   let previous = Infinity;
   let it = 0;

@@ -1,13 +1,14 @@
 // The engine's IEC 60909 method against the phase-domain reference. With nominal transformer ratios and no loads,
-// the equivalent voltage source c Un / sqrt(3) at the fault (IEC 60909-0:2016, 4.3.1) gives the same currents as a
+// the equivalent voltage source c Un / sqrt(3) at the fault (IEC 60909-0:2016) gives the same currents as a
 // phase-domain solution in which every source's internal voltage is c, so the reference only needs the corrected
 // impedances. The corrections are computed here from the standard's formulas, not taken from the engine:
 //   c: IEC 60909-0:2016, Table 1 (LV with +10 % tolerance: cmax 1.10, cmin 0.95; MV: cmax 1.10, cmin 1.00);
-//   grid feeder ZQ = cQ UnQ^2 / S"kQ (eq. 10), cQ of the feeder's own voltage level and limit;
-//   network transformers KT = 0.95 cmax / (1 + 0.6 xT) (eq. 12a), cmax of the LV side, also on Z0;
-//   generators KG = (Un / UrG) cmax / (1 + x"d sin phi_rG) (eq. 18), on Z1, Z2 and Z0 but not the earthing impedance;
-//   minimum currents: line resistance at the end-of-fault temperature, R = R20 (1 + 0.004/K (theta_e - 20 C)) (eq. 31),
-//   and asynchronous motors left out.
+//   network feeder ZQ = cQ UnQ^2 / S"kQ, cQ of the feeder's own voltage level and limit (IEC 60909-0:2016);
+//   network transformers KT = 0.95 cmax / (1 + 0.6 xT), cmax of the LV side, also on Z0 (IEC 60909-0:2016);
+//   generators KG = (Un / UrG) cmax / (1 + x"d sin phi_rG) on Z1, Z2 and Z0 but not on the earthing impedance
+//   (// from memory, as listed in /work/shared/reference-checks.md);
+//   minimum currents: line resistance at the end-of-fault temperature, R = R20 (1 + 0.004/K (theta_e - 20 C))
+//   (// from memory), and asynchronous motors left out.
 import { describe, it, expect } from "vitest";
 import fc from "fast-check";
 import { complex, type Complex } from "mathjs";

@@ -56,13 +56,15 @@ describe("phase-domain reference: published worked examples", () => {
   });
 });
 
-describe("phase-domain reference: closed-form sequence formulas (Fortescue; Glover, Sarma, Overbye, ch. 9)", () => {
+// Closed forms: sequence-network connections for each fault type (Fortescue 1918; the standard textbook derivations,
+// e.g. Glover, Sarma, Overbye, "Power System Analysis and Design", chapter on unsymmetrical faults; // from memory).
+describe("phase-domain reference: closed-form sequence formulas", () => {
   const Zq1 = gridZ(0.5, 0.1);
   const Zq0 = gridZ(0.8, 0.2);
   const grid = gridWith("A", 0.5, 0.8, 0.1, 0.2);
 
   it("gives a line-to-line fault sqrt(3)/2 times the three-phase fault when Z1 = Z2", () => {
-    // textbook relation I"k2 = (sqrt 3 / 2) I"k3 (IEC 60909-0 eq. for I"k2 with Z2 = Z1)
+    // textbook relation I"k2 = (sqrt 3 / 2) I"k3 (IEC 60909-0:2016, I"k2 with Z2 = Z1)
     const p = miniProject([{ kind: "bus", id: "A", un_kV: 11 }, grid]);
     const i3 = abs(phaseDomainFault(p, { bus: "A", type: "3ph" }).fault_kA[0]) as unknown as number;
     const i2 = abs(phaseDomainFault(p, { bus: "A", type: "LL" }).fault_kA[1]) as unknown as number;
@@ -99,7 +101,7 @@ describe("phase-domain reference: closed-form sequence formulas (Fortescue; Glov
     const s = phaseDomainFault(p, { bus: "B", type: "LG" });
     const zT = c(1.2 / 0.63, Math.sqrt(6 * 6 - 1.2 * 1.2) / 0.63); // pu of 100 MVA
     it("matches I = 3 E / (2 Z1 + Z0) with Z1 = Zq + ZT and Z0 = 0.85 ZT (the delta blocks the grid's zero sequence)", () => {
-      // IEC 60909-0:2016 eq. for I"k1 = sqrt(3) c Un / |2 Z1 + Z0| in its pu form; c = 1 here.
+      // IEC 60909-0:2016, line-to-earth fault: I"k1 = sqrt(3) c Un / |2 Z1 + Z0|, here in pu with c = 1.
       const expected = cdiv(c(3), cadd(cmul(2, cadd(Zq1, zT)), cmul(0.85, zT)));
       expectComplex(cmul(1000 / baseA(0.4), s.fault_kA[0]), expected, 1e-9);
     });
@@ -114,7 +116,7 @@ describe("phase-domain reference: closed-form sequence formulas (Fortescue; Glov
   });
 
   it("adds three times each neutral impedance to the zero sequence of a YNyn0 transformer", () => {
-    // Zero-sequence network of YNyn with earthing impedances: Zq0 + 3 Zn_hv + ZT0 + 3 Zn_lv (Glover ch. 8, Anderson ch. 3).
+    // Zero-sequence network of YNyn with earthing impedances: Zq0 + 3 Zn_hv + ZT0 + 3 Zn_lv (textbook zero-sequence equivalents of transformer connections; // from memory).
     const p = miniProject([
       { kind: "bus", id: "A", un_kV: 11 },
       { kind: "bus", id: "B", un_kV: 0.4 },

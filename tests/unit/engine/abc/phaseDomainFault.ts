@@ -4,12 +4,12 @@
 // Transformers are three single-phase winding pairs wired as the vector group says (a delta winding is a real
 // phase-to-phase connection, so the 30-degree shifts come out of the wiring, not out of a table).
 // Method: the classic one with every source's internal voltage equal to the prefault voltage, positive sequence,
-// no IEC 60909 correction factors, loads neglected (IEC 60909-0:2016, 3.x: non-motor loads are neglected).
+// no IEC 60909 correction factors, non-motor loads neglected as IEC 60909-0:2016 does.
 // Sources: Fortescue 1918 (symmetrical components); modified nodal analysis (Ho, Ruehli, Brennan, IEEE Trans.
 // Circuits and Systems 1975) for zero-impedance branches; independent computation with mathjs.
 import { add, complex, divide, inv, lusolve, multiply, subtract, type Complex } from "mathjs";
 import type { Element, Project, VectorGroup } from "../../../../src/model/schema.ts";
-import { A_INVERSE, type CMatrix, selfMutual, sequenceToPhase } from "./symmetricalComponents.ts";
+import { type CMatrix, selfMutual, sequenceToPhase } from "./symmetricalComponents.ts";
 
 export type PhaseFaultType = "3ph" | "LL" | "LG" | "LLG";
 
@@ -444,6 +444,3 @@ export function phaseDomainFault(project: Project, fault: PhaseFault, options: P
   return { busVoltage_pu, fault_kA, ends: phaseEnds, shift_deg };
 }
 
-/** [I0, I1, I2] of a phase triple, re-exported for tests that compare sequences. */
-export { phaseToSequence } from "./symmetricalComponents.ts";
-export const SEQ_FROM_PHASE = A_INVERSE;

@@ -9,7 +9,8 @@ export function FaultView() {
   const target = useSessionStore((s) => s.faultTarget);
   if (!target) return <p className="pane-empty">Select a bus (or a cable) and press F, or use "Fault here", to see the fault currents on the one-line.</p>;
   if (status === "error") return <p className="pane-empty msg-error">{error}</p>;
-  if (!overlay || !result) return <p className="pane-empty">Calculating…</p>;
+  // while a recalculation runs the previous figures stay up, so the pane does not flicker on every edit
+  if (!overlay || !result) return <p className="pane-empty">{status === "running" ? "Calculating…" : "No result yet."}</p>;
   return (
     <div className="fault-view" data-testid="fault-view">
       <h3>{overlay.label}</h3>

@@ -83,7 +83,7 @@ describe("generateRadialNetwork", () => {
 
   it("sets relay phase pickups that a three-phase fault at the far end of the relay's cable exceeds by 1.5x, even islanded", () => {
     // Independent check: complex series impedance from the generator (the weaker source) to the cable's far bus,
-    // I"k = c U / (sqrt(3) |Z|) with c = 0.95 (IEC 60909-0:2016, eq. (29) form; cmin of Table 1 for LV, conservative for MV).
+    // I"k = c U / (sqrt(3) |Z|) with c = 0.95 (IEC 60909-0:2016 three-phase formula; cmin of Table 1 for LV, below cmin for MV).
     // Margin 1.5 // common practice: end-of-zone fault current at least 1.5-2x pickup.
     const p = generateRadialNetwork({ buses: 300, devices: 120, seed: 21 });
     const sBase = p.meta.baseMVA;

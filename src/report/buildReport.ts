@@ -8,7 +8,7 @@ import { faultSection } from "./faultSection.ts";
 import { faultsCsv } from "./faultsCsv.ts";
 import { oneLineSvg } from "./oneLineSvg.ts";
 import { openItemsSection } from "./openItemsSection.ts";
-import { pathPlot } from "./pathPlot.ts";
+import { groundPlotWanted, pathPlot } from "./pathPlot.ts";
 import { protectionPaths } from "./protectionPaths.ts";
 import { REPORT_CAUTION } from "./reportCaution.ts";
 import { reportCss } from "./reportCss.ts";
@@ -41,14 +41,19 @@ export function buildReport(input: ReportInput): ReportOutput {
   const scenarioName = new Map(project.scenarios.map((s) => [s.id, s.name] as const));
 
   const oneLine: ReportPlot = { name: "oneline", title: `One-line diagram of ${project.meta.name}`, svg: oneLineSvg(project) };
-  const entries: PlotEntry[] = protectionPaths(study.cases).map((path, k) => {
-    const { input: plotInput, problems } = pathPlot(project, path, k + 1);
-    return {
-      plot: { name: `path-${String(k + 1).padStart(2, "0")}`, title: plotInput.title, svg: tccPlotSvg(plotInput) },
-      path,
-      scenarioNames: path.scenarios.map((s) => scenarioName.get(s) ?? s),
-      problems,
-    };
+  const entries: PlotEntry[] = protectionPaths(study.cases).flatMap((path, k) => {
+    const name = `path-${String(k + 1).padStart(2, "0")}`;
+    // an earth-fault plot where a device at the primary's voltage has an element on residual current
+    const quantities: ("phase" | "ground")[] = groundPlotWanted(project, path) ? ["phase", "ground"] : ["phase"];
+    return quantities.map((q) => {
+      const { input: plotInput, problems } = pathPlot(project, path, k + 1, q);
+      return {
+        plot: { name: q === "phase" ? name : `${name}-earth`, title: plotInput.title, svg: tccPlotSvg(plotInput) },
+        path,
+        scenarioNames: path.scenarios.map((s) => scenarioName.get(s) ?? s),
+        problems,
+      };
+    });
   });
   const timelines = failedTimelines(study, input.extraTimelines);
 

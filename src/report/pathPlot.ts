@@ -30,15 +30,37 @@ export interface PathPlot {
   problems: string[];
 }
 
-export function pathPlot(project: Project, path: ProtectionPath, index: number): PathPlot {
+/** True when the device has an element on residual current (51N/50N/67N, an LV ground-fault region). */
+export function groundPlotWanted(project: Project, path: ProtectionPath): boolean {
+  const byId = new Map<string, Element>(project.elements.map((e) => [e.id, e] as const));
+  const devices = path.devices.map((id) => byId.get(id)).filter((e): e is ProtectiveDevice => !!e && isProtectiveDevice(e));
+  const kv = (d: ProtectiveDevice) => {
+    const b = deviceBus(d, byId);
+    const bus = b ? byId.get(b) : undefined;
+    return bus?.kind === "bus" ? bus.un_kV : undefined;
+  };
+  return devices.length > 0 && devices.filter((d) => kv(d) === kv(devices[0])).some(hasGroundElement);
+}
+
+export function hasGroundElement(d: ProtectiveDevice): boolean {
+  if (d.kind === "relay") return d.functions.some((f) => f.enabled && f.quantity === "residual");
+  return d.kind === "lvbreaker" && d.groundFault !== undefined;
+}
+
+/** Phase plots draw phase elements against phase current; ground plots draw earth-fault elements (or, for a
+ * device without one, the phase elements that clear the fault) against residual current 3I0. */
+export function pathPlot(project: Project, path: ProtectionPath, index: number, quantity: "phase" | "ground" = "phase"): PathPlot {
   const byId = new Map<string, Element>(project.elements.map((e) => [e.id, e] as const));
   const kvOf = (d: ProtectiveDevice) => {
     const b = deviceBus(d, byId);
     const bus = b ? byId.get(b) : undefined;
     return bus?.kind === "bus" ? bus.un_kV : undefined;
   };
-  const devices = path.devices.map((id) => byId.get(id)).filter((e): e is ProtectiveDevice => !!e && isProtectiveDevice(e));
-  const reference_kV = (devices.length ? kvOf(devices[0]) : undefined) ?? 1;
+  const all = path.devices.map((id) => byId.get(id)).filter((e): e is ProtectiveDevice => !!e && isProtectiveDevice(e));
+  const reference_kV = (all.length ? kvOf(all[0]) : undefined) ?? 1;
+  // residual current does not refer across a transformer by its voltage ratio (a delta winding blocks it),
+  // so an earth-fault plot keeps the devices at the primary device's voltage
+  const devices = quantity === "ground" ? all.filter((d) => kvOf(d) === reference_kV) : all;
   const problems: string[] = [];
 
   // current range: a decade below the lowest pickup to a decade above the largest fault current
@@ -46,14 +68,16 @@ export function pathPlot(project: Project, path: ProtectionPath, index: number):
   let hi = 0;
   for (const d of devices) {
     try {
-      const band = sampleCurve(d, { quantity: "phase", device_kV: kvOf(d), reference_kV, pointsPerDecade: 8 });
+      const band = sampleCurve(d, { quantity, device_kV: kvOf(d), reference_kV, pointsPerDecade: 8 });
       for (const [i] of band.min) lo = Math.min(lo, i);
       for (const [i] of band.max) hi = Math.max(hi, i / 10);
     } catch {
       // reported below when the full curve is drawn
     }
   }
-  if (path.primaryMax_A) hi = Math.max(hi, path.primaryMax_A);
+  const markMax = quantity === "phase" ? path.primaryMax_A : path.residualMax_A;
+  const markMin = quantity === "phase" ? path.primaryMin_A : path.residualMin_A;
+  if (markMax) hi = Math.max(hi, markMax);
   if (!Number.isFinite(lo)) lo = 1;
   let dLo = Math.floor(Math.log10(lo));
   let dHi = Math.ceil(Math.log10(Math.max(hi * 1.5, lo * 100)));
@@ -63,12 +87,12 @@ export function pathPlot(project: Project, path: ProtectionPath, index: number):
   const iMax_A = Math.pow(10, dHi);
 
   const curves: TccPlotInput["curves"] = [];
-  devices.forEach((d, k) => {
+  devices.forEach((d) => {
     const kv = kvOf(d);
     const scale = referScale(kv, reference_kV);
     try {
       const band = sampleCurve(d, {
-        quantity: "phase",
+        quantity,
         device_kV: kv,
         reference_kV,
         iMin_A: iMin_A / scale,
@@ -79,8 +103,10 @@ export function pathPlot(project: Project, path: ProtectionPath, index: number):
         pointsPerDecade: 40,
       });
       if (band.nominal.length === 0) return;
-      const role = k === 0 ? "primary" : k === 1 ? "backup" : `backup ${k}`;
-      curves.push({ label: `${d.id} (${role}${kv !== undefined && kv !== reference_kV ? `, at ${kv} kV` : ""})`, color: PATH_COLORS[k % PATH_COLORS.length], ...band });
+      const depth = all.indexOf(d);
+      const role = depth === 0 ? "primary" : depth === 1 ? "backup" : `backup ${depth}`;
+      const phaseOnly = quantity === "ground" && !hasGroundElement(d) ? ", phase elements" : "";
+      curves.push({ label: `${d.id} (${role}${phaseOnly}${kv !== undefined && kv !== reference_kV ? `, at ${kv} kV` : ""})`, color: PATH_COLORS[all.indexOf(d) % PATH_COLORS.length], ...band });
     } catch (err) {
       problems.push(err instanceof Error ? err.message : String(err));
     }
@@ -94,7 +120,7 @@ export function pathPlot(project: Project, path: ProtectionPath, index: number):
     if (!host || seen.has(host.id)) continue;
     seen.add(host.id);
     try {
-      if (host.kind === "transformer") {
+      if (host.kind === "transformer" && quantity === "phase") {
         const side = d.at.end === "to" ? "lv" : "hv";
         const u_kV = side === "hv" ? host.urHv_kV : host.urLv_kV;
         const ir = ratedCurrent_A(host.sr_MVA, u_kV);
@@ -111,7 +137,7 @@ export function pathPlot(project: Project, path: ProtectionPath, index: number):
         references.push({ label: `${host.id} cable withstand (k ${Math.round(kk)})`, points: refer(cableWithstandCurve(kk, host.csa_mm2, host.parallel), referScale(kv, reference_kV)), style: "damage" });
         const far = byId.get(host.toBus === b ? host.fromBus : host.toBus);
         for (const m of project.elements)
-          if (m.kind === "motor" && far && m.bus === far.id) {
+          if (m.kind === "motor" && far && m.bus === far.id && quantity === "phase") {
             const irm = m.pr_kW / (m.eta * m.cosPhi) / (Math.sqrt(3) * m.ur_kV);
             const start = motorStarting({ ratedCurrent_A: irm, ilrIr: m.ilrIr, start_s: m.start_s });
             references.push({ label: `${m.id} starting`, points: refer(start.curve, referScale(m.ur_kV, reference_kV)), style: "start" });
@@ -123,12 +149,13 @@ export function pathPlot(project: Project, path: ProtectionPath, index: number):
   }
 
   const marks: TccPlotInput["marks"] = [];
-  if (path.primaryMax_A !== null) marks.push({ label: "max", current_A: path.primaryMax_A });
-  if (path.primaryMin_A !== null && path.primaryMin_A !== path.primaryMax_A) marks.push({ label: "min", current_A: path.primaryMin_A });
+  if (markMax !== null) marks.push({ label: "max", current_A: markMax });
+  if (markMin !== null && markMin !== markMax) marks.push({ label: "min", current_A: markMin });
 
   return {
     input: {
-      title: `Path ${index}: ${path.devices.join(" → ")}`,
+      title: `Path ${index}${quantity === "ground" ? " (earth faults)" : ""}: ${path.devices.join(" → ")}`,
+      currentLabel: quantity === "ground" ? "Residual current 3I0" : "Current",
       reference_kV,
       iMin_A,
       iMax_A,

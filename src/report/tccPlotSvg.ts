@@ -25,6 +25,8 @@ export interface TccMark {
 }
 export interface TccPlotInput {
   title: string;
+  /** What the current axis measures, e.g. "Current" or "Residual current 3I0". Default "Current". */
+  currentLabel?: string;
   reference_kV: number;
   iMin_A: number;
   iMax_A: number;
@@ -84,7 +86,7 @@ export function tccPlotSvg(p: TccPlotInput): string {
   out.push(`<g class="grid">${grid.join("")}</g>`, `<g class="ticks">${ticks.join("")}</g>`);
   out.push(
     `<rect x="${PLOT.left}" y="${PLOT.top}" width="${PLOT.width}" height="${PLOT.height}" fill="none" stroke="${REPORT_COLORS.ink}" stroke-width="1"/>`,
-    svgText(PLOT.left + PLOT.width / 2, H - 12, `Current in A at ${trim(p.reference_kV)} kV`, `font-size="11" text-anchor="middle" fill="${REPORT_COLORS.ink}"`),
+    svgText(PLOT.left + PLOT.width / 2, H - 12, `${p.currentLabel ?? "Current"} in A at ${trim(p.reference_kV)} kV`, `font-size="11" text-anchor="middle" fill="${REPORT_COLORS.ink}"`),
     svgText(16, PLOT.top + PLOT.height / 2, "Time in s", `font-size="11" text-anchor="middle" fill="${REPORT_COLORS.ink}" transform="rotate(-90 16 ${PLOT.top + PLOT.height / 2})"`),
   );
   const body: string[] = [];
@@ -114,7 +116,8 @@ export function tccPlotSvg(p: TccPlotInput): string {
     if (!inside(m.current_A)) return;
     const x = X(m.current_A);
     body.push(`<path d="M${n(x)} ${PLOT.top}V${PLOT.top + PLOT.height}" stroke="${REPORT_COLORS.fail}" stroke-width="1.2" stroke-dasharray="4 3"/>`);
-    markLabels.push(svgText(x + 3, PLOT.top + 12 + 12 * k, `${m.label} ${sig(m.current_A)} A`, `font-size="9.5" fill="${REPORT_COLORS.fail}"`));
+    const right = x > PLOT.left + 0.8 * PLOT.width;
+    markLabels.push(svgText(right ? x - 3 : x + 3, PLOT.top + 12 + 12 * k, `${m.label} ${sig(m.current_A)} A`, `font-size="9.5" fill="${REPORT_COLORS.fail}"${right ? ' text-anchor="end"' : ""}`));
   });
   out.push(`<g clip-path="url(#plot-area)">${body.join("")}</g>`, `<g class="marks">${markLabels.join("")}</g>`);
   // legend
@@ -134,7 +137,7 @@ export function tccPlotSvg(p: TccPlotInput): string {
   }
   if (p.marks.length) {
     legend.push(`<path d="M${LEGEND_X + 9} ${n(y - 1)}V${n(y + 11)}" stroke="${REPORT_COLORS.fail}" stroke-width="1.2" stroke-dasharray="3 2"/>`);
-    wrapLegend(legend, "fault current through the primary device", y);
+    wrapLegend(legend, p.currentLabel && p.currentLabel !== "Current" ? "earth-fault 3I0 through the primary device" : "fault current through the primary device", y);
   }
   out.push(`<g class="legend">${legend.join("")}</g>`, `</svg>`);
   return out.join("\n");

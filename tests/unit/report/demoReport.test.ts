@@ -158,6 +158,28 @@ describe("the demo's report", () => {
     }
   });
 
+  it("keeps earth-fault plots to the primary device's voltage, where residual current refers without a transformer", () => {
+    const kvOf = (id: string) => {
+      const d = project.elements.find((e) => e.id === id)!;
+      if (d.kind !== "relay" && d.kind !== "fuse" && d.kind !== "lvbreaker") throw new Error(id);
+      const host = project.elements.find((e) => e.id === d.at.element)!;
+      const bus = host.kind === "transformer" ? (d.at.end === "to" ? host.lvBus : host.hvBus) : host.kind === "line" ? (d.at.end === "to" ? host.toBus : host.fromBus) : "bus" in host ? host.bus : "";
+      return (project.elements.find((e) => e.id === bus) as { un_kV: number }).un_kV;
+    };
+    const earth = report.plots.filter((p) => p.name.endsWith("-earth"));
+    expect(earth.length).toBeGreaterThan(0);
+    let left = 0;
+    for (const p of earth) {
+      const ids = p.title.replace(/^.*: /, "").split(" → ");
+      for (const id of ids)
+        if (kvOf(id) !== kvOf(ids[0])) {
+          expect(p.svg, `${p.name} ${id}`).not.toContain(`>${id} (`);
+          left++;
+        } else expect(p.svg, `${p.name} ${id}`).toContain(`>${id} (`);
+    }
+    expect(left).toBeGreaterThan(0);
+  });
+
   it("shows the clearing timeline of every failed case the study simulated, and only those", () => {
     const failed = new Set(study.verdicts.filter((v) => v.status === "fail").map((v) => v.caseId));
     const section = report.html.slice(report.html.indexOf('id="timelines"'), report.html.indexOf('id="open-items"'));

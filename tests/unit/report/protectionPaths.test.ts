@@ -37,6 +37,19 @@ describe("protection paths", () => {
     expect(paths[0].primaryMin_A).toBe(2000);
   });
 
+  it("marks earth-fault plots with the primary's residual current in LG and LLG cases only", () => {
+    const lg = fakeCase("e", "s1", "min", [{ devices: ["F1", "Q1"], current_A: 900 }]);
+    lg.faultCase.faultType = "LG";
+    lg.responses = [{ device: "F1", iResidual_A: 850 } as CaseResult["responses"][number]];
+    const three = fakeCase("t", "s1", "max", [{ devices: ["F1", "Q1"], current_A: 1200 }]);
+    three.responses = [{ device: "F1", iResidual_A: 5 } as CaseResult["responses"][number]];
+    const [p] = protectionPaths([lg, three]);
+    expect(p.residualMax_A).toBe(850);
+    expect(p.residualMin_A).toBe(850);
+    expect(p.primaryMax_A).toBe(1200);
+    expect(p.primaryMin_A).toBe(900);
+  });
+
   it("keeps chains that only share devices out of order", () => {
     const paths = protectionPaths([
       fakeCase("a", "s1", "max", [{ devices: ["Q1", "R1"], current_A: 10 }]),

@@ -34,6 +34,8 @@ const nodeTypes: NodeTypes = { bus: BusNode, branch: BranchNode, shunt: ShuntNod
 const edgeTypes: EdgeTypes = { tie: TieEdge };
 const GRID = 10;
 const FAR_ZOOM = 0.4;
+/** Below this, symbols are a few pixels wide: only bus bars and ties are drawn. */
+const TINY_ZOOM = 0.15;
 /** Layout positions in the document are node centres. */
 const NODE_ORIGIN: [number, number] = [0.5, 0.5];
 
@@ -48,6 +50,7 @@ export function OneLineCanvas() {
   const flow = useReactFlow();
   // level of detail: far out, labels and device markers are dropped (they would be unreadable)
   const far = useStore((s) => s.transform[2] < FAR_ZOOM);
+  const tiny = useStore((s) => s.transform[2] < TINY_ZOOM);
   const [dragPlaces, setDragPlaces] = useState<Record<string, NodePlace>>({});
   const dragRef = useRef(dragPlaces);
   dragRef.current = dragPlaces;
@@ -153,7 +156,7 @@ export function OneLineCanvas() {
   );
 
   return (
-    <div className={`canvas-wrap${far ? " lod-far" : ""}`} data-testid="one-line" onDragOver={onDragOver} onDrop={onDrop}>
+    <div className={`canvas-wrap${far ? " lod-far" : ""}${tiny ? " lod-tiny" : ""}`} data-testid="one-line" onDragOver={onDragOver} onDrop={onDrop}>
       <ReactFlow<OneLineNode>
         nodes={nodes}
         edges={built.edges}

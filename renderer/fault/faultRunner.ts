@@ -13,6 +13,7 @@ import type { EngineClient } from "../worker/engineClient.ts";
 import type { StudyClient } from "../worker/studyClient.ts";
 
 const MAX_TIMINGS = 50;
+const CASE_DELAY_MS = 120;
 
 function keyOf(s: SessionState): string {
   return JSON.stringify([s.faultTarget, s.faultType, s.faultLimit, s.activeScenarioId]);
@@ -62,7 +63,10 @@ export function startFaultRunner(engine: EngineClient, study: StudyClient): () =
       }, 0),
     );
     if (!scenario) return;
-    // the study's view of the same case: roles and clearing times of every device
+    // the study's view of the same case: roles and clearing times of every device; asked a moment
+    // later so that a quick run of edits does not keep the second core busy with stale cases
+    await new Promise((resolve) => setTimeout(resolve, CASE_DELAY_MS));
+    if (seq !== markSeq) return;
     const id = caseId(scenario.id, location, session.faultType, session.faultLimit);
     const studied = await study.call({ kind: "case", project: doc, caseId: id }).result;
     if (seq !== markSeq) return;

@@ -38,13 +38,14 @@ const project = projectSchema.parse({
 describe("the report of a project with failing verdicts", () => {
   it("lists every failed verdict of the study, including the backup that cannot be selective", async () => {
     const study = await studyProject(project);
-    const report = buildReport({
+    const input = {
       project,
       study,
       faults: faultTable(project),
       meta: { date: "2026-02-01", version: "test", fileName: "two-relays.islet", fileSha256: "f".repeat(64) },
       validationWarnings: [],
-    });
+    };
+    const report = buildReport(input);
     const fails = study.verdicts.filter((v) => v.status === "fail");
     // equal curves give zero margin between primary and backup, below any CTI (common practice: CTI 0.2-0.4 s)
     const pair = fails.filter((v) => v.kind === "selectivity" && [v.device, v.other].sort().join(",") === "R1,R2");
@@ -55,5 +56,11 @@ describe("the report of a project with failing verdicts", () => {
     // the open items group them, and every failed reference appears there as a link
     const open = report.html.slice(report.html.indexOf('id="open-items"'));
     for (let k = 1; k <= fails.length; k++) expect(open).toContain(`href="#v-F-${String(k).padStart(4, "0")}"`);
+    // passed verdicts are summarised unless asked for in full
+    const passes = study.verdicts.filter((v) => v.status === "pass").length;
+    expect(passes).toBeGreaterThan(0);
+    expect([...report.html.matchAll(/<tr class="pass" data-verdict=/g)]).toHaveLength(0);
+    const full = buildReport({ ...input, listPasses: true });
+    expect([...full.html.matchAll(/<tr class="pass" data-verdict=/g)]).toHaveLength(passes);
   }, 60_000);
 });

@@ -7,8 +7,8 @@ import { describe, it, expect } from "vitest";
 import fc from "fast-check";
 import { complex, type Complex } from "mathjs";
 import { compileNetwork, solveFault, sweepFaults, sweepDeviceCurrents, FAULT_TYPES, type FaultResult, type Phasor } from "../../../../src/engine/index.ts";
-import type { Project } from "../../../../src/model/schema.ts";
-import { phaseDomainFault, type PhaseFaultType, type PhaseSolution } from "./phaseDomainFault.ts";
+import type { PhaseFaultType, PhaseSolution } from "./phaseDomainFault.ts";
+import { phaseDomainAt } from "./phaseDomainAt.ts";
 import { smallCase, smallCaseArbitrary, type SmallCase } from "./smallNetworkArbitrary.ts";
 import { miniProject } from "./miniProject.ts";
 
@@ -26,21 +26,6 @@ function engineFault(k: SmallCase): FaultResult {
   return solveFault(compiled(k), k.location, k.type, { faultR_ohm: k.zf_ohm.re, faultX_ohm: k.zf_ohm.im });
 }
 
-/** The project with a line cut in two at pct percent from its from bus, the cut being a new bus "<id>#F". */
-function splitLineProject(project: Project, lineId: string, pct: number): Project {
-  const elements = project.elements.flatMap((e) => {
-    if (e.id !== lineId || e.kind !== "line") return [e];
-    const from = project.elements.find((b) => b.id === e.fromBus && b.kind === "bus") as { un_kV: number };
-    const f = pct / 100;
-    return [
-      { kind: "bus" as const, id: `${lineId}#F`, name: "fault point", un_kV: from.un_kV },
-      { ...e, id: `${lineId}#a`, toBus: `${lineId}#F`, length_km: e.length_km * f },
-      { ...e, id: `${lineId}#b`, fromBus: `${lineId}#F`, length_km: e.length_km * (1 - f) },
-    ];
-  });
-  return { ...project, elements };
-}
-
 const REF_OPTIONS = { gridSk: "max", gridC: 1, prefault_pu: 1, generatorSeqR: "rx", scenario: "s", equivalentSource: false } as const;
 
 /** Phase-domain solution of the same fault; a fault along a line is a bus fault on the line cut in two, reported
@@ -49,15 +34,7 @@ function reference(k: SmallCase, type: PhaseFaultType = k.type, bus?: string, eq
   // Engine conventions the records leave open, stated here: grid Z = c Un^2/S"k max with c = prefault (1);
   // generator R2 and R0 with the machine's R/X (src/engine/elements/machineStamps.ts says so).
   const loc = bus ? { kind: "bus" as const, bus } : k.location;
-  const opts = { ...REF_OPTIONS, equivalentSource };
-  if (loc.kind === "bus") return phaseDomainFault(k.project, { bus: loc.bus, type, zf_ohm: k.zf_ohm }, opts);
-  const p = splitLineProject(k.project, loc.line, loc.pct);
-  const s = phaseDomainFault(p, { bus: `${loc.line}#F`, type, zf_ohm: k.zf_ohm }, opts);
-  s.busVoltage_pu.delete(`${loc.line}#F`);
-  const ends = s.ends
-    .filter((e) => !(e.element === `${loc.line}#a` && e.end === "to") && !(e.element === `${loc.line}#b` && e.end === "from"))
-    .map((e) => (e.element.startsWith(`${loc.line}#`) ? { ...e, element: loc.line } : e));
-  return { ...s, ends };
+  return phaseDomainAt(k.project, loc, type, k.zf_ohm, { ...REF_OPTIONS, equivalentSource });
 }
 
 /** I"k as the engine defines it per type: 3ph |Ia|, LL |Ib|, LG and LLG the earth current |Ia + Ib + Ic|. */

@@ -14,7 +14,7 @@ import fc from "fast-check";
 import { complex, type Complex } from "mathjs";
 import { compileNetwork, solveFault, type Phasor } from "../../../../src/engine/index.ts";
 import type { Project } from "../../../../src/model/schema.ts";
-import { phaseDomainFault } from "./phaseDomainFault.ts";
+import { phaseDomainAt } from "./phaseDomainAt.ts";
 import { smallCaseArbitrary, type SmallCase } from "./smallNetworkArbitrary.ts";
 
 const TOL_PU = 1e-9;
@@ -45,15 +45,14 @@ function check(k: SmallCase, limit: "max" | "min"): { worst: number; where: stri
   const project = { ...k.project, study: { ...k.project.study, method: "iec60909" as const, lvTolerance_pct: 10 as const } };
   const compiled = compileNetwork(project, { scenario: "s", limit, method: "iec60909" });
   if (!compiled.ok) throw new Error(`seed ${k.seed}: ${compiled.errors.map((e) => e.text).join("; ")}`);
-  if (k.location.kind !== "bus") return { worst: 0, where: "" }; // faults along lines are covered by the classic comparison
   const eng = solveFault(compiled.network, k.location, k.type, { faultR_ohm: k.zf_ohm.re, faultX_ohm: k.zf_ohm.im });
   const un = new Map(project.elements.flatMap((e) => (e.kind === "bus" ? [[e.id, e.un_kV] as const] : [])));
   const grid = project.elements.find((e) => e.kind === "grid");
-  const ref = phaseDomainFault(project, { bus: k.location.bus, type: k.type, zf_ohm: k.zf_ohm }, {
+  const ref = phaseDomainAt(project, k.location, k.type, k.zf_ohm, {
     scenario: "s",
     gridSk: limit,
     gridC: grid && grid.kind === "grid" ? cFactor(un.get(grid.bus) as number, limit) : 1,
-    prefault_pu: cFactor(un.get(k.location.bus) as number, limit),
+    prefault_pu: cFactor(un.get(k.faultBus) as number, limit),
     generatorSeqR: "rx",
     impedanceFactor: corrections(project),
     lineResistanceFactor: limit === "min" ? 1 + 0.004 * (project.study.conductorEndTemp_C - 20) : 1,
@@ -68,7 +67,7 @@ function check(k: SmallCase, limit: "max" | "min"): { worst: number; where: stri
       where = w;
     }
   };
-  for (let p = 0; p < 3; p++) note(dist(toC(eng.faultPhase_kA[p]), ref.fault_kA[p]) / (baseA(k.location.bus) / 1000), `fault current phase ${p}`);
+  for (let p = 0; p < 3; p++) note(dist(toC(eng.faultPhase_kA[p]), ref.fault_kA[p]) / (baseA(k.faultBus) / 1000), `fault current phase ${p}`);
   for (const bv of eng.buses) {
     const mine = ref.busVoltage_pu.get(bv.bus);
     for (let p = 0; p < 3; p++) note(mine ? dist(toC(bv.phase_pu[p]), mine[p]) : Infinity, `voltage ${bv.bus} phase ${p}`);

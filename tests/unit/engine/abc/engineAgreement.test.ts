@@ -244,3 +244,26 @@ describe("engine results obey Kirchhoff's current law at every bus", () => {
     });
   }
 });
+
+describe("an LV side with no zero-sequence path of its own (floating zero sequence)", () => {
+  // Yyn0 with the HV star not earthed, and Dyn11 with the LV star not earthed: a line-to-earth fault there finds no
+  // zero-sequence path, so it draws no current, and the fault itself fixes the floating voltages (phase a at earth).
+  // The phase-domain reference needs no special rule for this (its matrix is regular once the fault earths phase a).
+  for (const [vg, earthingLv] of [["Yyn0", { kind: "solid" }], ["Dyn11", { kind: "isolated" }]] as const) {
+    it(`${vg} with LV earthing ${earthingLv.kind}: no fault current and the same phase voltages`, () => {
+      const project = miniProject([
+        { kind: "bus", id: "A", un_kV: 11 },
+        { kind: "bus", id: "B", un_kV: 0.4 },
+        { kind: "bus", id: "C", un_kV: 0.4 },
+        { kind: "grid", id: "Q", bus: "A", skMax_MVA: 200, skMin_MVA: 100, rx: 0.1, z0z1: 1, r0x0: 0.1 },
+        { kind: "transformer", id: "T", hvBus: "A", lvBus: "B", sr_MVA: 0.63, urHv_kV: 11, urLv_kV: 0.4, uk_pct: 6, vectorGroup: vg, earthingLv },
+        { kind: "line", id: "L", fromBus: "B", toBus: "C", length_km: 0.1, r1_ohmPerKm: 0.2, x1_ohmPerKm: 0.08, r0_ohmPerKm: 0.8, x0_ohmPerKm: 0.3, csa_mm2: 95, ampacity_A: 250 },
+      ]);
+      const k: SmallCase = { project, location: { kind: "bus", bus: "C" }, faultBus: "C", type: "LG", zf_ohm: { re: 0, im: 0 }, meshed: false, seed: -1 };
+      const eng = engineFault(k);
+      expect(eng.ikss_kA).toBeLessThan(1e-9);
+      const r = compare(k, eng, reference(k));
+      expect(r.worst, r.where).toBeLessThan(TOL_PU);
+    });
+  }
+});

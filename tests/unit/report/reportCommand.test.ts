@@ -74,7 +74,7 @@ describe("islet report", () => {
     expect(readFileSync(join(a, "faults.csv"), "utf8").split("\r\n")[0]).toBe("scenario_id,scenario_name,limit,bus_id,bus_name,un_kV,ikss_3ph_kA,ikss_LL_kA,ikss_LG_kA,ikss_LLG_kA,ip_3ph_kA,xr_3ph");
   }, 600_000);
 
-  it.skipIf(!hasChromium)("prints a PDF and PNG plots with headless Chromium, and the PDF renders to non-trivial pages (skipped: /usr/bin/chromium is not installed)", () => {
+  it.skipIf(!hasChromium)("prints a PDF and PNG plots with headless Chromium, and the PDF renders to non-trivial pages (skipped only when /usr/bin/chromium is not installed)", () => {
     const out = join(dir, "pdf");
     const r = islet("report", demoPath, "--out", out, "--format", "pdf,png", "--date", "2026-03-04");
     expect(r.code, r.err).toBe(0);

@@ -25,12 +25,13 @@ export function startFaultRunner(engine: EngineClient, study: StudyClient): () =
     const session = useSessionStore.getState();
     const target = session.faultTarget;
     const fault = useFaultStore.getState();
+    // every call supersedes the answers still on their way, clearing the fault included
+    const seq = ++markSeq;
     if (!target) {
       if (fault.overlay || fault.status !== "idle") fault.set({ overlay: null, result: null, status: "idle", error: null });
       useStudyStore.getState().set({ caseResult: null, caseVerdicts: [], caseError: null });
       return;
     }
-    const seq = ++markSeq;
     const mark = `islet-edit-${seq}`;
     performance.mark(mark);
     const { doc } = useDocumentStore.getState();

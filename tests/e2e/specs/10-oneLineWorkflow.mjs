@@ -96,7 +96,8 @@ export const steps = [
       await chooseField(page, "Bus", "B3");
       await page.keyboard.press("Escape");
 
-      assert.equal(await page.locator(".react-flow__edge").count(), 6, "six ties: feeder 1, transformer 2, cable 2, genset 1");
+      // six ties: feeder 1, transformer 2, cable 2, genset 1
+      await page.waitForFunction(() => document.querySelectorAll(".react-flow__edge").length === 6, null, { timeout: 10000 });
       assert.equal(await page.locator('[data-device="R1"]').count(), 1, "the relay is drawn at the transformer");
       assert.equal(await page.locator('[data-device="CB1"]').count(), 1, "the LV breaker is drawn at the transformer");
       assert.match(await page.locator('[data-testid="validation-count"]').textContent(), /^0 errors/);

@@ -237,6 +237,8 @@ export interface SweepOptions {
   buses?: string[];
   /** Device locations to keep; default every relay/fuse/lvbreaker `at` in service. */
   devices?: { element: string; end: "from" | "to" | "terminal" }[];
+  /** Override study.inverterModel for this sweep ("iec" needs no iteration and is much faster). */
+  inverterModel?: InverterModel;
   /** Progress callback (fraction 0..1); return false to cancel. */
   onProgress?: (fraction: number) => boolean | void;
 }

@@ -30,7 +30,7 @@ export function sweepFaults(network: CompiledNetwork, options: SweepOptions = {}
   const messages: EngineMessage[] = [];
   const busIds = options.buses ? [...options.buses] : model.nodes.flatMap((nd) => nd.buses);
   const B = busIds.length;
-  const used = model.inverters.length > 0 ? opts.inverterModel : "iec";
+  const used = model.inverters.length > 0 ? (options.inverterModel ?? opts.inverterModel) : "iec";
   const hasGfm = model.shunts.some((s) => s.refinedOnly);
   const sysVariant = used === "refined" && hasGfm ? "refined" : "iec";
   const sys = [0, 1, 2].map((s) => sequenceSystem(model, cache, s as 0 | 1 | 2, sysVariant)) as [SequenceSystem, SequenceSystem, SequenceSystem];
@@ -72,7 +72,7 @@ export function sweepFaults(network: CompiledNetwork, options: SweepOptions = {}
           xr[tm.nodes[q]] += tm.re[q];
           xi[tm.nodes[q]] += tm.im[q];
         }
-        solveLdlt(sys[s].factor, xr, xi);
+        solveLdlt(sys[s].factor, xr, xi, false);
         for (let b = 0; b < B; b++) {
           const k = busNodes[b];
           if (k < 0) continue;
@@ -101,6 +101,14 @@ export function sweepFaults(network: CompiledNetwork, options: SweepOptions = {}
   const busShift_deg = new Float64Array(B);
   const overrides: SweepResult["deviceData"]["overrides"] = [];
   const radial = new Map<number, boolean>();
+  const islandUnits = new Map<number, { unitIdx: number[]; units: ReturnType<typeof compactUnits> }>();
+  // Branches and shunts meeting at each node (the radial peak factor looks at them for every faulted bus).
+  const atNode: { branches: number[]; shunts: number[] }[] = model.nodes.map(() => ({ branches: [], shunts: [] }));
+  model.branches.forEach((br, i) => {
+    atNode[br.from].branches.push(i);
+    if (br.to !== br.from) atNode[br.to].branches.push(i);
+  });
+  model.shunts.forEach((sh, i) => atNode[sh.node].shunts.push(i));
   const progressEvery = Math.max(1, Math.floor(B / 50));
   let cancelled = false;
 
@@ -117,7 +125,7 @@ export function sweepFaults(network: CompiledNetwork, options: SweepOptions = {}
     const un = node.un_kV;
     const iBase_kA = opts.baseMVA / (SQRT3 * un);
     if (sys[1].floating[sys[1].comp[k]] || sys[2].floating[sys[2].comp[k]]) {
-      overrideBus(network, busIds[b], b, types, locs, devices, { ikss_kA, maxPhase_kA, ip_kA, xr: xrOut, overrides });
+      overrideBus(network, busIds[b], b, types, locs, devices, { ikss_kA, maxPhase_kA, ip_kA, xr: xrOut, overrides }, used);
       continue;
     }
     const iec = opts.method === "iec60909";
@@ -126,14 +134,17 @@ export function sweepFaults(network: CompiledNetwork, options: SweepOptions = {}
     const zf: Cx = { re: opts.faultR_ohm / zBase, im: opts.faultX_ohm / zBase };
     const zkk = [0, 1, 2].map((s) => ({ re: tk[s].re[k], im: tk[s].im[k] }));
     const zeroView: SeqView = sys[0].floating[sys[0].comp[k]] ? { floating: true, j: { re: 0, im: 0 } } : { floating: false, e: { re: 0, im: 0 }, z: zkk[0] };
-    const unitIdx: number[] = [];
-    model.inverters.forEach((u, j) => {
-      if (model.nodes[u.node].island === node.island) unitIdx.push(j);
-    });
+    let isl = islandUnits.get(node.island);
+    if (!isl) {
+      const idx = model.inverters.map((u, j) => (model.nodes[u.node].island === node.island ? j : -1)).filter((j) => j >= 0);
+      isl = { unitIdx: idx, units: compactUnits(model, idx) };
+      islandUnits.set(node.island, isl);
+    }
+    const unitIdx = isl.unitIdx;
     const Jl = unitIdx.length;
     const cin: CompactFaultInput = { model, unitIdx, colU, k, type: "3ph", zf, c, zeroView, z1kk: zkk[1], z2kk: zkk[2] };
     const solveCompact = (type: FaultType, a: ComplexVec, bb: ComplexVec): LinearFault => solveCompactFault({ ...cin, type }, a, bb);
-    const cUnits = compactUnits(model, unitIdx);
+    const cUnits = isl.units;
     const vpreC = new Float64Array(Jl).fill(c);
     let ik3 = -1;
     for (let t = 0; t < T; t++) {
@@ -180,7 +191,7 @@ export function sweepFaults(network: CompiledNetwork, options: SweepOptions = {}
       isRadial = isRadialIsland(model, node.island);
       radial.set(node.island, isRadial);
     }
-    ip_kA[b] = sweepKappa(model, tk[1], k, zkk[1], c, un, isRadial) * Math.SQRT2 * ik3;
+    ip_kA[b] = sweepKappa(model, atNode[k], tk[1], k, zkk[1], c, un, isRadial) * Math.SQRT2 * ik3;
     xrOut[b] = zkk[1].re > 0 ? zkk[1].im / zkk[1].re : 1e9;
   }
   if (cancelled) messages.push({ level: "info", code: "cancelled", text: "Sweep cancelled before it finished" });
@@ -201,7 +212,16 @@ export function sweepFaults(network: CompiledNetwork, options: SweepOptions = {}
 }
 
 /** kappa at node k from the inverse subset: radial branch sum (entries Z[m,k] of the branches at k) or method B. */
-function sweepKappa(model: EngineInternal["model"], tk: InverseSubset, k: number, zkk: Cx, c: number, un_kV: number, isRadial: boolean): number {
+function sweepKappa(
+  model: EngineInternal["model"],
+  here: { branches: number[]; shunts: number[] },
+  tk: InverseSubset,
+  k: number,
+  zkk: Cx,
+  c: number,
+  un_kV: number,
+  isRadial: boolean,
+): number {
   const m2 = zkk.re * zkk.re + zkk.im * zkk.im;
   if (!(m2 > 0)) return 1;
   if (!isRadial) return Math.min(1.15 * peakFactor(zkk.im > 0 ? zkk.re / zkk.im : 10), un_kV <= 1 ? 1.8 : 2.0);
@@ -220,8 +240,8 @@ function sweepKappa(model: EngineInternal["model"], tk: InverseSubset, k: number
     const zi = (-c * -ii) / f2;
     sumPeak += peakFactor(Math.max(0, zi > 0 ? zr / zi : 10)) * mag;
   };
-  for (const br of model.branches) {
-    if (br.from !== k && br.to !== k) continue;
+  for (const bi of here.branches) {
+    const br = model.branches[bi];
     const y = br.y[1];
     if (!y) continue;
     const other = dv(br.from === k ? br.to : br.from);
@@ -232,8 +252,9 @@ function sweepKappa(model: EngineInternal["model"], tk: InverseSubset, k: number
     const ui = a * dk.im - other.im / t;
     add(y.re * ur - y.im * ui, y.re * ui + y.im * ur);
   }
-  for (const s of model.shunts) {
-    if (s.node !== k || s.refinedOnly || !s.y[1]) continue;
+  for (const si of here.shunts) {
+    const s = model.shunts[si];
+    if (s.refinedOnly || !s.y[1]) continue;
     const y = s.y[1];
     add(y.re * dk.re - y.im * dk.im, y.re * dk.im + y.im * dk.re);
   }
@@ -249,10 +270,19 @@ interface OverrideTargets {
 }
 
 /** A bus in an island of current sources only: solved one fault at a time. */
-function overrideBus(network: CompiledNetwork, bus: string, b: number, types: FaultType[], locs: { element: string; end: string }[], devices: SweepResult["devices"], out: OverrideTargets): void {
+function overrideBus(
+  network: CompiledNetwork,
+  bus: string,
+  b: number,
+  types: FaultType[],
+  locs: { element: string; end: string }[],
+  devices: SweepResult["devices"],
+  out: OverrideTargets,
+  inverterModel: "iec" | "refined",
+): void {
   const T = types.length;
   types.forEach((type, t) => {
-    const r = solveFault(network, { kind: "bus", bus }, type);
+    const r = solveFault(network, { kind: "bus", bus }, type, { inverterModel });
     out.ikss_kA[b * T + t] = r.ikss_kA;
     out.maxPhase_kA[b * T + t] = r.maxPhase_kA;
     if (type === "3ph" || out.ip_kA[b] === 0) {

@@ -183,12 +183,24 @@ export function refinedIteration(
       residual = Math.max(residual, r1 / units[j].ir_pu, r2 / units[j].ir_pu);
     }
     if (residual < TOLERANCE_PU) break;
-    if (residual > previous) alpha = Math.max(0.01, alpha / 2);
+    // Halve the step whenever the residual fails to fall by 5 %: this also breaks two-cycles, whose residual stays put.
+    if (residual > 0.95 * previous) alpha = Math.max(0.01, alpha / 2);
     previous = residual;
     x1 = x1.map((x, j) => ({ re: x.re + alpha * (t.x1[j].re - x.re), im: x.im + alpha * (t.x1[j].im - x.im) }));
     x2 = x2.map((x, j) => ({ re: x.re + alpha * (t.x2[j].re - x.re), im: x.im + alpha * (t.x2[j].im - x.im) }));
   }
   const converged = residual < TOLERANCE_PU;
+  if (!converged) {
+    // Report the state actually injected (the last update), not the one before it.
+    e = evalV(x1, x2);
+    t = targets(units, e.v1, e.v2, e.vext, vpre);
+  }
+  // Currents out of each unit for the injections used: x itself (grid-following), or the unlimited source current
+  // plus the limiting correction x (grid-forming). Equal to the targets once converged.
+  const out = units.map((_, j) => ({
+    i1: { re: t.out[j].i1.re - t.x1[j].re + x1[j].re, im: t.out[j].i1.im - t.x1[j].im + x1[j].im },
+    i2: { re: t.out[j].i2.re - t.x2[j].re + x2[j].re, im: t.out[j].i2.im - t.x2[j].im + x2[j].im },
+  }));
   const inj1 = vec();
   const inj2 = vec();
   units.forEach((u, j) => {
@@ -201,10 +213,10 @@ export function refinedIteration(
   const unitsOut: InverterUnitResult[] = units.map((u, j) => ({
     element: u.element,
     control: u.control,
-    i1_pu: cabs(t.out[j].i1) / u.ir_pu,
-    i2_pu: cabs(t.out[j].i2) / u.ir_pu,
+    i1_pu: cabs(out[j].i1) / u.ir_pu,
+    i2_pu: cabs(out[j].i2) / u.ir_pu,
     v1_pu: cabs(e.v1[j]) * u.vScale,
     limited: t.limited[j],
   }));
-  return { fault, inj: [inj1, inj2], iterations: it + 1, residual_pu: residual, converged, units: unitsOut, out: t.out };
+  return { fault, inj: [inj1, inj2], iterations: it + 1, residual_pu: residual, converged, units: unitsOut, out };
 }

@@ -117,8 +117,9 @@ export function factorLdlt(a: SymmetricTriplets, ordering: Ordering): LdltFactor
 /**
  * Solves A x = b in place (b given in original indices, separate re/im arrays), with one step of iterative
  * refinement: without pivoting, a very short branch next to long ones costs digits that the residual step restores.
+ * `refine = false` skips it where speed matters more (the sweep's per-device solves on bus-only networks).
  */
-export function solveLdlt(f: LdltFactor, bre: Float64Array, bim: Float64Array): void {
+export function solveLdlt(f: LdltFactor, bre: Float64Array, bim: Float64Array, refine = true): void {
   const { n, aPtr, aRow, aRe, aIm } = f;
   const { perm } = f.ordering;
   const br = new Float64Array(n);
@@ -130,6 +131,13 @@ export function solveLdlt(f: LdltFactor, bre: Float64Array, bim: Float64Array): 
   const xr = br.slice();
   const xi = bi.slice();
   solvePermuted(f, xr, xi);
+  if (!refine) {
+    for (let k = 0; k < n; k++) {
+      bre[perm[k]] = xr[k];
+      bim[perm[k]] = xi[k];
+    }
+    return;
+  }
   // r = b - A x (symmetric, lower storage)
   const rr = br;
   const ri = bi;

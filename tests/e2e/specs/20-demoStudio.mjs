@@ -101,6 +101,30 @@ export const steps = [
     },
   },
   {
+    name: "aligns two buses on the first one's left edge",
+    async run(t) {
+      const page = t.state.page;
+      await select(page, "LV-MS");
+      await page.locator('[data-element="LV-PH"] .bus-bar').click({ modifiers: ["Shift"], force: true });
+      await page.waitForFunction(() => document.querySelector('[data-testid="inspector-head"]')?.textContent?.startsWith("2 elements"));
+      await page.getByText("Align", { exact: true }).click();
+      await page.getByRole("button", { name: "Left edges" }).click();
+      const left = async (id) => (await page.locator(`[data-element="${id}"] .bus-bar`).boundingBox()).x;
+      await page.waitForFunction(() => {
+        const a = document.querySelector('[data-element="LV-MS"] .bus-bar')?.getBoundingClientRect().x;
+        const b = document.querySelector('[data-element="LV-PH"] .bus-bar')?.getBoundingClientRect().x;
+        return a !== undefined && Math.abs(a - b) < 0.5;
+      });
+      assert.ok(Math.abs((await left("LV-MS")) - (await left("LV-PH"))) < 0.5);
+      await page.keyboard.press("Control+z");
+      await page.waitForFunction(() => {
+        const a = document.querySelector('[data-element="LV-MS"] .bus-bar')?.getBoundingClientRect().x;
+        const b = document.querySelector('[data-element="LV-PH"] .bus-bar')?.getBoundingClientRect().x;
+        return Math.abs(a - b) > 10;
+      });
+    },
+  },
+  {
     name: "edits two loads at once through their shared fields",
     async run(t) {
       const page = t.state.page;

@@ -7,7 +7,7 @@ import globals from "globals";
 const nodeBuiltins = ["node:*", "fs", "path", "os", "child_process", "crypto", "url", "worker_threads", "electron"];
 
 export default tseslint.config(
-  { ignores: ["node_modules/", "out/", "dist/", "release/", "coverage/", "tests/e2e/artifacts/", "assets/**/*.json"] },
+  { ignores: ["node_modules/", "out/", "dist/", "release/", "coverage/", ".tmp/", "report/", "tests/e2e/artifacts/", "assets/**/*.json"] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

@@ -181,6 +181,30 @@ export const steps = [
     },
   },
   {
+    name: "dragging the relay's curve up lengthens its multiplier in one undo step",
+    async run(t) {
+      const page = t.state.page;
+      await page.locator('[data-device="R1"]').click();
+      const field = page.getByLabel("Time multiplier or time dial", { exact: true });
+      assert.equal(await field.inputValue(), "0.1");
+      const grab = await page.evaluate(() => {
+        const path = document.querySelector('.tcc-host g[data-device-id="R1"] path.tcc-nominal');
+        const p = path.getPointAtLength(path.getTotalLength() * 0.5);
+        const m = path.getScreenCTM();
+        return { x: m.a * p.x + m.c * p.y + m.e, y: m.b * p.x + m.d * p.y + m.f };
+      });
+      await page.mouse.move(grab.x, grab.y);
+      await page.mouse.down();
+      for (let i = 1; i <= 8; i++) await page.mouse.move(grab.x, grab.y - 5 * i);
+      await page.mouse.up();
+      await page.waitForFunction(() => Number(document.querySelector('input[aria-label="Time multiplier or time dial"]')?.value) > 0.1);
+      // times are proportional to the multiplier (IEC 60255-151:2009), so dragging up means a larger multiplier
+      await page.screenshot({ path: join(t.artifacts, "10-05b-dragged.png") });
+      await page.keyboard.press("Control+z");
+      await page.waitForFunction(() => document.querySelector('input[aria-label="Time multiplier or time dial"]')?.value === "0.1");
+    },
+  },
+  {
     name: "a shorter time multiplier turns the selectivity verdict to fail",
     async run(t) {
       const page = t.state.page;

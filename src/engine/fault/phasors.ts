@@ -33,3 +33,43 @@ export function shiftSeq(s: [Cx, Cx, Cx], shift_deg: number): [Cx, Cx, Cx] {
   const q = { re: p.re, im: -p.im };
   return [s[0], mul(s[1], p), mul(s[2], q)];
 }
+
+const S3 = Math.sqrt(3) / 2;
+const RAD = 180 / Math.PI;
+function phasor(re: number, im: number, scale: number): Phasor {
+  const mag = Math.hypot(re, im) * scale;
+  return { mag, ang_deg: mag > 0 ? Math.atan2(im, re) * RAD : 0 };
+}
+
+/**
+ * Sequence triple -> shifted sequence phasors and phase phasors in one pass, without intermediate objects
+ * (the hot path of building a fault result with thousands of branch ends).
+ */
+export function seqAndPhasePhasors(s: [Cx, Cx, Cx], shift_deg: number, scale: number): { seq: [Phasor, Phasor, Phasor]; phase: [Phasor, Phasor, Phasor] } {
+  const r = (shift_deg * Math.PI) / 180;
+  const c = Math.cos(r);
+  const sn = Math.sin(r);
+  const z0r = s[0].re;
+  const z0i = s[0].im;
+  const p1r = s[1].re * c - s[1].im * sn;
+  const p1i = s[1].re * sn + s[1].im * c;
+  const n2r = s[2].re * c + s[2].im * sn;
+  const n2i = -s[2].re * sn + s[2].im * c;
+  // a = -1/2 + j sqrt3/2; a^2 = -1/2 - j sqrt3/2
+  const a2p1r = -0.5 * p1r + S3 * p1i;
+  const a2p1i = -0.5 * p1i - S3 * p1r;
+  const ap1r = -0.5 * p1r - S3 * p1i;
+  const ap1i = -0.5 * p1i + S3 * p1r;
+  const an2r = -0.5 * n2r - S3 * n2i;
+  const an2i = -0.5 * n2i + S3 * n2r;
+  const a2n2r = -0.5 * n2r + S3 * n2i;
+  const a2n2i = -0.5 * n2i - S3 * n2r;
+  return {
+    seq: [phasor(z0r, z0i, scale), phasor(p1r, p1i, scale), phasor(n2r, n2i, scale)],
+    phase: [
+      phasor(z0r + p1r + n2r, z0i + p1i + n2i, scale),
+      phasor(z0r + a2p1r + an2r, z0i + a2p1i + an2i, scale),
+      phasor(z0r + ap1r + a2n2r, z0i + ap1i + a2n2i, scale),
+    ],
+  };
+}

@@ -13,7 +13,7 @@ import { compactAffineMap, compactUnits, solveCompactFault, unitColumns, type Co
 import type { SeqView } from "./faultEquations.ts";
 import { allEndCurrents, type RawEnd } from "./endCurrents.ts";
 import { faultMagnitudes } from "./faultCurrentMagnitude.ts";
-import { seqToPhase, shiftSeq, toPhasor } from "./phasors.ts";
+import { seqAndPhasePhasors, seqToPhase, toPhasor } from "./phasors.ts";
 import { peakKappa } from "./peakCurrent.ts";
 import { voltageFactor, breakingFactorMu, thermalFactorM } from "../iec60909/factors.ts";
 
@@ -184,29 +184,28 @@ export function solveFault(network: CompiledNetwork, location: FaultLocation, ty
   const shiftK = model.nodes[k].shift_deg;
   const toEnd = (e: RawEnd): EndCurrent => {
     const node = model.nodes[e.node];
-    const scale = (opts.baseMVA * 1000) / (SQRT3 * node.un_kV);
-    const s = shiftSeq(e.i, node.shift_deg - shiftK);
-    const ph = seqToPhase(s);
-    return { element: e.element, end: e.end, bus: e.bus, seq_A: s.map((x) => toPhasor(x, scale)) as EndCurrent["seq_A"], phase_A: ph.map((x) => toPhasor(x, scale)) as EndCurrent["phase_A"] };
+    const p = seqAndPhasePhasors(e.i, node.shift_deg - shiftK, (opts.baseMVA * 1000) / (SQRT3 * node.un_kV));
+    return { element: e.element, end: e.end, bus: e.bus, seq_A: p.seq, phase_A: p.phase };
   };
   const raw = allEndCurrents(model, variant, fault.v, vpre, unitInj);
   const buses: BusVoltage[] = [];
   for (let j = 0; j < n; j++) {
     const node = model.nodes[j];
     if (node.buses.length === 0) continue;
-    const vs = shiftSeq(
-      [0, 1, 2].map((s) => ({ re: fault.v[s].re[j], im: fault.v[s].im[j] })) as [Cx, Cx, Cx],
-      node.shift_deg - shiftK,
-    );
-    const ph = seqToPhase(vs);
+    const raw3: [Cx, Cx, Cx] = [
+      { re: fault.v[0].re[j], im: fault.v[0].im[j] },
+      { re: fault.v[1].re[j], im: fault.v[1].im[j] },
+      { re: fault.v[2].re[j], im: fault.v[2].im[j] },
+    ];
+    const pu = seqAndPhasePhasors(raw3, node.shift_deg - shiftK, 1);
     const kv = node.un_kV / SQRT3;
     for (const bus of node.buses) {
       buses.push({
         bus,
         un_kV: node.un_kV,
-        phase_kV: ph.map((x) => toPhasor(x, kv)) as BusVoltage["phase_kV"],
-        phase_pu: ph.map((x) => toPhasor(x)) as BusVoltage["phase_pu"],
-        seq_pu: vs.map((x) => toPhasor(x)) as BusVoltage["seq_pu"],
+        phase_kV: pu.phase.map((x) => ({ mag: x.mag * kv, ang_deg: x.ang_deg })) as BusVoltage["phase_kV"],
+        phase_pu: pu.phase,
+        seq_pu: pu.seq,
         energized: live[j] === 1,
       });
     }

@@ -41,6 +41,7 @@ export async function handleRequest(request: EngineRequest, state: HandlerState,
     const result = sweepFaults(compiled.network, {
       types: request.types,
       buses: request.buses,
+      inverterModel: request.inverterModel,
       onProgress: (fraction) => {
         emit({ id: request.id, kind: "progress", fraction });
         if (stale()) stopped = true;

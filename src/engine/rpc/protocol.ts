@@ -1,7 +1,7 @@
 // Typed messages between the UI and the engine worker. Every request carries an id; a newer request of the same
 // `channel` supersedes an older one (the handler stops it at its next progress point and answers "cancelled").
 import type { Project } from "../../model/schema.ts";
-import type { FaultLocation, FaultOptions, FaultResult, FaultType, Limit, LoadFlowResult, SweepResult, EngineMessage, Method } from "../types.ts";
+import type { FaultLocation, FaultOptions, FaultResult, FaultType, Limit, LoadFlowResult, SweepResult, EngineMessage, Method, InverterModel } from "../types.ts";
 
 interface RequestBase {
   id: number;
@@ -20,7 +20,16 @@ export type EngineRequest =
       faultType: FaultType;
       options?: FaultOptions;
     })
-  | (RequestBase & { kind: "sweep"; project: Project; scenario?: string; limit: Limit; method?: Method; types?: FaultType[]; buses?: string[] })
+  | (RequestBase & {
+      kind: "sweep";
+      project: Project;
+      scenario?: string;
+      limit: Limit;
+      method?: Method;
+      types?: FaultType[];
+      buses?: string[];
+      inverterModel?: InverterModel;
+    })
   | (RequestBase & { kind: "loadflow"; project: Project; scenario?: string })
   | (RequestBase & { kind: "cancel"; target: number });
 

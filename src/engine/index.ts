@@ -2,7 +2,7 @@
 export * from "./types.ts";
 export { compileNetwork } from "./network/compileNetwork.ts";
 export { solveFault } from "./fault/solveFault.ts";
-export { sweepFaults } from "./fault/sweepFaults.ts";
+export { sweepFaults, sweepFaultsAsync } from "./fault/sweepFaults.ts";
 export { sweepDeviceCurrents } from "./fault/sweepDeviceCurrents.ts";
 export { runLoadFlow } from "./loadflow/runLoadFlow.ts";
 export { loadCurrents } from "./loadflow/loadCurrents.ts";

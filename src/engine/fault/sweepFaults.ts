@@ -22,7 +22,30 @@ import type { ComplexVec, LinearFault } from "./solveLinearFault.ts";
 
 const SQRT3 = Math.sqrt(3);
 
+/** Synchronous sweep; `options.onProgress` returning false stops it (the result then says "cancelled"). */
 export function sweepFaults(network: CompiledNetwork, options: SweepOptions = {}): SweepResult {
+  const steps = sweepSteps(network, options);
+  let r = steps.next();
+  while (!r.done) r = steps.next(options.onProgress ? options.onProgress(r.value) !== false : true);
+  return r.value;
+}
+
+/**
+ * The same sweep, giving the event loop a turn between chunks (`yieldNow`, e.g. a zero timeout in a worker) so that
+ * a cancel or a newer request can arrive and make `onProgress` return false.
+ */
+export async function sweepFaultsAsync(network: CompiledNetwork, options: SweepOptions, yieldNow: () => Promise<void>): Promise<SweepResult> {
+  const steps = sweepSteps(network, options);
+  let r = steps.next();
+  while (!r.done) {
+    await yieldNow();
+    r = steps.next(options.onProgress ? options.onProgress(r.value) !== false : true);
+  }
+  return r.value;
+}
+
+/** The sweep as steps: yields the fraction done every chunk of buses and receives whether to go on. */
+function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator<number, SweepResult, boolean> {
   const { model, cache } = network.internal as EngineInternal;
   const opts = network.options;
   const types: FaultType[] = options.types ? [...options.types] : [...FAULT_TYPES];
@@ -113,7 +136,7 @@ export function sweepFaults(network: CompiledNetwork, options: SweepOptions = {}
   let cancelled = false;
 
   for (let b = 0; b < B; b++) {
-    if (options.onProgress && b % progressEvery === 0 && options.onProgress(b / B) === false) {
+    if (b % progressEvery === 0 && b > 0 && !(yield b / B)) {
       cancelled = true;
       break;
     }

@@ -2,17 +2,22 @@
 // back what it returns. Supersession: a newer request on the same channel makes an older sweep stop.
 import { compileNetwork } from "../network/compileNetwork.ts";
 import { solveFault } from "../fault/solveFault.ts";
-import { sweepFaults } from "../fault/sweepFaults.ts";
+import { sweepFaults, sweepFaultsAsync } from "../fault/sweepFaults.ts";
 import { runLoadFlow } from "../loadflow/runLoadFlow.ts";
 import type { EngineEvent, EngineRequest, EngineResponse } from "./protocol.ts";
 
-/** Per-worker state: the latest request id per channel and the cancelled ids. Create one per worker. */
+/**
+ * Per-worker state: the latest request id per channel and the cancelled ids. Create one per worker. `yieldNow`
+ * gives the worker's event loop a turn during a sweep (e.g. `() => new Promise((r) => setTimeout(r, 0))`), so that a
+ * cancel or a superseding request arriving meanwhile stops it; without it a sweep runs to the end once started.
+ */
 export interface HandlerState {
   latest: Map<string, number>;
   cancelled: Set<number>;
+  yieldNow?: () => Promise<void>;
 }
-export function createHandlerState(): HandlerState {
-  return { latest: new Map(), cancelled: new Set() };
+export function createHandlerState(yieldNow?: () => Promise<void>): HandlerState {
+  return { latest: new Map(), cancelled: new Set(), yieldNow };
 }
 
 /** Handles one request. `emit` receives progress events. Never throws: errors come back as ok:false. */
@@ -38,16 +43,17 @@ export async function handleRequest(request: EngineRequest, state: HandlerState,
       return { id: request.id, kind: "fault", ok: true, result: solveFault(compiled.network, request.location, request.faultType, request.options) };
     }
     let stopped = false;
-    const result = sweepFaults(compiled.network, {
+    const sweepOptions = {
       types: request.types,
       buses: request.buses,
       inverterModel: request.inverterModel,
-      onProgress: (fraction) => {
+      onProgress: (fraction: number) => {
         emit({ id: request.id, kind: "progress", fraction });
         if (stale()) stopped = true;
         return !stopped;
       },
-    });
+    };
+    const result = state.yieldNow ? await sweepFaultsAsync(compiled.network, sweepOptions, state.yieldNow) : sweepFaults(compiled.network, sweepOptions);
     if (stopped) return cancelled();
     return { id: request.id, kind: "sweep", ok: true, result };
   } catch (err) {

@@ -95,6 +95,18 @@ describe("worker request handler", () => {
     const rc = await c;
     expect(!rc.ok && rc.cancelled).toBe(true);
   });
+  it("stops a running sweep when a cancel arrives between chunks", async () => {
+    const state = createHandlerState(() => new Promise((resolve) => setTimeout(resolve, 0)));
+    let sent = false;
+    const r = await handleRequest({ id: 30, kind: "sweep", project, limit: "max" }, state, () => {
+      if (!sent) {
+        sent = true;
+        void handleRequest({ id: 31, kind: "cancel", target: 30 }, state);
+      }
+    });
+    expect(sent).toBe(true);
+    expect(!r.ok && r.cancelled).toBe(true);
+  });
   it("returns errors naming the element instead of throwing", async () => {
     const bad = structuredClone(project);
     const line = bad.elements.find((e) => e.id === "C2") as { fromBus: string };

@@ -8,6 +8,8 @@ import type { ComplexVec, LinearFault } from "./solveLinearFault.ts";
 import { sequenceSystem, zColumn, type Variant } from "../network/sequenceSystem.ts";
 import type { EngineCache } from "../network/engineCache.ts";
 
+const EMPTY: ComplexVec = { re: new Float64Array(0), im: new Float64Array(0) };
+
 /** Columns of Z' (positive [1], negative [2]) at every inverter unit's node, cached per variant. */
 export function unitColumns(model: Model, cache: EngineCache, variant: Variant): ComplexVec[][] {
   const key = `units:${variant}`;
@@ -41,8 +43,11 @@ export function compactUnits(model: Model, unitIdx: number[]): InverterUnit[] {
   return unitIdx.map((g, j) => ({ ...model.inverters[g], node: j }));
 }
 
-/** Solution at the compact nodes for injections inj1/inj2 indexed by compact unit. */
-export function solveCompactFault(p: CompactFaultInput, inj1: ComplexVec, inj2: ComplexVec): LinearFault {
+/**
+ * Solution at the compact nodes for injections inj1/inj2 indexed by compact unit. `currentsOnly` skips the unit
+ * voltages (the IEC treatment needs the fault currents alone).
+ */
+export function solveCompactFault(p: CompactFaultInput, inj1: ComplexVec, inj2: ComplexVec, currentsOnly = false): LinearFault {
   const { colU, k, unitIdx, c } = p;
   const Jl = unitIdx.length;
   let e1r = c;
@@ -58,6 +63,7 @@ export function solveCompactFault(p: CompactFaultInput, inj1: ComplexVec, inj2: 
     e2i += z2.re[k] * inj2.im[l] + z2.im[k] * inj2.re[l];
   }
   const fp = faultEquations(p.type, [p.zeroView, { floating: false, e: { re: e1r, im: e1i }, z: p.z1kk }, { floating: false, e: { re: e2r, im: e2i }, z: p.z2kk }], p.zf);
+  if (currentsOnly) return { v: [EMPTY, EMPTY, EMPTY], i: fp.i, consistent: fp.consistent, zkk: [null, p.z1kk, p.z2kk] };
   const v1 = { re: new Float64Array(Jl), im: new Float64Array(Jl) };
   const v2 = { re: new Float64Array(Jl), im: new Float64Array(Jl) };
   const [, i1, i2] = fp.i;

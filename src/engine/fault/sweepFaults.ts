@@ -166,7 +166,7 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
     const unitIdx = isl.unitIdx;
     const Jl = unitIdx.length;
     const cin: CompactFaultInput = { model, unitIdx, colU, k, type: "3ph", zf, c, zeroView, z1kk: zkk[1], z2kk: zkk[2] };
-    const solveCompact = (type: FaultType, a: ComplexVec, bb: ComplexVec): LinearFault => solveCompactFault({ ...cin, type }, a, bb);
+    const solveCompact = (type: FaultType, a: ComplexVec, bb: ComplexVec, currentsOnly = false): LinearFault => solveCompactFault({ ...cin, type }, a, bb, currentsOnly);
     const cUnits = isl.units;
     const vpreC = new Float64Array(Jl).fill(c);
     let ik3 = -1;
@@ -175,7 +175,7 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
       let fp: LinearFault;
       let inj1: ComplexVec = { re: new Float64Array(Jl), im: new Float64Array(Jl) };
       let inj2: ComplexVec = { re: new Float64Array(Jl), im: new Float64Array(Jl) };
-      if (Jl === 0) fp = solveCompact(type, inj1, inj2);
+      if (Jl === 0) fp = solveCompact(type, inj1, inj2, true);
       else if (used === "iec") {
         unitIdx.forEach((g, l) => {
           const u = model.inverters[g];
@@ -183,7 +183,7 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
           inj1.re[l] = u.iMax_pu * u.ir_pu * Math.cos(ang);
           inj1.im[l] = u.iMax_pu * u.ir_pu * Math.sin(ang);
         });
-        fp = solveCompact(type, inj1, inj2);
+        fp = solveCompact(type, inj1, inj2, true);
       } else {
         const r = refinedIteration(cUnits, Jl, vpreC, (a, bb) => solveCompact(type, a, bb), compactAffineMap({ ...cin, type }));
         fp = r.fault;

@@ -122,6 +122,20 @@ export function factorLdlt(a: SymmetricTriplets, ordering: Ordering): LdltFactor
 export function solveLdlt(f: LdltFactor, bre: Float64Array, bim: Float64Array, refine = true): void {
   const { n, aPtr, aRow, aRe, aIm } = f;
   const { perm } = f.ordering;
+  if (!refine) {
+    const xr = new Float64Array(n);
+    const xi = new Float64Array(n);
+    for (let k = 0; k < n; k++) {
+      xr[k] = bre[perm[k]];
+      xi[k] = bim[perm[k]];
+    }
+    solvePermuted(f, xr, xi);
+    for (let k = 0; k < n; k++) {
+      bre[perm[k]] = xr[k];
+      bim[perm[k]] = xi[k];
+    }
+    return;
+  }
   const br = new Float64Array(n);
   const bi = new Float64Array(n);
   for (let k = 0; k < n; k++) {
@@ -131,13 +145,6 @@ export function solveLdlt(f: LdltFactor, bre: Float64Array, bim: Float64Array, r
   const xr = br.slice();
   const xi = bi.slice();
   solvePermuted(f, xr, xi);
-  if (!refine) {
-    for (let k = 0; k < n; k++) {
-      bre[perm[k]] = xr[k];
-      bim[perm[k]] = xi[k];
-    }
-    return;
-  }
   // r = b - A x (symmetric, lower storage)
   const rr = br;
   const ri = bi;

@@ -17,8 +17,9 @@ import type { InverterUnit } from "../network/model.ts";
 import type { ComplexVec, LinearFault } from "../fault/solveLinearFault.ts";
 import type { InverterUnitResult } from "../types.ts";
 import type { AffineMap } from "../fault/compactFault.ts";
+import { newtonSolve } from "./newtonFallback.ts";
 
-export const MAX_ITERATIONS = 2000;
+export const MAX_ITERATIONS = 300;
 export const TOLERANCE_PU = 1e-11;
 
 type C = { re: number; im: number };
@@ -169,29 +170,80 @@ export function refinedIteration(
   let t = targets(units, e.v1, e.v2, e.vext, vpre);
   x1 = t.x1;
   x2 = t.x2;
-  let alpha = 1;
   let residual = Infinity;
-  let previous = Infinity;
   let it = 0;
-  for (; it < MAX_ITERATIONS; it++) {
-    e = evalV(x1, x2);
-    t = targets(units, e.v1, e.v2, e.vext, vpre);
-    residual = 0;
-    for (let j = 0; j < J; j++) {
-      const r1 = Math.hypot(t.x1[j].re - x1[j].re, t.x1[j].im - x1[j].im);
-      const r2 = Math.hypot(t.x2[j].re - x2[j].re, t.x2[j].im - x2[j].im);
-      residual = Math.max(residual, r1 / units[j].ir_pu, r2 / units[j].ir_pu);
+  /** Damped fixed-point iterations from the present x; the step halves whenever the residual fails to fall by 5 %. */
+  const fixedPoint = (alpha0: number, maxIterations: number) => {
+    let alpha = alpha0;
+    let previous = Infinity;
+    for (let k = 0; k < maxIterations; k++, it++) {
+      e = evalV(x1, x2);
+      t = targets(units, e.v1, e.v2, e.vext, vpre);
+      residual = 0;
+      for (let j = 0; j < J; j++) {
+        const r1 = Math.hypot(t.x1[j].re - x1[j].re, t.x1[j].im - x1[j].im);
+        const r2 = Math.hypot(t.x2[j].re - x2[j].re, t.x2[j].im - x2[j].im);
+        residual = Math.max(residual, r1 / units[j].ir_pu, r2 / units[j].ir_pu);
+      }
+      if (residual < TOLERANCE_PU) return;
+      // Also breaks two-cycles, whose residual stays put.
+      if (residual > 0.95 * previous) alpha = Math.max(0.01, alpha / 2);
+      previous = residual;
+      const a = alpha;
+      x1 = x1.map((x, j) => ({ re: x.re + a * (t.x1[j].re - x.re), im: x.im + a * (t.x1[j].im - x.im) }));
+      x2 = x2.map((x, j) => ({ re: x.re + a * (t.x2[j].re - x.re), im: x.im + a * (t.x2[j].im - x.im) }));
     }
-    if (residual < TOLERANCE_PU) break;
-    // Halve the step whenever the residual fails to fall by 5 %: this also breaks two-cycles, whose residual stays put.
-    if (residual > 0.95 * previous) alpha = Math.max(0.01, alpha / 2);
-    previous = residual;
-    x1 = x1.map((x, j) => ({ re: x.re + alpha * (t.x1[j].re - x.re), im: x.im + alpha * (t.x1[j].im - x.im) }));
-    x2 = x2.map((x, j) => ({ re: x.re + alpha * (t.x2[j].re - x.re), im: x.im + alpha * (t.x2[j].im - x.im) }));
+  };
+  fixedPoint(1, MAX_ITERATIONS);
+  if (!(residual < TOLERANCE_PU)) {
+    // The damped fixed point stalled (limits switching, strong coupling): finish with Newton's method.
+    const m = 4 * J;
+    const pack = (a: C[], b: C[]) => {
+      const z = new Float64Array(m);
+      for (let j = 0; j < J; j++) {
+        z[4 * j] = a[j].re;
+        z[4 * j + 1] = a[j].im;
+        z[4 * j + 2] = b[j].re;
+        z[4 * j + 3] = b[j].im;
+      }
+      return z;
+    };
+    const unpack = (z: Float64Array): [C[], C[]] => [
+      units.map((_, j) => ({ re: z[4 * j], im: z[4 * j + 1] })),
+      units.map((_, j) => ({ re: z[4 * j + 2], im: z[4 * j + 3] })),
+    ];
+    const F = (z: Float64Array) => {
+      const [a, b] = unpack(z);
+      const ee = evalV(a, b);
+      const tt = targets(units, ee.v1, ee.v2, ee.vext, vpre);
+      const out = new Float64Array(m);
+      for (let j = 0; j < J; j++) {
+        out[4 * j] = tt.x1[j].re - a[j].re;
+        out[4 * j + 1] = tt.x1[j].im - a[j].im;
+        out[4 * j + 2] = tt.x2[j].re - b[j].re;
+        out[4 * j + 3] = tt.x2[j].im - b[j].im;
+      }
+      return out;
+    };
+    const norm = (f: Float64Array) => {
+      let r = 0;
+      for (let j = 0; j < J; j++) r = Math.max(r, Math.hypot(f[4 * j], f[4 * j + 1]) / units[j].ir_pu, Math.hypot(f[4 * j + 2], f[4 * j + 3]) / units[j].ir_pu);
+      return r;
+    };
+    const scale = new Float64Array(m);
+    units.forEach((u, j) => scale.fill(u.ir_pu, 4 * j, 4 * j + 4));
+    const nw = newtonSolve(pack(x1, x2), F, norm, scale, TOLERANCE_PU);
+    if (nw.norm < residual) {
+      [x1, x2] = unpack(nw.z);
+      residual = nw.norm;
+    }
+    it += nw.steps;
+    // Newton stops short at a kink of the limits (min/max switching); small damped steps finish from there.
+    if (!(residual < TOLERANCE_PU)) fixedPoint(0.1, 4 * MAX_ITERATIONS);
   }
   const converged = residual < TOLERANCE_PU;
-  if (!converged) {
-    // Report the state actually injected (the last update), not the one before it.
+  {
+    // Report the state actually injected (after the last update or Newton step).
     e = evalV(x1, x2);
     t = targets(units, e.v1, e.v2, e.vext, vpre);
   }

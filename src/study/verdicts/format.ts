@@ -2,6 +2,8 @@
 import type { ProtectiveDevice } from "../../model/schema.ts";
 
 export const fmtS = (t: number | null): string => (t === null ? "never" : `${t.toFixed(2)} s`);
+/** Three decimals, for times compared with a limit they may sit close to. */
+export const fmtS3 = (t: number | null): string => (t === null ? "never" : `${t.toFixed(3)} s`);
 export const fmtA = (i: number): string => (i >= 1000 ? `${(i / 1000).toFixed(2)} kA` : `${i.toFixed(0)} A`);
 export const fmtX = (x: number): string => `${x < 10 ? x.toFixed(3) : x.toFixed(1)} x`;
 

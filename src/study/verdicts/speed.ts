@@ -3,7 +3,7 @@
 import type { Criteria, Element, ProtectiveDevice } from "../../model/schema.ts";
 import type { DeviceResponse, FaultCase, FaultChains, Verdict, VerdictStatus } from "../types.ts";
 import { withstand_s, type WithstandFn } from "../withstand.ts";
-import { deviceTag, fmtA, fmtS, round } from "./format.ts";
+import { deviceTag, fmtA, fmtS3 as fmtS, round } from "./format.ts";
 
 /** The clearing limit for a fault location: the bus's own limit, for a line the tighter of its end buses'. */
 export function clearingLimit_s(fc: FaultCase, elements: ReadonlyMap<string, Element>, criteria: Criteria): number {

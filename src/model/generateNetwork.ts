@@ -317,6 +317,7 @@ function build(o: GenerateNetworkOptions, ties: number, shape: "radial" | "meshe
     },
     criteria: {
       cti_s: 0.3,
+      ctiDirectActing_s: 0,
       primaryMargin: 1.5,
       backupMargin: 1.2,
       loadMargin: 1.25,

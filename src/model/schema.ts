@@ -322,6 +322,9 @@ export type StudySettings = z.infer<typeof studySettingsSchema>;
 
 export const criteriaSchema = z.looseObject({
   cti_s: positive("Coordination time interval between primary and backup").default(0.3),
+  ctiDirectActing_s: nonNegative(
+    "Interval between two direct-acting LV devices (LV trip units, fuses): their bands already hold operating and clearing time, so a clear space (0 s) suffices",
+  ).default(0),
   primaryMargin: positive("Minimum end-of-zone fault current over pickup, primary zone").default(1.5),
   backupMargin: positive("Minimum end-of-zone fault current over pickup, backup zone").default(1.2),
   loadMargin: positive("Minimum pickup over maximum load current").default(1.25),

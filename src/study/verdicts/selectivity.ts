@@ -4,8 +4,16 @@ import type { Criteria, ProtectiveDevice } from "../../model/schema.ts";
 import type { DeviceResponse, FaultCase, FaultChains, Verdict, VerdictStatus } from "../types.ts";
 import { deviceTag, fmtS, round } from "./format.ts";
 
-export function pairCti_s(criteria: Criteria, primary: string, backup: string): number {
-  return criteria.pairCti.find((p) => p.primary === primary && p.backup === backup)?.cti_s ?? criteria.cti_s;
+const directActing = (d: ProtectiveDevice | undefined): boolean => d?.kind === "lvbreaker" || d?.kind === "fuse";
+
+/** The interval a pair must keep: the pair's own override, else a clear space between the bands of two
+ * direct-acting LV devices (their curves include operating and clearing time; IEEE Std 242, from memory),
+ * else the relay CTI. */
+export function pairCti_s(criteria: Criteria, primary: string, backup: string, devices?: ReadonlyMap<string, ProtectiveDevice>): number {
+  const own = criteria.pairCti.find((p) => p.primary === primary && p.backup === backup);
+  if (own) return own.cti_s;
+  if (devices && directActing(devices.get(primary)) && directActing(devices.get(backup))) return criteria.ctiDirectActing_s;
+  return criteria.cti_s;
 }
 
 export function selectivityVerdicts(
@@ -25,7 +33,7 @@ export function selectivityVerdicts(
       const key = `${p.device}>${b.device}`;
       if (seen.has(key)) continue;
       seen.add(key);
-      const cti = pairCti_s(criteria, p.device, b.device);
+      const cti = pairCti_s(criteria, p.device, b.device, devices);
       const pMax = p.tClearMax_s ?? p.tClear_s;
       const bMin = b.tClearMin_s ?? b.tClear_s;
       const band = bMin - pMax;
@@ -37,7 +45,7 @@ export function selectivityVerdicts(
       if (nominal < 0) {
         status = "fail";
         why = `backup operates first (${fmtS(b.tClear_s)} before ${fmtS(p.tClear_s)})`;
-      } else if (band >= cti) {
+      } else if (band >= cti && (cti > 0 || band > 0)) {
         status = "pass";
         why = `margin ${fmtS(band)} >= CTI ${fmtS(cti)}`;
       } else if (nominal >= cti) {

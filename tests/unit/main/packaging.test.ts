@@ -93,10 +93,11 @@ describe("CI script", () => {
     expect(spawnSync("bash", ["-n", join(repo, ".ci", "run")]).status).toBe(0);
   });
 
-  it("stops on errors, installs the browser only when missing, skips the Electron download and runs npm test", () => {
+  it("stops on errors, installs the browser and the PDF renderer only when missing, skips the Electron download and runs npm test", () => {
     expect(ci).toMatch(/^set -euo pipefail$/m);
-    expect(ci).toContain("if [ -x /usr/bin/chromium ]");
-    expect(ci).toContain("apt-get install -y chromium poppler-utils");
+    expect(ci).toContain("[ -x /usr/bin/chromium ] || need+=(chromium)");
+    expect(ci).toContain("command -v pdftoppm >/dev/null 2>&1 || need+=(poppler-utils)");
+    expect(ci).toContain('apt-get install -y "${need[@]}"');
     expect(ci).toMatch(/^export ELECTRON_SKIP_BINARY_DOWNLOAD=1$/m);
     expect(ci.indexOf("npm ci")).toBeLessThan(ci.indexOf("npm test"));
   });

@@ -97,8 +97,11 @@ export function solveCompactFault(p: CompactFaultInput, inj1: ComplexVec, inj2: 
 
 /** The affine response V = a + M x at the unit nodes, flattened as refinedIteration takes it. */
 export interface AffineMap {
-  a1: { re: number; im: number }[];
-  a2: { re: number; im: number }[];
+  /** a: unit voltages with no converter injection, positive (a1) and negative (a2) sequence. */
+  a1r: Float64Array;
+  a1i: Float64Array;
+  a2r: Float64Array;
+  a2i: Float64Array;
   /** [q * J + j]: response of unit j's V1 (M1) / V2 (M2) to injection q (q < J positive of unit q, else negative). */
   M1r: Float64Array;
   M1i: Float64Array;
@@ -109,6 +112,7 @@ export interface AffineMap {
 /**
  * Builds the map analytically: the fault currents are affine in the open-circuit voltages E1, E2 at the fault
  * (three evaluations of the fault equations give the coefficients), and V_U = c + Z_UU x - Z_Uk I.
+ * Written with scalars (no temporaries): the sweep builds one map per bus and fault type.
  */
 export function compactAffineMap(p: CompactFaultInput): AffineMap {
   const J = p.unitIdx.length;
@@ -117,47 +121,71 @@ export function compactAffineMap(p: CompactFaultInput): AffineMap {
   const i0 = f({ re: c, im: 0 }, { re: 0, im: 0 });
   const iE1 = f({ re: c + 1, im: 0 }, { re: 0, im: 0 });
   const iE2 = f({ re: c, im: 0 }, { re: 1, im: 0 });
-  const d = (a: Cx, b: Cx): Cx => ({ re: a.re - b.re, im: a.im - b.im });
-  const g11 = d(iE1[1], i0[1]);
-  const g21 = d(iE1[2], i0[2]);
-  const g12 = d(iE2[1], i0[1]);
-  const g22 = d(iE2[2], i0[2]);
-  const mul = (a: Cx, b: Cx): Cx => ({ re: a.re * b.re - a.im * b.im, im: a.re * b.im + a.im * b.re });
-  const z = (s: 1 | 2, g: number, node: number): Cx => ({ re: colU[s][g].re[node], im: colU[s][g].im[node] });
-  const nodes = p.unitIdx.map((g) => p.model.inverters[g].node);
-  const zjk1 = p.unitIdx.map((g) => z(1, g, k));
-  const zjk2 = p.unitIdx.map((g) => z(2, g, k));
-  const a1 = zjk1.map((zz) => {
-    const t = mul(zz, i0[1]);
-    return { re: c - t.re, im: -t.im };
-  });
-  const a2 = zjk2.map((zz) => {
-    const t = mul(zz, i0[2]);
-    return { re: -t.re, im: -t.im };
-  });
+  const g11r = iE1[1].re - i0[1].re;
+  const g11i = iE1[1].im - i0[1].im;
+  const g21r = iE1[2].re - i0[2].re;
+  const g21i = iE1[2].im - i0[2].im;
+  const g12r = iE2[1].re - i0[1].re;
+  const g12i = iE2[1].im - i0[1].im;
+  const g22r = iE2[2].re - i0[2].re;
+  const g22i = iE2[2].im - i0[2].im;
+  const nodes = new Int32Array(J);
+  const z1r = new Float64Array(J);
+  const z1i = new Float64Array(J);
+  const z2r = new Float64Array(J);
+  const z2i = new Float64Array(J);
+  const a1r = new Float64Array(J);
+  const a1i = new Float64Array(J);
+  const a2r = new Float64Array(J);
+  const a2i = new Float64Array(J);
+  const i01r = i0[1].re;
+  const i01i = i0[1].im;
+  const i02r = i0[2].re;
+  const i02i = i0[2].im;
+  for (let j = 0; j < J; j++) {
+    const g = p.unitIdx[j];
+    nodes[j] = p.model.inverters[g].node;
+    z1r[j] = colU[1][g].re[k];
+    z1i[j] = colU[1][g].im[k];
+    z2r[j] = colU[2][g].re[k];
+    z2i[j] = colU[2][g].im[k];
+    // a1 = c - Z[j,k] I0_1, a2 = -Z[j,k] I0_2
+    a1r[j] = c - (z1r[j] * i01r - z1i[j] * i01i);
+    a1i[j] = -(z1r[j] * i01i + z1i[j] * i01r);
+    a2r[j] = -(z2r[j] * i02r - z2i[j] * i02i);
+    a2i[j] = -(z2r[j] * i02i + z2i[j] * i02r);
+  }
   const M1r = new Float64Array(2 * J * J);
   const M1i = new Float64Array(2 * J * J);
   const M2r = new Float64Array(2 * J * J);
   const M2i = new Float64Array(2 * J * J);
   for (let q = 0; q < 2 * J; q++) {
     const pos = q < J;
-    const gq = p.unitIdx[pos ? q : q - J];
-    const zkq = pos ? zjk1[pos ? q : q - J] : zjk2[q - J]; // Z[k, q] = Z[q, k]
-    const dI1 = mul(pos ? g11 : g12, zkq);
-    const dI2 = mul(pos ? g21 : g22, zkq);
+    const l = pos ? q : q - J;
+    const gq = p.unitIdx[l];
+    // Z[k, q] = Z[q, k]
+    const zr = pos ? z1r[l] : z2r[l];
+    const zi = pos ? z1i[l] : z2i[l];
+    const h1r = pos ? g11r : g12r;
+    const h1i = pos ? g11i : g12i;
+    const h2r = pos ? g21r : g22r;
+    const h2i = pos ? g21i : g22i;
+    const d1r = h1r * zr - h1i * zi;
+    const d1i = h1r * zi + h1i * zr;
+    const d2r = h2r * zr - h2i * zi;
+    const d2i = h2r * zi + h2i * zr;
+    const col = pos ? colU[1][gq] : colU[2][gq];
     for (let j = 0; j < J; j++) {
-      const v1 = mul(zjk1[j], dI1);
-      const v2 = mul(zjk2[j], dI2);
-      let r1 = -v1.re;
-      let m1 = -v1.im;
-      let r2 = -v2.re;
-      let m2 = -v2.im;
+      let r1 = -(z1r[j] * d1r - z1i[j] * d1i);
+      let m1 = -(z1r[j] * d1i + z1i[j] * d1r);
+      let r2 = -(z2r[j] * d2r - z2i[j] * d2i);
+      let m2 = -(z2r[j] * d2i + z2i[j] * d2r);
       if (pos) {
-        r1 += colU[1][gq].re[nodes[j]];
-        m1 += colU[1][gq].im[nodes[j]];
+        r1 += col.re[nodes[j]];
+        m1 += col.im[nodes[j]];
       } else {
-        r2 += colU[2][gq].re[nodes[j]];
-        m2 += colU[2][gq].im[nodes[j]];
+        r2 += col.re[nodes[j]];
+        m2 += col.im[nodes[j]];
       }
       M1r[q * J + j] = r1;
       M1i[q * J + j] = m1;
@@ -165,5 +193,5 @@ export function compactAffineMap(p: CompactFaultInput): AffineMap {
       M2i[q * J + j] = m2;
     }
   }
-  return { a1, a2, M1r, M1i, M2r, M2i };
+  return { a1r, a1i, a2r, a2i, M1r, M1i, M2r, M2i };
 }

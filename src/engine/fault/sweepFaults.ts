@@ -9,9 +9,9 @@ import { FAULT_TYPES } from "../types.ts";
 import type { Cx } from "../network/model.ts";
 import { sequenceSystem, type SequenceSystem } from "../network/sequenceSystem.ts";
 import { compactAffineMap, compactUnits, solveCompactFault, unitColumns, type CompactFaultInput } from "./compactFault.ts";
-import { solveLdlt } from "../sparse/ldlt.ts";
+import { solveLdltBlock } from "../sparse/ldlt.ts";
 import { inverseSubset, type InverseSubset } from "../sparse/takahashi.ts";
-import { deviceCombination } from "./deviceCombination.ts";
+import { deviceCombination, type Combination } from "./deviceCombination.ts";
 import type { SeqView } from "./faultEquations.ts";
 import { faultMagnitudes } from "./faultCurrentMagnitude.ts";
 import { refinedIteration } from "../inverter/refinedIteration.ts";
@@ -58,7 +58,6 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
   const sysVariant = used === "refined" && hasGfm ? "refined" : "iec";
   const sys = [0, 1, 2].map((s) => sequenceSystem(model, cache, s as 0 | 1 | 2, sysVariant)) as [SequenceSystem, SequenceSystem, SequenceSystem];
   const tk: InverseSubset[] = sys.map((s) => inverseSubset(s.factor));
-  const n = model.nodes.length;
 
   const locs = options.devices ? [...options.devices] : [...model.devices];
   const D = locs.length;
@@ -72,11 +71,11 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
   busIds.forEach((id, b) => {
     if (busNodes[b] < 0) messages.push({ level: "warning", code: "not-in-service", text: `Bus ${id}: not in service in this scenario (or unknown); its faults are zero` });
   });
-  const xr = new Float64Array(n);
-  const xi = new Float64Array(n);
+  const combos: (Combination | null)[] = [];
   for (let d = 0; d < D; d++) {
     const loc = locs[d];
     const combo = deviceCombination(model, used === "refined" ? "refined" : "iec", loc.element, loc.end);
+    combos.push(combo);
     if (!combo) {
       devices.push({ element: loc.element, end: loc.end, bus: "" });
       messages.push({ level: "warning", code: "device-location", text: `Device location ${loc.element} (${loc.end}): element not in service in this scenario; its currents are zero`, element: loc.element });
@@ -86,32 +85,8 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
     const nd = model.nodes[combo.node];
     base_A[d] = (opts.baseMVA * 1000) / (SQRT3 * nd.un_kV);
     shift_deg[d] = nd.shift_deg;
-    for (let s = 0; s < 3; s++) {
-      const tm = combo.terms[s];
-      if (tm.nodes.length > 0) {
-        xr.fill(0);
-        xi.fill(0);
-        for (let q = 0; q < tm.nodes.length; q++) {
-          xr[tm.nodes[q]] += tm.re[q];
-          xi[tm.nodes[q]] += tm.im[q];
-        }
-        solveLdlt(sys[s].factor, xr, xi, false);
-        for (let b = 0; b < B; b++) {
-          const k = busNodes[b];
-          if (k < 0) continue;
-          const o = (d * B + b) * 6 + 2 * s;
-          transfer[o] = -xr[k];
-          transfer[o + 1] = -xi[k];
-        }
-        for (let j = 0; j < J; j++) {
-          const o = (d * J + j) * 6 + 2 * s;
-          injMap[o] = xr[model.inverters[j].node];
-          injMap[o + 1] = xi[model.inverters[j].node];
-        }
-      }
-      if (combo.unit >= 0 && s > 0) injMap[(d * J + combo.unit) * 6 + 2 * s] -= 1;
-    }
   }
+  deviceTransfers(model, sys, combos, busNodes, transfer, injMap);
   // Columns of Z at the inverter nodes (positive and negative sequence).
   const colU = unitColumns(model, cache, sysVariant);
 
@@ -232,6 +207,78 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
     deviceData: { base_A, transfer, faultSeq_pu, injMap, inj_pu, nInj: J, shift_deg, busShift_deg, overrides },
     messages,
   };
+}
+
+/** Columns solved together per block: one cache line of doubles per row of the block. */
+const BLOCK = 8;
+
+/**
+ * transfer[d, b, s] = -(Z_s c_d)[k_b] and injMap[d, j, s] = (Z_s c_d)[node_j] for every device d with a combination,
+ * solving BLOCK devices at a time per sequence (see solveLdltBlock); the unit's own injection enters its terminal
+ * current with -1. Values equal those of one solve per device and sequence, bit for bit.
+ */
+function deviceTransfers(
+  model: EngineInternal["model"],
+  sys: [SequenceSystem, SequenceSystem, SequenceSystem],
+  combos: (Combination | null)[],
+  busNodes: number[],
+  transfer: Float64Array,
+  injMap: Float64Array,
+): void {
+  const n = model.nodes.length;
+  const D = combos.length;
+  const B = busNodes.length;
+  const J = model.inverters.length;
+  const inv = sys[1].factor.ordering.inv;
+  // Rows of the block for each faulted bus and each inverter node (the ordering is shared by all sequences).
+  const busRow = new Int32Array(B);
+  for (let b = 0; b < B; b++) busRow[b] = busNodes[b] < 0 ? -1 : inv[busNodes[b]] * BLOCK;
+  const unitRow = new Int32Array(J);
+  for (let j = 0; j < J; j++) unitRow[j] = inv[model.inverters[j].node] * BLOCK;
+  const xr = new Float64Array(n * BLOCK);
+  const xi = new Float64Array(n * BLOCK);
+  const cols = new Int32Array(BLOCK);
+  for (let s = 0; s < 3; s++) {
+    const f = sys[s].factor;
+    for (let d0 = 0; d0 < D; ) {
+      // Gather up to BLOCK devices with terms in this sequence.
+      let m = 0;
+      xr.fill(0);
+      xi.fill(0);
+      for (; d0 < D && m < BLOCK; d0++) {
+        const tm = combos[d0]?.terms[s];
+        if (!tm || tm.nodes.length === 0) continue;
+        for (let q = 0; q < tm.nodes.length; q++) {
+          const o = inv[tm.nodes[q]] * BLOCK + m;
+          xr[o] += tm.re[q];
+          xi[o] += tm.im[q];
+        }
+        cols[m++] = d0;
+      }
+      if (m === 0) break;
+      solveLdltBlock(f, xr, xi, BLOCK);
+      for (let c = 0; c < m; c++) {
+        const d = cols[c];
+        const base = d * B * 6 + 2 * s;
+        for (let b = 0; b < B; b++) {
+          const r = busRow[b];
+          if (r < 0) continue;
+          transfer[base + b * 6] = -xr[r + c];
+          transfer[base + b * 6 + 1] = -xi[r + c];
+        }
+        for (let j = 0; j < J; j++) {
+          const o = (d * J + j) * 6 + 2 * s;
+          injMap[o] = xr[unitRow[j] + c];
+          injMap[o + 1] = xi[unitRow[j] + c];
+        }
+      }
+    }
+  }
+  for (let d = 0; d < D; d++) {
+    const combo = combos[d];
+    if (!combo || combo.unit < 0) continue;
+    for (let s = 1; s < 3; s++) injMap[(d * J + combo.unit) * 6 + 2 * s] -= 1;
+  }
 }
 
 /** kappa at node k from the inverse subset: radial branch sum (entries Z[m,k] of the branches at k) or method B. */

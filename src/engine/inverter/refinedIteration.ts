@@ -35,81 +35,151 @@ export interface RefinedOutcome {
   out: { i1: C; i2: C }[];
 }
 
-const cm = (a: C, b: C): C => ({ re: a.re * b.re - a.im * b.im, im: a.re * b.im + a.im * b.re });
 const cabs = (a: C) => Math.hypot(a.re, a.im);
 
 const A: C = { re: -0.5, im: Math.sqrt(3) / 2 };
 const A2: C = { re: -0.5, im: -Math.sqrt(3) / 2 };
 /** Largest phase-current magnitude of positive and negative-sequence currents (no zero sequence in a converter). */
-function maxPhase(i1: C, i2: C): number {
-  const b1 = cm(A2, i1);
-  const b2 = cm(A, i2);
-  const c1 = cm(A, i1);
-  const c2 = cm(A2, i2);
-  return Math.max(Math.hypot(i1.re + i2.re, i1.im + i2.im), Math.hypot(b1.re + b2.re, b1.im + b2.im), Math.hypot(c1.re + c2.re, c1.im + c2.im));
+function maxPhase(i1r: number, i1i: number, i2r: number, i2i: number): number {
+  // b1 = a^2 i1, b2 = a i2, c1 = a i1, c2 = a^2 i2 (written out as cm(x, y) = (x.re y.re - x.im y.im, x.re y.im + x.im y.re))
+  const b1r = A2.re * i1r - A2.im * i1i;
+  const b1i = A2.re * i1i + A2.im * i1r;
+  const b2r = A.re * i2r - A.im * i2i;
+  const b2i = A.re * i2i + A.im * i2r;
+  const c1r = A.re * i1r - A.im * i1i;
+  const c1i = A.re * i1i + A.im * i1r;
+  const c2r = A2.re * i2r - A2.im * i2i;
+  const c2i = A2.re * i2i + A2.im * i2r;
+  return Math.max(Math.hypot(i1r + i2r, i1i + i2i), Math.hypot(b1r + b2r, b1i + b2i), Math.hypot(c1r + c2r, c1i + c2i));
 }
 
-interface Target {
-  x1: C[];
-  x2: C[];
-  out: { i1: C; i2: C }[];
-  limited: boolean[];
+/**
+ * Workspace of the iteration: every per-unit quantity in typed arrays, so that an iteration step allocates nothing
+ * (the sweep runs it for every bus and fault type). Arithmetic is the same, operation by operation, as the object
+ * form it replaced.
+ */
+interface Work {
+  J: number;
+  /** Voltages at the unit nodes for the present injections. */
+  v1r: Float64Array;
+  v1i: Float64Array;
+  v2r: Float64Array;
+  v2i: Float64Array;
+  /** Targets: the injections each unit wants for those voltages, and its total output currents. */
+  t1r: Float64Array;
+  t1i: Float64Array;
+  t2r: Float64Array;
+  t2i: Float64Array;
+  o1r: Float64Array;
+  o1i: Float64Array;
+  o2r: Float64Array;
+  o2i: Float64Array;
+  limited: Uint8Array;
 }
 
-function targets(units: InverterUnit[], v1s: C[], v2s: C[], vext: C[], vpre: Float64Array): Target {
-  const t: Target = { x1: [], x2: [], out: [], limited: [] };
-  units.forEach((u, j) => {
-    const v1 = v1s[j];
-    const v2 = v2s[j];
+function createWork(J: number): Work {
+  const f = () => new Float64Array(J);
+  return { J, v1r: f(), v1i: f(), v2r: f(), v2i: f(), t1r: f(), t1i: f(), t2r: f(), t2i: f(), o1r: f(), o1i: f(), o2r: f(), o2i: f(), limited: new Uint8Array(J) };
+}
+
+/** Targets for the voltages in w (v1, v2) with the angle references a1 (the voltages without converter injections). */
+function targets(units: InverterUnit[], w: Work, a1r: Float64Array, a1i: Float64Array, vpre: Float64Array): void {
+  for (let j = 0; j < units.length; j++) {
+    const u = units[j];
+    const v1r = w.v1r[j];
+    const v1i = w.v1i[j];
+    const v2r = w.v2r[j];
+    const v2i = w.v2i[j];
     const lim = u.iMax_pu * u.ir_pu;
     if (u.control === "grid-forming") {
       // Unlimited currents out of the source behind zForming (positive: E - V1; negative: -V2), then one common
       // scale so that the largest phase current stays within iMax Ir.
-      const z2 = u.zForming.re ** 2 + u.zForming.im ** 2;
-      const divZ = (a: C): C => ({ re: (a.re * u.zForming.re + a.im * u.zForming.im) / z2, im: (a.im * u.zForming.re - a.re * u.zForming.im) / z2 });
-      const i1u = divZ({ re: vpre[u.node] - v1.re, im: -v1.im });
-      const i2u = divZ({ re: -v2.re, im: -v2.im });
-      const m = maxPhase(i1u, i2u);
+      const zr = u.zForming.re;
+      const zi = u.zForming.im;
+      const z2 = zr ** 2 + zi ** 2;
+      const e1r = vpre[u.node] - v1r;
+      const e1i = -v1i;
+      const i1ur = (e1r * zr + e1i * zi) / z2;
+      const i1ui = (e1i * zr - e1r * zi) / z2;
+      const e2r = -v2r;
+      const e2i = -v2i;
+      const i2ur = (e2r * zr + e2i * zi) / z2;
+      const i2ui = (e2i * zr - e2r * zi) / z2;
+      const m = maxPhase(i1ur, i1ui, i2ur, i2ui);
       const k = m > lim ? lim / m : 1;
-      const target1 = { re: i1u.re * k, im: i1u.im * k };
-      const target2 = { re: i2u.re * k, im: i2u.im * k };
-      t.x1.push({ re: target1.re - i1u.re, im: target1.im - i1u.im });
-      t.x2.push({ re: target2.re - i2u.re, im: target2.im - i2u.im });
-      t.out.push({ i1: target1, i2: target2 });
-      t.limited.push(k < 1);
-      return;
+      const g1r = i1ur * k;
+      const g1i = i1ui * k;
+      const g2r = i2ur * k;
+      const g2i = i2ui * k;
+      w.t1r[j] = g1r - i1ur;
+      w.t1i[j] = g1i - i1ui;
+      w.t2r[j] = g2r - i2ur;
+      w.t2i[j] = g2i - i2ui;
+      w.o1r[j] = g1r;
+      w.o1i[j] = g1i;
+      w.o2r[j] = g2r;
+      w.o2i[j] = g2i;
+      w.limited[j] = k < 1 ? 1 : 0;
+      continue;
     }
-    const vm = cabs(v1) * u.vScale;
+    const vm = Math.hypot(v1r, v1i) * u.vScale;
     const dip = Math.max(0, 1 - vm);
     const iq = Math.min(u.kFactor * dip, u.iMax_pu);
     const pmax = Math.sqrt(Math.max(0, u.iMax_pu * u.iMax_pu - iq * iq));
     const ip = Math.max(-pmax, Math.min(pmax, u.activePower_pu));
-    const ref = cabs(vext[j]) > 1e-9 ? vext[j] : { re: 1, im: 0 };
-    const rm = cabs(ref);
-    const i1 = cm({ re: ip * u.ir_pu, im: -iq * u.ir_pu }, { re: ref.re / rm, im: ref.im / rm });
-    let i2 = { re: 0, im: 0 };
+    let refr = 1;
+    let refi = 0;
+    if (Math.hypot(a1r[j], a1i[j]) > 1e-9) {
+      refr = a1r[j];
+      refi = a1i[j];
+    }
+    const rm = Math.hypot(refr, refi);
+    const ar = ip * u.ir_pu;
+    const ai = -iq * u.ir_pu;
+    const br = refr / rm;
+    const bi = refi / rm;
+    const i1r = ar * br - ai * bi;
+    const i1i = ar * bi + ai * br;
+    let i2r = 0;
+    let i2i = 0;
     if (u.negSeq === "k-factor") {
-      const v2m = cabs(v2) * u.vScale;
+      const v2abs = Math.hypot(v2r, v2i);
+      const v2m = v2abs * u.vScale;
       const room = Math.max(0, u.iMax_pu - Math.hypot(ip, iq));
       const m2 = Math.min(u.k2 * v2m, room);
-      if (v2m > 1e-12) i2 = cm({ re: 0, im: (m2 * u.ir_pu) / cabs(v2) }, v2);
+      if (v2m > 1e-12) {
+        const ci = (m2 * u.ir_pu) / v2abs;
+        i2r = 0 * v2r - ci * v2i;
+        i2i = 0 * v2i + ci * v2r;
+      }
     }
-    t.x1.push(i1);
-    t.x2.push(i2);
-    t.out.push({ i1, i2 });
-    t.limited.push(Math.hypot(ip, iq) + cabs(i2) / u.ir_pu >= u.iMax_pu * (1 - 1e-9));
-  });
-  return t;
+    w.t1r[j] = i1r;
+    w.t1i[j] = i1i;
+    w.t2r[j] = i2r;
+    w.t2i[j] = i2i;
+    w.o1r[j] = i1r;
+    w.o1i[j] = i1i;
+    w.o2r[j] = i2r;
+    w.o2i[j] = i2i;
+    w.limited[j] = Math.hypot(ip, iq) + Math.hypot(i2r, i2i) / u.ir_pu >= u.iMax_pu * (1 - 1e-9) ? 1 : 0;
+  }
 }
 
 /** Samples the affine response V = a + M x at the unit nodes with 2J + 1 network solutions. */
 function sampleMap(units: InverterUnit[], n: number, solve: (inj1: ComplexVec, inj2: ComplexVec) => LinearFault): AffineMap {
   const J = units.length;
   const vec = () => ({ re: new Float64Array(n), im: new Float64Array(n) });
-  const at = (f: LinearFault, s: 1 | 2, u: InverterUnit): C => ({ re: f.v[s].re[u.node], im: f.v[s].im[u.node] });
   const base = solve(vec(), vec());
-  const a1 = units.map((u) => at(base, 1, u));
-  const a2 = units.map((u) => at(base, 2, u));
+  const a1r = new Float64Array(J);
+  const a1i = new Float64Array(J);
+  const a2r = new Float64Array(J);
+  const a2i = new Float64Array(J);
+  units.forEach((u, j) => {
+    a1r[j] = base.v[1].re[u.node];
+    a1i[j] = base.v[1].im[u.node];
+    a2r[j] = base.v[2].re[u.node];
+    a2i[j] = base.v[2].im[u.node];
+  });
   const M1r = new Float64Array(2 * J * J);
   const M1i = new Float64Array(2 * J * J);
   const M2r = new Float64Array(2 * J * J);
@@ -121,13 +191,40 @@ function sampleMap(units: InverterUnit[], n: number, solve: (inj1: ComplexVec, i
     (q < J ? i1 : i2).re[u.node] = 1;
     const f = solve(i1, i2);
     units.forEach((w, j) => {
-      M1r[q * J + j] = f.v[1].re[w.node] - a1[j].re;
-      M1i[q * J + j] = f.v[1].im[w.node] - a1[j].im;
-      M2r[q * J + j] = f.v[2].re[w.node] - a2[j].re;
-      M2i[q * J + j] = f.v[2].im[w.node] - a2[j].im;
+      M1r[q * J + j] = f.v[1].re[w.node] - a1r[j];
+      M1i[q * J + j] = f.v[1].im[w.node] - a1i[j];
+      M2r[q * J + j] = f.v[2].re[w.node] - a2r[j];
+      M2i[q * J + j] = f.v[2].im[w.node] - a2i[j];
     });
   }
-  return { a1, a2, M1r, M1i, M2r, M2i };
+  return { a1r, a1i, a2r, a2i, M1r, M1i, M2r, M2i };
+}
+
+/** V = a + M x at the unit nodes, into w.v1 / w.v2 (columns with a zero injection are skipped). */
+function evalV(map: AffineMap, w: Work, x1r: Float64Array, x1i: Float64Array, x2r: Float64Array, x2i: Float64Array): void {
+  const J = w.J;
+  const { M1r, M1i, M2r, M2i } = map;
+  const { v1r, v1i, v2r, v2i } = w;
+  v1r.set(map.a1r);
+  v1i.set(map.a1i);
+  v2r.set(map.a2r);
+  v2i.set(map.a2i);
+  for (let q = 0; q < 2 * J; q++) {
+    const xr = q < J ? x1r[q] : x2r[q - J];
+    const xi = q < J ? x1i[q] : x2i[q - J];
+    if (xr === 0 && xi === 0) continue;
+    const o = q * J;
+    for (let j = 0; j < J; j++) {
+      const a = M1r[o + j];
+      const b = M1i[o + j];
+      const c = M2r[o + j];
+      const d = M2i[o + j];
+      v1r[j] += a * xr - b * xi;
+      v1i[j] += a * xi + b * xr;
+      v2r[j] += c * xr - d * xi;
+      v2i[j] += c * xi + d * xr;
+    }
+  }
 }
 
 /** `precomputed`: the affine map when the caller has it in closed form (see compactAffineMap). */
@@ -139,37 +236,22 @@ export function refinedIteration(
   precomputed?: AffineMap,
 ): RefinedOutcome {
   const J = units.length;
-  const vec = () => ({ re: new Float64Array(n), im: new Float64Array(n) });
   const map = precomputed ?? sampleMap(units, n, solve);
-  const { a1, a2, M1r, M1i, M2r, M2i } = map;
-  const evalV = (x1: C[], x2: C[]) => {
-    const v1 = a1.map((a) => ({ ...a }));
-    const v2 = a2.map((a) => ({ ...a }));
-    for (let q = 0; q < 2 * J; q++) {
-      const x = q < J ? x1[q] : x2[q - J];
-      const xr = x.re;
-      const xi = x.im;
-      if (xr === 0 && xi === 0) continue;
-      const o = q * J;
-      for (let j = 0; j < J; j++) {
-        const a = M1r[o + j];
-        const b = M1i[o + j];
-        const c = M2r[o + j];
-        const d = M2i[o + j];
-        v1[j].re += a * xr - b * xi;
-        v1[j].im += a * xi + b * xr;
-        v2[j].re += c * xr - d * xi;
-        v2[j].im += c * xi + d * xr;
-      }
-    }
-    return { v1, v2, vext: a1 };
+  const { a1r, a1i } = map;
+  const w = createWork(J);
+  const step = (x1r: Float64Array, x1i: Float64Array, x2r: Float64Array, x2i: Float64Array) => {
+    evalV(map, w, x1r, x1i, x2r, x2i);
+    targets(units, w, a1r, a1i, vpre);
   };
-  let x1: C[] = units.map(() => ({ re: 0, im: 0 }));
-  let x2: C[] = units.map(() => ({ re: 0, im: 0 }));
-  let e = evalV(x1, x2);
-  let t = targets(units, e.v1, e.v2, e.vext, vpre);
-  x1 = t.x1;
-  x2 = t.x2;
+  const x1r = new Float64Array(J);
+  const x1i = new Float64Array(J);
+  const x2r = new Float64Array(J);
+  const x2i = new Float64Array(J);
+  step(x1r, x1i, x2r, x2i);
+  x1r.set(w.t1r);
+  x1i.set(w.t1i);
+  x2r.set(w.t2r);
+  x2i.set(w.t2i);
   let residual = Infinity;
   let it = 0;
   /** Damped fixed-point iterations from the present x; the step halves whenever the residual fails to fall by 5 %. */
@@ -177,12 +259,11 @@ export function refinedIteration(
     let alpha = alpha0;
     let previous = Infinity;
     for (let k = 0; k < maxIterations; k++, it++) {
-      e = evalV(x1, x2);
-      t = targets(units, e.v1, e.v2, e.vext, vpre);
+      step(x1r, x1i, x2r, x2i);
       residual = 0;
       for (let j = 0; j < J; j++) {
-        const r1 = Math.hypot(t.x1[j].re - x1[j].re, t.x1[j].im - x1[j].im);
-        const r2 = Math.hypot(t.x2[j].re - x2[j].re, t.x2[j].im - x2[j].im);
+        const r1 = Math.hypot(w.t1r[j] - x1r[j], w.t1i[j] - x1i[j]);
+        const r2 = Math.hypot(w.t2r[j] - x2r[j], w.t2i[j] - x2i[j]);
         residual = Math.max(residual, r1 / units[j].ir_pu, r2 / units[j].ir_pu);
       }
       if (residual < TOLERANCE_PU) return;
@@ -190,38 +271,49 @@ export function refinedIteration(
       if (residual > 0.95 * previous) alpha = Math.max(0.01, alpha / 2);
       previous = residual;
       const a = alpha;
-      x1 = x1.map((x, j) => ({ re: x.re + a * (t.x1[j].re - x.re), im: x.im + a * (t.x1[j].im - x.im) }));
-      x2 = x2.map((x, j) => ({ re: x.re + a * (t.x2[j].re - x.re), im: x.im + a * (t.x2[j].im - x.im) }));
+      for (let j = 0; j < J; j++) {
+        x1r[j] = x1r[j] + a * (w.t1r[j] - x1r[j]);
+        x1i[j] = x1i[j] + a * (w.t1i[j] - x1i[j]);
+        x2r[j] = x2r[j] + a * (w.t2r[j] - x2r[j]);
+        x2i[j] = x2i[j] + a * (w.t2i[j] - x2i[j]);
+      }
     }
   };
   fixedPoint(1, MAX_ITERATIONS);
   if (!(residual < TOLERANCE_PU)) {
     // The damped fixed point stalled (limits switching, strong coupling): finish with Newton's method.
     const m = 4 * J;
-    const pack = (a: C[], b: C[]) => {
+    const pack = () => {
       const z = new Float64Array(m);
       for (let j = 0; j < J; j++) {
-        z[4 * j] = a[j].re;
-        z[4 * j + 1] = a[j].im;
-        z[4 * j + 2] = b[j].re;
-        z[4 * j + 3] = b[j].im;
+        z[4 * j] = x1r[j];
+        z[4 * j + 1] = x1i[j];
+        z[4 * j + 2] = x2r[j];
+        z[4 * j + 3] = x2i[j];
       }
       return z;
     };
-    const unpack = (z: Float64Array): [C[], C[]] => [
-      units.map((_, j) => ({ re: z[4 * j], im: z[4 * j + 1] })),
-      units.map((_, j) => ({ re: z[4 * j + 2], im: z[4 * j + 3] })),
-    ];
+    const p1r = new Float64Array(J);
+    const p1i = new Float64Array(J);
+    const p2r = new Float64Array(J);
+    const p2i = new Float64Array(J);
+    const unpack = (z: Float64Array) => {
+      for (let j = 0; j < J; j++) {
+        p1r[j] = z[4 * j];
+        p1i[j] = z[4 * j + 1];
+        p2r[j] = z[4 * j + 2];
+        p2i[j] = z[4 * j + 3];
+      }
+    };
     const F = (z: Float64Array) => {
-      const [a, b] = unpack(z);
-      const ee = evalV(a, b);
-      const tt = targets(units, ee.v1, ee.v2, ee.vext, vpre);
+      unpack(z);
+      step(p1r, p1i, p2r, p2i);
       const out = new Float64Array(m);
       for (let j = 0; j < J; j++) {
-        out[4 * j] = tt.x1[j].re - a[j].re;
-        out[4 * j + 1] = tt.x1[j].im - a[j].im;
-        out[4 * j + 2] = tt.x2[j].re - b[j].re;
-        out[4 * j + 3] = tt.x2[j].im - b[j].im;
+        out[4 * j] = w.t1r[j] - p1r[j];
+        out[4 * j + 1] = w.t1i[j] - p1i[j];
+        out[4 * j + 2] = w.t2r[j] - p2r[j];
+        out[4 * j + 3] = w.t2i[j] - p2i[j];
       }
       return out;
     };
@@ -232,9 +324,13 @@ export function refinedIteration(
     };
     const scale = new Float64Array(m);
     units.forEach((u, j) => scale.fill(u.ir_pu, 4 * j, 4 * j + 4));
-    const nw = newtonSolve(pack(x1, x2), F, norm, scale, TOLERANCE_PU);
+    const nw = newtonSolve(pack(), F, norm, scale, TOLERANCE_PU);
     if (nw.norm < residual) {
-      [x1, x2] = unpack(nw.z);
+      unpack(nw.z);
+      x1r.set(p1r);
+      x1i.set(p1i);
+      x2r.set(p2r);
+      x2i.set(p2i);
       residual = nw.norm;
     }
     it += nw.steps;
@@ -242,24 +338,21 @@ export function refinedIteration(
     if (!(residual < TOLERANCE_PU)) fixedPoint(0.1, 4 * MAX_ITERATIONS);
   }
   const converged = residual < TOLERANCE_PU;
-  {
-    // Report the state actually injected (after the last update or Newton step).
-    e = evalV(x1, x2);
-    t = targets(units, e.v1, e.v2, e.vext, vpre);
-  }
+  // Report the state actually injected (after the last update or Newton step).
+  step(x1r, x1i, x2r, x2i);
   // Currents out of each unit for the injections used: x itself (grid-following), or the unlimited source current
   // plus the limiting correction x (grid-forming). Equal to the targets once converged.
   const out = units.map((_, j) => ({
-    i1: { re: t.out[j].i1.re - t.x1[j].re + x1[j].re, im: t.out[j].i1.im - t.x1[j].im + x1[j].im },
-    i2: { re: t.out[j].i2.re - t.x2[j].re + x2[j].re, im: t.out[j].i2.im - t.x2[j].im + x2[j].im },
+    i1: { re: w.o1r[j] - w.t1r[j] + x1r[j], im: w.o1i[j] - w.t1i[j] + x1i[j] },
+    i2: { re: w.o2r[j] - w.t2r[j] + x2r[j], im: w.o2i[j] - w.t2i[j] + x2i[j] },
   }));
-  const inj1 = vec();
-  const inj2 = vec();
+  const inj1 = { re: new Float64Array(n), im: new Float64Array(n) };
+  const inj2 = { re: new Float64Array(n), im: new Float64Array(n) };
   units.forEach((u, j) => {
-    inj1.re[u.node] += x1[j].re;
-    inj1.im[u.node] += x1[j].im;
-    inj2.re[u.node] += x2[j].re;
-    inj2.im[u.node] += x2[j].im;
+    inj1.re[u.node] += x1r[j];
+    inj1.im[u.node] += x1i[j];
+    inj2.re[u.node] += x2r[j];
+    inj2.im[u.node] += x2i[j];
   });
   const fault = solve(inj1, inj2);
   const unitsOut: InverterUnitResult[] = units.map((u, j) => ({
@@ -267,8 +360,8 @@ export function refinedIteration(
     control: u.control,
     i1_pu: cabs(out[j].i1) / u.ir_pu,
     i2_pu: cabs(out[j].i2) / u.ir_pu,
-    v1_pu: cabs(e.v1[j]) * u.vScale,
-    limited: t.limited[j],
+    v1_pu: Math.hypot(w.v1r[j], w.v1i[j]) * u.vScale,
+    limited: w.limited[j] === 1,
   }));
   return { fault, inj: [inj1, inj2], iterations: it + 1, residual_pu: residual, converged, units: unitsOut, out };
 }

@@ -201,3 +201,59 @@ function solvePermuted(f: LdltFactor, xr: Float64Array, xi: Float64Array): void 
     xi[k] = i;
   }
 }
+
+/**
+ * Solves A X = B for m right-hand sides at once, without refinement, on blocks already in permuted order and laid out
+ * row-major: entry (k, c) at k * m + c. Each column goes through exactly the operations of `solveLdlt(.., false)`
+ * (same order, same zero skips), so its result is the same to the bit; the block layout makes the scattered row
+ * accesses of the substitutions fetch all m columns at once.
+ */
+export function solveLdltBlock(f: LdltFactor, xr: Float64Array, xi: Float64Array, m: number): void {
+  const { n, lre, lim, dre, dim } = f;
+  const { colPtr, rowIdx } = f.ordering;
+  for (let k = 0; k < n; k++) {
+    const p0 = colPtr[k];
+    const p1 = colPtr[k + 1];
+    if (p0 === p1) continue;
+    const ok = k * m;
+    for (let c = 0; c < m; c++) {
+      const r = xr[ok + c];
+      const i = xi[ok + c];
+      if (r === 0 && i === 0) continue;
+      for (let p = p0; p < p1; p++) {
+        const o = rowIdx[p] * m + c;
+        xr[o] -= lre[p] * r - lim[p] * i;
+        xi[o] -= lre[p] * i + lim[p] * r;
+      }
+    }
+  }
+  for (let k = 0; k < n; k++) {
+    const d2 = dre[k] * dre[k] + dim[k] * dim[k];
+    const dr = dre[k];
+    const di = dim[k];
+    const ok = k * m;
+    for (let c = 0; c < m; c++) {
+      const a = xr[ok + c];
+      const b = xi[ok + c];
+      xr[ok + c] = (a * dr + b * di) / d2;
+      xi[ok + c] = (b * dr - a * di) / d2;
+    }
+  }
+  for (let k = n - 1; k >= 0; k--) {
+    const p0 = colPtr[k];
+    const p1 = colPtr[k + 1];
+    if (p0 === p1) continue;
+    const ok = k * m;
+    for (let c = 0; c < m; c++) {
+      let r = xr[ok + c];
+      let i = xi[ok + c];
+      for (let p = p0; p < p1; p++) {
+        const o = rowIdx[p] * m + c;
+        r -= lre[p] * xr[o] - lim[p] * xi[o];
+        i -= lre[p] * xi[o] + lim[p] * xr[o];
+      }
+      xr[ok + c] = r;
+      xi[ok + c] = i;
+    }
+  }
+}

@@ -32,6 +32,8 @@ export type {
 
 // one steady fault state
 export { operatingTime } from "./operatingTime.ts";
+export { deviceTimer } from "./deviceTimer.ts";
+export type { BandTimes, DeviceTimer } from "./deviceTimer.ts";
 export { measurementFromSequence, balancedMeasurement } from "./measurement.ts";
 export { directionOf, POLARISING_MIN_PU } from "./directionOf.ts";
 export type { Direction, DirectionDecision } from "./directionOf.ts";

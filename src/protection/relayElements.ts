@@ -51,6 +51,18 @@ function gateFor(fn: RelayFunction): ((m: Measurement, ignoreDirection: boolean)
   };
 }
 
+/** `gateFor` without its text: the 51V pickup multiplier, or NaN when the direction blocks the function. */
+function gateScaleFor(fn: RelayFunction): ((m: Measurement, ignoreDirection: boolean) => number) | undefined {
+  const directional = fn.direction !== "non-directional";
+  const restrained = fn.ansi === "51V";
+  if (!directional && !restrained) return undefined;
+  return (m, ignoreDirection) => {
+    const pickupScale = restrained && m.sequence ? restraintFactor(fn, abs(m.sequence.v1_pu)) : 1;
+    if (directional && !ignoreDirection && (!m.sequence || directionOf(fn, m.sequence).direction !== fn.direction)) return NaN;
+    return pickupScale;
+  };
+}
+
 export function relayFunctionElement(fn: RelayFunction, tol: Tolerance, breakerTime_s: number): TimeElement {
   const pickup = (band: Band) => bandPickup(fn.pickup_A, tol, band);
   const time_s = (current_A: number, band: Band) => {
@@ -79,6 +91,7 @@ export function relayFunctionElement(fn: RelayFunction, tol: Tolerance, breakerT
     },
     added_s: breakerTime_s,
     gate: gateFor(fn),
+    gateScale: gateScaleFor(fn),
   };
 }
 

@@ -32,6 +32,8 @@ export interface TimeElement {
   clear_s?(current_A: number, band: Band): number;
   /** Measurement-dependent conditions (direction, voltage restraint). */
   gate?(m: Measurement, ignoreDirection: boolean): GateResult;
+  /** The same decision as `gate` without its text: the pickup multiplier, or NaN when blocked (for hot loops). */
+  gateScale?(m: Measurement, ignoreDirection: boolean): number;
 }
 
 /** The magnitude an element measures. */

@@ -2,6 +2,7 @@
 // and the lowest pickup per measured quantity. protectionModel.ts binds it to src/protection.
 import type { ProtectiveDevice } from "../model/schema.ts";
 import type { Band, Measurement, OperatingResult, TravelState } from "../protection/types.ts";
+import type { BandTimes } from "../protection/deviceTimer.ts";
 
 export interface DevicePickups {
   /**
@@ -18,6 +19,11 @@ export interface DevicePickups {
 
 export interface DeviceModel {
   operate(device: ProtectiveDevice, m: Measurement, band: Band): OperatingResult;
+  /**
+   * Optional fast path: the numbers of `operate` on all three bands at once, without reason text. A model
+   * that has it must give exactly what `operate` gives (deviceResponse uses one or the other).
+   */
+  operateBands?(device: ProtectiveDevice, m: Measurement): BandTimes;
   /** Lowest nominal pickup of the enabled elements per measured quantity, A (null: no such element). */
   pickups(device: ProtectiveDevice): DevicePickups;
   /** Time still needed to operate from a travel state at a steady measurement (nominal band). */

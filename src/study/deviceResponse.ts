@@ -36,6 +36,17 @@ export function deviceResponse(device: ProtectiveDevice, reading: DeviceReading 
   // far below every pickup (tolerances and 51V restraint cannot bring it within reach): nothing to time
   const restrained = device.kind === "relay" && device.functions.some((f) => f.restraint);
   if (!restrained && pickupRatio(base, model.pickups(device)).ratio < 0.5) return base;
+  if (model.operateBands) {
+    const t = model.operateBands(device, m);
+    base.pickedUp = t.picked;
+    if (!Number.isFinite(t.clearing_s)) return base;
+    base.operatingElement = t.functionId;
+    base.tOperate_s = finite(t.trip_s);
+    base.tClear_s = finite(t.clearing_s);
+    base.tClearMin_s = finite(t.clearingMin_s);
+    base.tClearMax_s = finite(t.clearingMax_s);
+    return base;
+  }
   const nominal = model.operate(device, m, "nominal");
   base.pickedUp = nominal.picked;
   if (!Number.isFinite(nominal.clearing_s)) return base;

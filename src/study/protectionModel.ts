@@ -1,7 +1,21 @@
 // Binds the study's DeviceModel to src/protection. A device with impossible settings does not operate
 // in the study; the settings error is reported once through `warn`, naming the device and the field.
+// A model serves one study: devices are not edited while it runs, so each device is checked and compiled
+// once (pickups and the fast timer are kept per device).
 import type { ProtectiveDevice } from "../model/schema.ts";
-import { accumulate, operatingTime, SettingsError, timeToOperate, type Band, type Measurement, type OperatingResult, type TravelState } from "../protection/index.ts";
+import {
+  accumulate,
+  deviceTimer,
+  operatingTime,
+  SettingsError,
+  timeToOperate,
+  type Band,
+  type BandTimes,
+  type DeviceTimer,
+  type Measurement,
+  type OperatingResult,
+  type TravelState,
+} from "../protection/index.ts";
 import { deviceElements } from "../protection/deviceElements.ts";
 import type { DeviceModel, DevicePickups } from "./deviceModel.ts";
 
@@ -15,6 +29,8 @@ export function protectionModel(warn: (text: string) => void = () => {}): Device
     warn(`${text} (left out of the study)`);
   };
   const none: OperatingResult = { picked: false, trip_s: Infinity, clearing_s: Infinity, reason: "settings error" };
+  const noneBands: BandTimes = { picked: false, functionId: null, trip_s: Infinity, clearing_s: Infinity, clearingMin_s: Infinity, clearingMax_s: Infinity };
+  const timers = new WeakMap<ProtectiveDevice, DeviceTimer | null>();
   return {
     operate(device: ProtectiveDevice, m: Measurement, band: Band): OperatingResult {
       if (broken.has(device.id)) return none;
@@ -24,6 +40,20 @@ export function protectionModel(warn: (text: string) => void = () => {}): Device
         refuse(device, err);
         return none;
       }
+    },
+    operateBands(device: ProtectiveDevice, m: Measurement): BandTimes {
+      if (broken.has(device.id)) return { ...noneBands };
+      let timer = timers.get(device);
+      if (timer === undefined) {
+        try {
+          timer = deviceTimer(device);
+        } catch (err) {
+          refuse(device, err);
+          timer = null;
+        }
+        timers.set(device, timer);
+      }
+      return timer ? timer.bands(m) : { ...noneBands };
     },
     timeToOperate(state: TravelState, device: ProtectiveDevice, m: Measurement): OperatingResult {
       if (broken.has(device.id)) return none;

@@ -1,5 +1,5 @@
 // The command bar: file, edit, arrange, fault and study commands, theme.
-import { useEffect, useState } from "react";
+import { useEffect, useState, type MouseEvent } from "react";
 import { useStore } from "zustand";
 import type { FileRef } from "../../src/model/hostContract.ts";
 import { FAULT_TYPES, type FaultLimit, type FaultType } from "../../src/study/types.ts";
@@ -15,12 +15,17 @@ import { StudyControl } from "./StudyControl.tsx";
 
 const FAULT_WORDS: Record<FaultType, string> = { "3ph": "Three-phase", LL: "Line-line", LG: "Line-earth", LLG: "Line-line-earth" };
 
+/** A chosen menu item closes its menu (a <details> would otherwise stay open over the one-line). */
+function closeMenuOnChoice(e: MouseEvent<HTMLElement>): void {
+  if ((e.target as Element).closest(".menu-item")) e.currentTarget.closest("details")?.removeAttribute("open");
+}
+
 function RecentMenu() {
   const [files, setFiles] = useState<FileRef[] | null>(null);
   return (
     <details className="menu" onToggle={(e) => (e.currentTarget.open ? void currentHost().listRecent().then(setFiles) : setFiles(null))}>
       <summary className="tool-button">Recent</summary>
-      <div className="menu-list" data-testid="recent-list">
+      <div className="menu-list" data-testid="recent-list" onClick={closeMenuOnChoice}>
         {files === null || files.length === 0 ? (
           <span className="menu-empty">No recent files</span>
         ) : (
@@ -86,7 +91,7 @@ export function Toolbar() {
       <div className="tool-group" aria-label="Arrange">
         <details className="menu">
           <summary className="tool-button">Align</summary>
-          <div className="menu-list">
+          <div className="menu-list" onClick={closeMenuOnChoice}>
             <button className="menu-item" onClick={() => align("left")}>Left edges</button>
             <button className="menu-item" onClick={() => align("center")}>Vertical centres</button>
             <button className="menu-item" onClick={() => align("top")}>Top edges</button>

@@ -87,7 +87,8 @@ export function OneLineCanvas() {
           if (c.selected) selectionNext.add(c.id);
           else selectionNext.delete(c.id);
         } else if (c.type === "position" && c.position) {
-          moving[c.id] = { x: c.position.x, y: c.position.y };
+          // the flow snaps a node's corner; the document keeps centres, so snap the centre as a drop does
+          moving[c.id] = useSessionStore.getState().snapToGrid ? { x: Math.round(c.position.x / GRID) * GRID, y: Math.round(c.position.y / GRID) * GRID } : { x: c.position.x, y: c.position.y };
           if (!c.dragging) finished = true;
         } else if (c.type === "position" && c.dragging === false) {
           finished = true;

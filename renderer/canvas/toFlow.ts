@@ -93,6 +93,8 @@ export function toFlow(doc: Project, selection: readonly string[], overlay: Faul
         position: { x: place.x, y: place.y },
         width,
         height: BUS_HEIGHT,
+        // known sizes: a rebuilt node keeps them, so a drag never sees it unmeasured (centre origin)
+        measured: { width, height: BUS_HEIGHT },
         selected: selected.has(e.id),
         data: {
           bus: e,
@@ -121,6 +123,7 @@ export function toFlow(doc: Project, selection: readonly string[], overlay: Faul
       position: { x: place.x, y: place.y },
       width: size.w,
       height: size.h,
+      measured: { width: size.w, height: size.h },
       selected: selected.has(e.id),
       data: {
         element: e,

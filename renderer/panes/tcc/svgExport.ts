@@ -115,8 +115,9 @@ export async function exportPlot(svg: SVGSVGElement, kind: "svg" | "png", baseNa
   const text = serializeSvg(svg, title);
   const safe = exportBaseName(baseName);
   if (kind === "svg") return { suggestedName: `${safe}.svg`, mime: "image/svg+xml", data: text };
+  // the SVG's own size is rounded to whole pixels; the PNG is exactly twice that
   const { width, height } = svg.getBoundingClientRect();
-  return { suggestedName: `${safe}.png`, mime: "image/png", data: await svgToPng(text, width, height + (title ? TITLE_BAND_PX : 0), 2) };
+  return { suggestedName: `${safe}.png`, mime: "image/png", data: await svgToPng(text, Math.round(width), Math.round(height + (title ? TITLE_BAND_PX : 0)), 2) };
 }
 
 /** A file-system-safe base name: letters, digits, dot, dash and underscore; other runs become "-". */

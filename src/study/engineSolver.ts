@@ -64,22 +64,34 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   const locKey = new Map(devices.map((d) => [d.id, `${split.endElement(d.at.element, d.at.end)}|${d.at.end}`] as const));
   const compiled = new Map<string, { network: CompiledNetwork | null; messages: string[] }>();
   let sweepBroken = false;
-  const sweepsReported = new WeakSet<SweepResult>();
+  /** Requests (scenario or variant, limit, buses) whose sweep messages were passed on. */
+  const sweepsReported = new Set<string>();
+
+  /**
+   * What a compiled network depends on in a scenario of the split project: the elements switched out and the
+   * switch states (compileNetwork reads nothing else of it). Scenarios and variants with equal content share
+   * their compiled networks and sweeps: a blinding variant (an infeed switched out) is often another scenario.
+   */
+  const contentOf = (s: Scenario): string => `${[...new Set(s.outOfService)].sort().join(",")}|${JSON.stringify(s.switchStates)}`;
+  const scenarioContents = new Set(base.scenarios.map(contentOf));
 
   /** The split project and scenario id for `scenario` with `open` element ends opened. */
-  const variantOf = (scenario: Scenario, open: OpenEnd[]): { key: string; project: Project; scenarioId: string } => {
+  const variantOf = (scenario: Scenario, open: OpenEnd[]): { key: string; content: string; project: Project; scenarioId: string } => {
     const original = project.scenarios.find((s) => s.id === scenario.id);
-    if (original === scenario && open.length === 0) return { key: scenario.id, project: base, scenarioId: scenario.id };
+    if (original === scenario && open.length === 0) {
+      const translated = base.scenarios.find((s) => s.id === scenario.id)!;
+      return { key: scenario.id, content: contentOf(translated), project: base, scenarioId: scenario.id };
+    }
     const translated = split.scenario(scenario);
     const outOfService = [...new Set([...translated.outOfService, ...open.map((o) => split.endElement(o.element, o.end))])].sort();
     const key = `${scenario.id}|${outOfService.join(",")}|${JSON.stringify(scenario.switchStates)}`;
     const variantId = `${scenario.id}~study-variant`;
     const variant: Scenario = { ...translated, id: variantId, outOfService };
-    return { key, project: { ...base, scenarios: [...base.scenarios, variant] }, scenarioId: variantId };
+    return { key, content: contentOf(variant), project: { ...base, scenarios: [...base.scenarios, variant] }, scenarioId: variantId };
   };
 
-  const compile = (v: { key: string; project: Project; scenarioId: string }, limit: FaultLimit) => {
-    const k = `${v.key}#${limit}`;
+  const compile = (v: { content: string; project: Project; scenarioId: string }, limit: FaultLimit) => {
+    const k = `${v.content}#${limit}`;
     let c = compiled.get(k);
     if (!c) {
       const r = compileNetwork(v.project, { scenario: v.scenarioId, limit });
@@ -179,22 +191,33 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     return sweep;
   };
 
-  const solveMany = (scenario: Scenario, locations: FaultLocation[], type: FaultType, limit: FaultLimit): FaultSnapshot[] => {
+  const solveEach = (scenario: Scenario, locations: FaultLocation[], type: FaultType, limit: FaultLimit): ((i: number) => FaultSnapshot) => {
     const v = variantOf(scenario, []);
     const c = compile(v, limit);
-    if (!c.network) return locations.map((_, k) => ({ iFault_A: 0, readings: {}, messages: k === 0 ? c.messages : [] }));
+    if (!c.network) return (k) => ({ iFault_A: 0, readings: {}, messages: k === 0 ? c.messages : [] });
     const net = c.network;
     const where = locations.map((l) => split.locate(l));
     const buses = [...new Set(where.filter((l) => l.kind === "bus").map((l) => (l as { bus: string }).bus))];
-    // the scenario itself: one sweep of every bus; a variant (an infeed switched out): only the buses asked for
+    // the scenario itself, or a variant that is another scenario's network: every bus (shared by content);
+    // any other variant: only the buses asked for (each bus's answer does not depend on the others swept)
     const isBase = v.project === base;
-    const sweepKey = isBase ? `${v.key}#${limit}` : `${v.key}#${limit}#${[...buses].sort().join(",")}`;
-    const sweep = buses.length > singleLimit ? sweepOf(sweepKey, net, v.project, v.scenarioId, isBase ? undefined : buses) : null;
-    const first = sweep && !sweepsReported.has(sweep);
-    if (sweep) sweepsReported.add(sweep);
-    const out = where.map((loc) => (sweep && loc.kind === "bus" ? fromSweep(net, sweep, loc.bus, type) : solveSingle(net, v.project, loc, type)));
-    if (out.length) out[0].messages.push(...c.messages, ...(first ? sweep.messages.filter((m) => m.level !== "info").map((m) => m.text) : []));
-    return out;
+    const whole = isBase || scenarioContents.has(v.content);
+    const requestKey = isBase ? `${v.key}#${limit}` : `${v.key}#${limit}#${[...buses].sort().join(",")}`;
+    const sweepKey = whole ? `${v.content}#${limit}` : `${v.content}#${limit}#${[...buses].sort().join(",")}`;
+    const sweep = buses.length > singleLimit ? sweepOf(sweepKey, net, v.project, v.scenarioId, whole ? undefined : buses) : null;
+    const first = sweep && !sweepsReported.has(requestKey);
+    if (sweep) sweepsReported.add(requestKey);
+    return (k) => {
+      const loc = where[k];
+      const out = sweep && loc.kind === "bus" ? fromSweep(net, sweep, loc.bus, type) : solveSingle(net, v.project, loc, type);
+      if (k === 0) out.messages.push(...c.messages, ...(first ? sweep.messages.filter((m) => m.level !== "info").map((m) => m.text) : []));
+      return out;
+    };
+  };
+
+  const solveMany = (scenario: Scenario, locations: FaultLocation[], type: FaultType, limit: FaultLimit): FaultSnapshot[] => {
+    const at = solveEach(scenario, locations, type, limit);
+    return locations.map((_, k) => at(k));
   };
 
   const solveOne = (scenario: Scenario, location: FaultLocation, type: FaultType, limit: FaultLimit, open: OpenEnd[]): FaultSnapshot => {
@@ -224,5 +247,5 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     }
   };
 
-  return { solveMany, solveOne, loadCurrents: loadCurrentsOf };
+  return { solveMany, solveEach, solveOne, loadCurrents: loadCurrentsOf };
 }

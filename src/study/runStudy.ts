@@ -111,6 +111,14 @@ export function isGridFollowing(net: ScenarioNetwork, source: string): boolean {
   return e?.kind === "inverter" && e.control === "grid-following";
 }
 
+/** Every location's snapshot, one at a time when the solver can (see StudySolver.solveEach). */
+function solveAll(solver: StudySolver, scenario: Scenario, locations: FaultLocation[], type: FaultType, limit: FaultLimit): (i: number) => FaultSnapshot {
+  if (locations.length === 0) return () => ({ iFault_A: 0, readings: {}, messages: [] });
+  if (solver.solveEach) return solver.solveEach(scenario, locations, type, limit);
+  const snaps = solver.solveMany(scenario, locations, type, limit);
+  return (i) => snaps[i];
+}
+
 function pickTimelineCase(works: CaseWork[], verdicts: Map<string, Verdict>): CaseWork | null {
   let best: CaseWork | null = null;
   let bestScore = -1;
@@ -179,7 +187,7 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
 
     for (const limit of limits) {
       for (const type of types) {
-        const snaps = locations.length ? solver.solveMany(scenario, locations, type, limit) : [];
+        const snapAt = solveAll(solver, scenario, locations, type, limit);
         for (let i = 0; i < locations.length; i++) {
           if (hooks.isCancelled?.()) throw new StudyCancelled();
           const loc = locations[i];
@@ -191,15 +199,16 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
             limit,
             label: caseLabel(scenario, loc, type, limit, elements),
           };
-          for (const m of snaps[i].messages) if (!warnings.includes(m)) warnings.push(m);
+          const snap = snapAt(i);
+          for (const m of snap.messages) if (!warnings.includes(m)) warnings.push(m);
           const paths = pathsByLoc.get(locationKey(loc))!;
-          const { work, verdicts } = analyseCase(project, net, sides, fc, paths, snaps[i], model, withstand);
+          const { work, verdicts } = analyseCase(project, net, sides, fc, paths, snap, model, withstand);
           addVerdicts(verdicts);
           works.push(work);
           cases.push(work.result);
           // a fault that draws no current (an earth fault on an isolated-neutral section) is left to
           // other protection (neutral displacement); it says nothing about overcurrent sensitivity
-          if (limit === sensLimit && snaps[i].iFault_A >= 1) {
+          if (limit === sensLimit && snap.iFault_A >= 1) {
             // a grid-following inverter's path is opened by the inverter's own protection, not by overcurrent devices
             for (const p of work.result.chains.paths.filter((x) => !isGridFollowing(net, x.source)))
               for (const l of p.links.slice(0, 2)) zone.add({ device: l.device, role: l.role, response: work.responses.get(l.device)!, faultCase: fc });

@@ -28,6 +28,11 @@ export interface OpenEnd {
 export interface StudySolver {
   /** Faults of one type and limit at many locations of one scenario (the bulk of the study). */
   solveMany(scenario: Scenario, locations: FaultLocation[], faultType: FaultType, limit: FaultLimit): FaultSnapshot[];
+  /**
+   * Optional: the same answers read one at a time (`at(i)` is `solveMany(...)[i]`, asked for once each, in
+   * order), so that a large study holds one snapshot at a time instead of every location's readings.
+   */
+  solveEach?(scenario: Scenario, locations: FaultLocation[], faultType: FaultType, limit: FaultLimit): (i: number) => FaultSnapshot;
   /** One fault with some element ends opened (clearing timeline). */
   solveOne(scenario: Scenario, location: FaultLocation, faultType: FaultType, limit: FaultLimit, open: OpenEnd[]): FaultSnapshot;
   /** Largest phase load current at each device (device id -> A) from a balanced load flow; null when it cannot run. */

@@ -93,6 +93,12 @@ export interface FaultOptions {
   faultX_ohm?: number;
   /** Override study.inverterModel for which model gives the detailed currents. */
   inverterModel?: InverterModel;
+  /**
+   * Which branch ends and bus voltages the result lists: "all" (default) every one; "devices" only the branch ends
+   * where a protective device sits, and the voltages of their buses and of the faulted bus. Shunts are always all.
+   * Values are the same either way; "devices" skips building the rest (much faster on large networks).
+   */
+  detail?: "all" | "devices";
 }
 
 /** Current at one branch end or shunt terminal, primary amperes at that end's voltage. */

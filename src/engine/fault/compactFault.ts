@@ -36,6 +36,34 @@ export interface CompactFaultInput {
   zeroView: SeqView;
   z1kk: Cx;
   z2kk: Cx;
+  /** Optional Z among the units (see unitBlock), the same for every faulted bus: spares the scattered reads. */
+  block?: UnitBlock;
+}
+
+/** Z[u_q, u_j] among the units taking part, per [q * J + j], positive (z1) and negative (z2) sequence. */
+export interface UnitBlock {
+  z1r: Float64Array;
+  z1i: Float64Array;
+  z2r: Float64Array;
+  z2i: Float64Array;
+}
+
+/** Reads the unit-to-unit block of Z out of the unit columns once per island. */
+export function unitBlock(model: Model, unitIdx: number[], colU: ComplexVec[][]): UnitBlock {
+  const J = unitIdx.length;
+  const b: UnitBlock = { z1r: new Float64Array(J * J), z1i: new Float64Array(J * J), z2r: new Float64Array(J * J), z2i: new Float64Array(J * J) };
+  for (let q = 0; q < J; q++) {
+    const c1 = colU[1][unitIdx[q]];
+    const c2 = colU[2][unitIdx[q]];
+    for (let j = 0; j < J; j++) {
+      const node = model.inverters[unitIdx[j]].node;
+      b.z1r[q * J + j] = c1.re[node];
+      b.z1i[q * J + j] = c1.im[node];
+      b.z2r[q * J + j] = c2.re[node];
+      b.z2i[q * J + j] = c2.im[node];
+    }
+  }
+  return b;
 }
 
 /** Units renumbered 0..J-1 (their `node` is the compact index) for the iteration. */
@@ -175,17 +203,22 @@ export function compactAffineMap(p: CompactFaultInput): AffineMap {
     const d2r = h2r * zr - h2i * zi;
     const d2i = h2r * zi + h2i * zr;
     const col = pos ? colU[1][gq] : colU[2][gq];
+    const blk = p.block;
+    const br = blk ? (pos ? blk.z1r : blk.z2r) : null;
+    const bi = blk ? (pos ? blk.z1i : blk.z2i) : null;
     for (let j = 0; j < J; j++) {
       let r1 = -(z1r[j] * d1r - z1i[j] * d1i);
       let m1 = -(z1r[j] * d1i + z1i[j] * d1r);
       let r2 = -(z2r[j] * d2r - z2i[j] * d2i);
       let m2 = -(z2r[j] * d2i + z2i[j] * d2r);
+      const zr = br && bi ? br[l * J + j] : col.re[nodes[j]];
+      const zi = br && bi ? bi[l * J + j] : col.im[nodes[j]];
       if (pos) {
-        r1 += col.re[nodes[j]];
-        m1 += col.im[nodes[j]];
+        r1 += zr;
+        m1 += zi;
       } else {
-        r2 += col.re[nodes[j]];
-        m2 += col.im[nodes[j]];
+        r2 += zr;
+        m2 += zi;
       }
       M1r[q * J + j] = r1;
       M1i[q * J + j] = m1;

@@ -46,15 +46,27 @@ function phasor(re: number, im: number, scale: number): Phasor {
  * (the hot path of building a fault result with thousands of branch ends).
  */
 export function seqAndPhasePhasors(s: [Cx, Cx, Cx], shift_deg: number, scale: number): { seq: [Phasor, Phasor, Phasor]; phase: [Phasor, Phasor, Phasor] } {
+  return seqAndPhaseParts(s[0].re, s[0].im, s[1].re, s[1].im, s[2].re, s[2].im, shift_deg, scale);
+}
+
+/** The same from the six real parts of [zero, positive, negative]. */
+export function seqAndPhaseParts(
+  z0r: number,
+  z0i: number,
+  s1r: number,
+  s1i: number,
+  s2r: number,
+  s2i: number,
+  shift_deg: number,
+  scale: number,
+): { seq: [Phasor, Phasor, Phasor]; phase: [Phasor, Phasor, Phasor] } {
   const r = (shift_deg * Math.PI) / 180;
   const c = Math.cos(r);
   const sn = Math.sin(r);
-  const z0r = s[0].re;
-  const z0i = s[0].im;
-  const p1r = s[1].re * c - s[1].im * sn;
-  const p1i = s[1].re * sn + s[1].im * c;
-  const n2r = s[2].re * c + s[2].im * sn;
-  const n2i = -s[2].re * sn + s[2].im * c;
+  const p1r = s1r * c - s1i * sn;
+  const p1i = s1r * sn + s1i * c;
+  const n2r = s2r * c + s2i * sn;
+  const n2i = -s2r * sn + s2i * c;
   // a = -1/2 + j sqrt3/2; a^2 = -1/2 - j sqrt3/2
   const a2p1r = -0.5 * p1r + S3 * p1i;
   const a2p1i = -0.5 * p1i - S3 * p1r;

@@ -11,9 +11,9 @@ import { iecInjections } from "../inverter/iecInjections.ts";
 import { refinedIteration, type RefinedOutcome } from "../inverter/refinedIteration.ts";
 import { compactAffineMap, compactUnits, solveCompactFault, unitColumns, type CompactFaultInput } from "./compactFault.ts";
 import type { SeqView } from "./faultEquations.ts";
-import { allEndCurrents, type RawEnd } from "./endCurrents.ts";
+import { allShuntCurrents, branchEndResults, type RawEnd } from "./endCurrents.ts";
 import { faultMagnitudes } from "./faultCurrentMagnitude.ts";
-import { seqAndPhasePhasors, seqToPhase, toPhasor } from "./phasors.ts";
+import { seqAndPhaseParts, seqAndPhasePhasors, seqToPhase, toPhasor } from "./phasors.ts";
 import { peakKappa } from "./peakCurrent.ts";
 import { voltageFactor, breakingFactorMu, thermalFactorM } from "../iec60909/factors.ts";
 
@@ -75,6 +75,17 @@ function emptyResult(network: CompiledNetwork, location: FaultLocation, type: Fa
     buses: [],
     messages,
   };
+}
+
+/** "element|end" and "element" of every protective device location on a branch. */
+function deviceEndSet(model: Model): Set<string> {
+  const set = new Set<string>();
+  for (const d of model.devices) {
+    if (d.end === "terminal") continue;
+    set.add(d.element);
+    set.add(`${d.element}|${d.end}`);
+  }
+  return set;
 }
 
 export function solveFault(network: CompiledNetwork, location: FaultLocation, type: FaultType, options: FaultOptions = {}): FaultResult {
@@ -187,17 +198,35 @@ export function solveFault(network: CompiledNetwork, location: FaultLocation, ty
     const p = seqAndPhasePhasors(e.i, node.shift_deg - shiftK, (opts.baseMVA * 1000) / (SQRT3 * node.un_kV));
     return { element: e.element, end: e.end, bus: e.bus, seq_A: p.seq, phase_A: p.phase };
   };
-  const raw = allEndCurrents(model, variant, fault.v, vpre, unitInj);
-  const buses: BusVoltage[] = [];
+  const raw = { shunts: allShuntCurrents(model, variant, fault.v, vpre, unitInj) };
+  // Per node: shift relative to the faulted bus and base current, for the branch ends built in one pass.
+  const endShift_deg = new Float64Array(n);
+  const endBase_A = new Float64Array(n);
   for (let j = 0; j < n; j++) {
     const node = model.nodes[j];
-    if (node.buses.length === 0) continue;
-    const raw3: [Cx, Cx, Cx] = [
-      { re: fault.v[0].re[j], im: fault.v[0].im[j] },
-      { re: fault.v[1].re[j], im: fault.v[1].im[j] },
-      { re: fault.v[2].re[j], im: fault.v[2].im[j] },
-    ];
-    const pu = seqAndPhasePhasors(raw3, node.shift_deg - shiftK, 1);
+    endShift_deg[j] = node.shift_deg - shiftK;
+    endBase_A[j] = (opts.baseMVA * 1000) / (SQRT3 * node.un_kV);
+  }
+  // detail "devices": only the protective devices' branch ends and the buses they (and the fault) sit at.
+  const only = options.detail === "devices" ? deviceEndSet(model) : undefined;
+  const branchEnds = branchEndResults(model, fault.v, vpre, endShift_deg, endBase_A, only);
+  let busWanted: Uint8Array | null = null;
+  if (only) {
+    busWanted = new Uint8Array(n);
+    busWanted[k] = 1;
+    for (const e of branchEnds) busWanted[model.busNode.get(e.bus) ?? k] = 1;
+    for (const d of model.devices) {
+      if (d.end !== "terminal") continue;
+      const sh = model.shunts.find((x) => x.element === d.element) ?? model.inverters.find((x) => x.element === d.element);
+      if (sh) busWanted[sh.node] = 1;
+    }
+  }
+  const buses: BusVoltage[] = [];
+  const [v0, v1, v2] = fault.v;
+  for (let j = 0; j < n; j++) {
+    const node = model.nodes[j];
+    if (node.buses.length === 0 || (busWanted && !busWanted[j])) continue;
+    const pu = seqAndPhaseParts(v0.re[j], v0.im[j], v1.re[j], v1.im[j], v2.re[j], v2.im[j], node.shift_deg - shiftK, 1);
     const kv = node.un_kV / SQRT3;
     for (const bus of node.buses) {
       buses.push({
@@ -297,7 +326,7 @@ export function solveFault(network: CompiledNetwork, location: FaultLocation, ty
     zk_ohm,
     xr,
     inverter,
-    branchEnds: raw.branchEnds.map(toEnd),
+    branchEnds,
     shunts: raw.shunts.map(toEnd),
     buses,
     messages,

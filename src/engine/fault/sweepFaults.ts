@@ -8,7 +8,7 @@ import type { CompiledNetwork, EngineMessage, FaultType, SweepOptions, SweepResu
 import { FAULT_TYPES } from "../types.ts";
 import type { Cx } from "../network/model.ts";
 import { sequenceSystem, type SequenceSystem } from "../network/sequenceSystem.ts";
-import { compactAffineMap, compactUnits, solveCompactFault, unitColumns, type CompactFaultInput } from "./compactFault.ts";
+import { compactAffineMap, compactUnits, solveCompactFault, unitBlock, unitColumns, type CompactFaultInput, type UnitBlock } from "./compactFault.ts";
 import { solveLdltBlock } from "../sparse/ldlt.ts";
 import { inverseSubset, type InverseSubset } from "../sparse/takahashi.ts";
 import { deviceCombination, type Combination } from "./deviceCombination.ts";
@@ -99,7 +99,7 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
   const busShift_deg = new Float64Array(B);
   const overrides: SweepResult["deviceData"]["overrides"] = [];
   const radial = new Map<number, boolean>();
-  const islandUnits = new Map<number, { unitIdx: number[]; units: ReturnType<typeof compactUnits> }>();
+  const islandUnits = new Map<number, { unitIdx: number[]; units: ReturnType<typeof compactUnits>; block: UnitBlock }>();
   // Branches and shunts meeting at each node (the radial peak factor looks at them for every faulted bus).
   const atNode: { branches: number[]; shunts: number[] }[] = model.nodes.map(() => ({ branches: [], shunts: [] }));
   model.branches.forEach((br, i) => {
@@ -135,12 +135,12 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
     let isl = islandUnits.get(node.island);
     if (!isl) {
       const idx = model.inverters.map((u, j) => (model.nodes[u.node].island === node.island ? j : -1)).filter((j) => j >= 0);
-      isl = { unitIdx: idx, units: compactUnits(model, idx) };
+      isl = { unitIdx: idx, units: compactUnits(model, idx), block: unitBlock(model, idx, colU) };
       islandUnits.set(node.island, isl);
     }
     const unitIdx = isl.unitIdx;
     const Jl = unitIdx.length;
-    const cin: CompactFaultInput = { model, unitIdx, colU, k, type: "3ph", zf, c, zeroView, z1kk: zkk[1], z2kk: zkk[2] };
+    const cin: CompactFaultInput = { model, unitIdx, colU, k, type: "3ph", zf, c, zeroView, z1kk: zkk[1], z2kk: zkk[2], block: isl.block };
     const solveCompact = (type: FaultType, a: ComplexVec, bb: ComplexVec, currentsOnly = false): LinearFault => solveCompactFault({ ...cin, type }, a, bb, currentsOnly);
     const cUnits = isl.units;
     const vpreC = new Float64Array(Jl).fill(c);
@@ -160,7 +160,8 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
         });
         fp = solveCompact(type, inj1, inj2, true);
       } else {
-        const r = refinedIteration(cUnits, Jl, vpreC, (a, bb) => solveCompact(type, a, bb), compactAffineMap({ ...cin, type }));
+        // The map is given, so the solve only makes the final fault currents (unit voltages are not kept here).
+        const r = refinedIteration(cUnits, Jl, vpreC, (a, bb) => solveCompact(type, a, bb, true), compactAffineMap({ ...cin, type }));
         fp = r.fault;
         // Per-unit injections (grid-forming: the limiting correction; the shunt part is in the transfer).
         [inj1, inj2] = r.inj;

@@ -75,6 +75,15 @@ export const steps = [
         assert.ok(box.width > 0 && box.height > 0, `${sel} has a size`);
         assert.ok(box.x >= 0 && box.y >= 0 && box.x + box.width <= vw + 0.5 && box.y + box.height <= vh + 0.5, `${sel} (${JSON.stringify(box)}) lies inside the ${vw}x${vh} viewport`);
       }
+      const clipped = await page.evaluate(() =>
+        [".toolbar", ".status-bar", ".tabs"].filter((sel) => {
+          const e = document.querySelector(sel);
+          return e.scrollWidth > e.clientWidth + 1;
+        }),
+      );
+      assert.deepEqual(clipped, [], "the command bar, status area and tabs show all their content");
+      const theme = await page.getByRole("button", { name: "Switch theme" }).boundingBox();
+      assert.ok(theme.x + theme.width <= vw, "the last command of the bar is on screen");
       const canvas = await page.locator(".canvas-wrap").boundingBox();
       assert.ok(canvas.width >= 500 && canvas.height >= 250, `the one-line keeps a usable size (${canvas.width}x${canvas.height})`);
       const scroll = await page.evaluate(() => ({ w: document.documentElement.scrollWidth, h: document.documentElement.scrollHeight }));

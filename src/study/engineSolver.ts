@@ -148,14 +148,15 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     if (b === undefined || t < 0) return { iFault_A: 0, readings: {}, messages: [] };
     const readings: Record<string, DeviceReading> = {};
     const refShift = shiftOf(net, bus);
-    const dIndex = sweepDeviceIndex.get(sweep)!;
-    for (const d of devices) {
-      const di = dIndex.get(locKey.get(d.id)!);
-      if (di === undefined) continue;
+    const { index, shift_deg } = sweepDevicesOf(net, sweep);
+    for (let k = 0; k < devices.length; k++) {
+      const di = index[k];
+      if (di < 0) continue;
+      const d = devices[k];
       const cur = sweepDeviceCurrents(sweep, di, b, t);
       const phase: [number, number, number] = [cur.phase_A[0].mag, cur.phase_A[1].mag, cur.phase_A[2].mag];
       if (phase[0] + phase[1] + phase[2] <= 0) continue;
-      const vRef = shiftOf(net, sweep.devices[di].bus) - refShift;
+      const vRef = shift_deg[k] - refShift;
       const a = (vRef * Math.PI) / 180;
       // no voltages in a sweep: the prefault voltage stands in for V1 (a memory-polarised relay's view)
       const seq: SequenceQuantities = { i0_A: cur.seq_A[0], i1_A: cur.seq_A[1], i2_A: cur.seq_A[2], v0_pu: ZERO, v1_pu: { re: Math.cos(a), im: Math.sin(a) }, v2_pu: ZERO };
@@ -166,6 +167,25 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     return { iFault_A: sweep.maxPhase_kA[b * sweep.types.length + t] * 1000, readings, messages: [] };
   };
   const sweepDeviceIndex = new WeakMap<SweepResult, Map<string, number>>();
+  /** Per sweep, in `devices` order: the sweep's index of each device's location (-1: not swept) and its bus's shift. */
+  const sweepDevices = new WeakMap<SweepResult, { index: Int32Array; shift_deg: Float64Array }>();
+  const sweepDevicesOf = (net: CompiledNetwork, sweep: SweepResult): { index: Int32Array; shift_deg: Float64Array } => {
+    let known = sweepDevices.get(sweep);
+    if (!known) {
+      const dIndex = sweepDeviceIndex.get(sweep)!;
+      const index = new Int32Array(devices.length).fill(-1);
+      const shift_deg = new Float64Array(devices.length);
+      devices.forEach((d, k) => {
+        const di = dIndex.get(locKey.get(d.id)!);
+        if (di === undefined) return;
+        index[k] = di;
+        shift_deg[k] = shiftOf(net, sweep.devices[di].bus);
+      });
+      known = { index, shift_deg };
+      sweepDevices.set(sweep, known);
+    }
+    return known;
+  };
   const sweepBusIndex = new WeakMap<SweepResult, Map<string, number>>();
   /** One sweep of every energised bus and every fault type per network variant and limit. */
   const sweeps = new Map<string, SweepResult | null>();

@@ -119,8 +119,11 @@ function solveAll(solver: StudySolver, scenario: Scenario, locations: FaultLocat
   return (i) => snaps[i];
 }
 
-function pickTimelineCase(works: CaseWork[], verdicts: Map<string, Verdict>): CaseWork | null {
-  let best: CaseWork | null = null;
+/** What the study keeps of a case once it is analysed (the response lookup only where blinding needs it). */
+type KeptCase = Pick<CaseWork, "result">;
+
+function pickTimelineCase(works: KeptCase[], verdicts: Map<string, Verdict>): KeptCase | null {
+  let best: KeptCase | null = null;
   let bestScore = -1;
   for (const w of works) {
     let fails = 0;
@@ -182,7 +185,7 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
     for (const loc of locations) pathsByLoc.set(locationKey(loc), findSourcePaths(net, loc, trees));
     const sensLimit: FaultLimit = limits.includes("min") ? "min" : "max";
     const zone = new ZoneMinimum(net.devices, model);
-    const works: CaseWork[] = [];
+    const works: KeptCase[] = [];
     const blinding: { work: CaseWork; pairs: BlindingPair[]; locIndex: number; type: FaultType }[] = [];
 
     for (const limit of limits) {
@@ -204,7 +207,8 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
           const paths = pathsByLoc.get(locationKey(loc))!;
           const { work, verdicts } = analyseCase(project, net, sides, fc, paths, snap, model, withstand);
           addVerdicts(verdicts);
-          works.push(work);
+          // keep only the result: the per-case response lookup would otherwise live as long as the study
+          works.push({ result: work.result });
           cases.push(work.result);
           // a fault that draws no current (an earth fault on an isolated-neutral section) is left to
           // other protection (neutral displacement); it says nothing about overcurrent sensitivity

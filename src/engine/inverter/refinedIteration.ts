@@ -82,8 +82,30 @@ function createWork(J: number): Work {
   return { J, v1r: f(), v1i: f(), v2r: f(), v2i: f(), t1r: f(), t1i: f(), t2r: f(), t2i: f(), o1r: f(), o1i: f(), o2r: f(), o2i: f(), limited: new Uint8Array(J) };
 }
 
-/** Targets for the voltages in w (v1, v2) with the angle references a1 (the voltages without converter injections). */
-function targets(units: InverterUnit[], w: Work, a1r: Float64Array, a1i: Float64Array, vpre: Float64Array): void {
+/**
+ * Unit directions of the angle references: the voltages without converter injections (a1), or the prefault angle at
+ * a dead terminal. The same for every iteration, so computed once.
+ */
+function referenceDirections(a1r: Float64Array, a1i: Float64Array): { dirR: Float64Array; dirI: Float64Array } {
+  const J = a1r.length;
+  const dirR = new Float64Array(J);
+  const dirI = new Float64Array(J);
+  for (let j = 0; j < J; j++) {
+    let refr = 1;
+    let refi = 0;
+    if (Math.hypot(a1r[j], a1i[j]) > 1e-9) {
+      refr = a1r[j];
+      refi = a1i[j];
+    }
+    const rm = Math.hypot(refr, refi);
+    dirR[j] = refr / rm;
+    dirI[j] = refi / rm;
+  }
+  return { dirR, dirI };
+}
+
+/** Targets for the voltages in w (v1, v2), grid-following currents aligned with the reference directions. */
+function targets(units: InverterUnit[], w: Work, dirR: Float64Array, dirI: Float64Array, vpre: Float64Array): void {
   for (let j = 0; j < units.length; j++) {
     const u = units[j];
     const v1r = w.v1r[j];
@@ -127,17 +149,10 @@ function targets(units: InverterUnit[], w: Work, a1r: Float64Array, a1i: Float64
     const iq = Math.min(u.kFactor * dip, u.iMax_pu);
     const pmax = Math.sqrt(Math.max(0, u.iMax_pu * u.iMax_pu - iq * iq));
     const ip = Math.max(-pmax, Math.min(pmax, u.activePower_pu));
-    let refr = 1;
-    let refi = 0;
-    if (Math.hypot(a1r[j], a1i[j]) > 1e-9) {
-      refr = a1r[j];
-      refi = a1i[j];
-    }
-    const rm = Math.hypot(refr, refi);
     const ar = ip * u.ir_pu;
     const ai = -iq * u.ir_pu;
-    const br = refr / rm;
-    const bi = refi / rm;
+    const br = dirR[j];
+    const bi = dirI[j];
     const i1r = ar * br - ai * bi;
     const i1i = ar * bi + ai * br;
     let i2r = 0;
@@ -237,11 +252,11 @@ export function refinedIteration(
 ): RefinedOutcome {
   const J = units.length;
   const map = precomputed ?? sampleMap(units, n, solve);
-  const { a1r, a1i } = map;
+  const { dirR, dirI } = referenceDirections(map.a1r, map.a1i);
   const w = createWork(J);
   const step = (x1r: Float64Array, x1i: Float64Array, x2r: Float64Array, x2i: Float64Array) => {
     evalV(map, w, x1r, x1i, x2r, x2i);
-    targets(units, w, a1r, a1i, vpre);
+    targets(units, w, dirR, dirI, vpre);
   };
   const x1r = new Float64Array(J);
   const x1i = new Float64Array(J);

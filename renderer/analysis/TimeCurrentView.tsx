@@ -11,7 +11,7 @@ import { useSessionStore } from "../store/sessionStore.ts";
 import { useStudyStore } from "../fault/studyStore.ts";
 import { useFaultStore } from "../fault/faultStore.ts";
 import { currentHost } from "../host/currentHost.ts";
-import { deviceKv } from "./deviceBus.ts";
+import { deviceKv } from "../../src/model/deviceBus.ts";
 import { settingPatchChanges } from "./settingPatch.ts";
 
 interface Preview {

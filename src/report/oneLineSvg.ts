@@ -2,7 +2,7 @@
 // element centres, bus widths in `w`). Our own simple IEC 60617-style marks: buses as bars, transformers as
 // two circles, lines as an impedance box, switches as a square with a cross, sources and loads as circles
 // and triangles, protective devices as small marks beside the element they look into.
-import { isProtectiveDevice, type Bus, type Element, type Project, type ProtectiveDevice } from "../model/schema.ts";
+import { elementBuses, isProtectiveDevice, type Bus, type Element, type Project, type ProtectiveDevice } from "../model/schema.ts";
 import { REPORT_COLORS, voltageColor } from "./reportColors.ts";
 import { n, svgText } from "./svgText.ts";
 
@@ -56,23 +56,9 @@ function caption(e: Element, closed: boolean): string {
   }
 }
 
-/** Terminal buses of a drawable element, in order (branches: from/HV first). */
+/** Terminal buses of a drawable element, in order (branches: from/HV first); a bus has none of its own. */
 function terminals(e: Element): string[] {
-  switch (e.kind) {
-    case "transformer":
-      return [e.hvBus, e.lvBus];
-    case "line":
-      return [e.fromBus, e.toBus];
-    case "switch":
-      return [e.busA, e.busB];
-    case "bus":
-    case "relay":
-    case "fuse":
-    case "lvbreaker":
-      return [];
-    default:
-      return [e.bus];
-  }
+  return e.kind === "bus" ? [] : elementBuses(e);
 }
 
 /** The symbol of an element centred at (x, y); `horizontal` turns branch symbols across. */

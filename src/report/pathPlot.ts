@@ -13,7 +13,7 @@ import {
   transformerWithstand,
   type CurvePoint,
 } from "../protection/index.ts";
-import { deviceBus } from "./deviceBus.ts";
+import { deviceBus } from "../model/deviceBus.ts";
 import type { ProtectionPath } from "./protectionPaths.ts";
 import type { TccPlotInput, TccReferenceCurve } from "./tccPlotSvg.ts";
 

@@ -2,7 +2,7 @@
 // primary amperes (and CT secondary amperes for relays), time multipliers, delays and CT ratios.
 import { isProtectiveDevice, type Element, type LvBreaker, type Project, type ProtectiveDevice, type Relay } from "../model/schema.ts";
 import { CURVE_TITLES, FUSE_FAMILY_TITLES, toSecondary_A } from "../protection/index.ts";
-import { deviceBus } from "./deviceBus.ts";
+import { deviceBus } from "../model/deviceBus.ts";
 
 export interface SettingsRow {
   device: string;

@@ -1,5 +1,5 @@
 // The bus a protective device sits at: the bus at its branch end, or the bus of the shunt element it looks into.
-import type { Element, ProtectiveDevice } from "../model/schema.ts";
+import type { Element, ProtectiveDevice, Project } from "./schema.ts";
 
 export function deviceBus(device: ProtectiveDevice, byId: ReadonlyMap<string, Element>): string | null {
   const host = byId.get(device.at.element);
@@ -19,4 +19,11 @@ export function deviceBus(device: ProtectiveDevice, byId: ReadonlyMap<string, El
     default:
       return host.bus;
   }
+}
+
+/** Nominal kV of the bus a device sits at; null when it cannot be placed. */
+export function deviceKv(device: ProtectiveDevice, project: Project, byId: ReadonlyMap<string, Element> = new Map(project.elements.map((e) => [e.id, e]))): number | null {
+  const busId = deviceBus(device, byId);
+  const bus = busId ? byId.get(busId) : undefined;
+  return bus?.kind === "bus" ? bus.un_kV : null;
 }

@@ -2,11 +2,18 @@
 // clearing times on the nominal curve and on both edges of its tolerance band.
 import type { ProtectiveDevice } from "../model/schema.ts";
 import type { DeviceModel } from "./deviceModel.ts";
-import { pickupRatio } from "./pickupRatio.ts";
+import { pickupRatioValue } from "./pickupRatio.ts";
 import type { DeviceReading } from "./studySolver.ts";
 import type { DeviceResponse } from "./types.ts";
 
 const finite = (t: number): number | null => (Number.isFinite(t) ? t : null);
+
+/** A relay with a voltage-restrained (51V) function: its pickup can fall well below the set value. */
+function restrained(device: ProtectiveDevice): boolean {
+  if (device.kind !== "relay") return false;
+  for (const f of device.functions) if (f.restraint) return true;
+  return false;
+}
 
 export function deviceResponse(device: ProtectiveDevice, reading: DeviceReading | undefined, model: DeviceModel): DeviceResponse {
   const base: DeviceResponse = {
@@ -34,8 +41,7 @@ export function deviceResponse(device: ProtectiveDevice, reading: DeviceReading 
   base.direction = reading.direction;
   if (base.iPhase_A <= 0 && base.iResidual_A <= 0 && base.iNegative_A <= 0) return base;
   // far below every pickup (tolerances and 51V restraint cannot bring it within reach): nothing to time
-  const restrained = device.kind === "relay" && device.functions.some((f) => f.restraint);
-  if (!restrained && pickupRatio(base, model.pickups(device)).ratio < 0.5) return base;
+  if (!restrained(device) && pickupRatioValue(base, model.pickups(device)) < 0.5) return base;
   if (model.operateBands) {
     const t = model.operateBands(device, m);
     base.pickedUp = t.picked;

@@ -13,8 +13,15 @@ export function worstStatus(statuses: Iterable<VerdictStatus>): VerdictStatus | 
   return worst;
 }
 
-export function studyMatrix(scenarios: Scenario[], cases: CaseResult[], verdicts: Verdict[], elements: ReadonlyMap<string, Element>): StudyMatrix {
-  const byId = new Map(verdicts.map((v) => [v.id, v] as const));
+/** `verdictById`: the verdicts by id when the caller already holds them (a large study has 10^5 of them). */
+export function studyMatrix(
+  scenarios: Scenario[],
+  cases: CaseResult[],
+  verdicts: Verdict[],
+  elements: ReadonlyMap<string, Element>,
+  verdictById?: ReadonlyMap<string, Verdict>,
+): StudyMatrix {
+  const byId = verdictById ?? new Map(verdicts.map((v) => [v.id, v] as const));
   const rows: MatrixRow[] = [];
   const rowSeen = new Set<string>();
   const cells: MatrixCell[] = [];

@@ -10,6 +10,22 @@ export interface PickupRatio {
   pickup_A: number;
 }
 
+/** `pickupRatio(r, p).ratio` alone, with the same comparisons, for the per-device screen of every fault case. */
+export function pickupRatioValue(r: Pick<DeviceResponse, "iPhase_A" | "iResidual_A" | "iNegative_A">, p: DevicePickups): number {
+  let ratio = 0;
+  let any = false;
+  if (p.phase_A !== null && p.phase_A > 0) {
+    ratio = r.iPhase_A / p.phase_A;
+    any = true;
+  }
+  if (p.residual_A !== null && p.residual_A > 0 && (!any || r.iResidual_A / p.residual_A > ratio)) {
+    ratio = r.iResidual_A / p.residual_A;
+    any = true;
+  }
+  if (p.negative_A !== null && p.negative_A > 0 && (!any || r.iNegative_A / p.negative_A > ratio)) ratio = r.iNegative_A / p.negative_A;
+  return ratio;
+}
+
 export function pickupRatio(r: Pick<DeviceResponse, "iPhase_A" | "iResidual_A" | "iNegative_A">, p: DevicePickups): PickupRatio {
   // written out without closures: this runs for every device in every fault case
   let ratio = 0;

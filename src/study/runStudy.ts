@@ -288,7 +288,7 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
     project: project.meta.name,
     cases,
     verdicts: verdictList,
-    matrix: studyMatrix(scenarios, cases, verdictList, elements),
+    matrix: studyMatrix(scenarios, cases, verdictList, elements, verdictById),
     timelines,
     warnings,
     caution: STUDY_CAUTION,

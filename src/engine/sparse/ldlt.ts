@@ -211,19 +211,19 @@ function solvePermuted(f: LdltFactor, xr: Float64Array, xi: Float64Array): void 
 export function solveLdltBlock(f: LdltFactor, xr: Float64Array, xi: Float64Array, m: number): void {
   const { n, lre, lim, dre, dim } = f;
   const { colPtr, rowIdx } = f.ordering;
+  // Loops run entry-major, column-minor: per column the updates happen in the same order as in solvePermuted.
   for (let k = 0; k < n; k++) {
-    const p0 = colPtr[k];
-    const p1 = colPtr[k + 1];
-    if (p0 === p1) continue;
     const ok = k * m;
-    for (let c = 0; c < m; c++) {
-      const r = xr[ok + c];
-      const i = xi[ok + c];
-      if (r === 0 && i === 0) continue;
-      for (let p = p0; p < p1; p++) {
-        const o = rowIdx[p] * m + c;
-        xr[o] -= lre[p] * r - lim[p] * i;
-        xi[o] -= lre[p] * i + lim[p] * r;
+    for (let p = colPtr[k]; p < colPtr[k + 1]; p++) {
+      const o = rowIdx[p] * m;
+      const lr = lre[p];
+      const li = lim[p];
+      for (let c = 0; c < m; c++) {
+        const r = xr[ok + c];
+        const i = xi[ok + c];
+        if (r === 0 && i === 0) continue;
+        xr[o + c] -= lr * r - li * i;
+        xi[o + c] -= lr * i + li * r;
       }
     }
   }
@@ -240,20 +240,15 @@ export function solveLdltBlock(f: LdltFactor, xr: Float64Array, xi: Float64Array
     }
   }
   for (let k = n - 1; k >= 0; k--) {
-    const p0 = colPtr[k];
-    const p1 = colPtr[k + 1];
-    if (p0 === p1) continue;
     const ok = k * m;
-    for (let c = 0; c < m; c++) {
-      let r = xr[ok + c];
-      let i = xi[ok + c];
-      for (let p = p0; p < p1; p++) {
-        const o = rowIdx[p] * m + c;
-        r -= lre[p] * xr[o] - lim[p] * xi[o];
-        i -= lre[p] * xi[o] + lim[p] * xr[o];
+    for (let p = colPtr[k]; p < colPtr[k + 1]; p++) {
+      const o = rowIdx[p] * m;
+      const lr = lre[p];
+      const li = lim[p];
+      for (let c = 0; c < m; c++) {
+        xr[ok + c] -= lr * xr[o + c] - li * xi[o + c];
+        xi[ok + c] -= lr * xi[o + c] + li * xr[o + c];
       }
-      xr[ok + c] = r;
-      xi[ok + c] = i;
     }
   }
 }

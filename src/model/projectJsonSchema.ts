@@ -1,5 +1,5 @@
 // The project file's JSON Schema, generated from the zod schemas (the single source of truth).
-// scripts/gen-schema.mjs writes it to assets/schema/islet-project.schema.json; a unit test checks
+// tests/tools/gen-schema.mjs writes it to assets/schema/islet-project.schema.json; a unit test checks
 // that the committed file equals a fresh generation.
 import { z } from "zod";
 import { FORMAT_VERSION, projectSchema } from "./schema.ts";

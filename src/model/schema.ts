@@ -1,6 +1,6 @@
 // The project document: typed records with stable ids, described once as zod schemas.
 // The schemas are the single source of truth: TypeScript types are inferred from them,
-// the loader validates with them and scripts/gen-schema.mjs turns them into JSON Schema.
+// the loader validates with them and tests/tools/gen-schema.mjs turns them into JSON Schema.
 // Objects are "loose": a field this version does not know is kept, not dropped.
 import { z } from "zod";
 

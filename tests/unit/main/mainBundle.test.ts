@@ -50,7 +50,7 @@ Module._load = function (request, ...rest) { return request === "electron" ? fak
 `;
 
 async function buildInto(outDir: string) {
-  const { buildMain } = (await import(pathToFileURL(join(repo, "scripts", "build-main.mjs")).href)) as {
+  const { buildMain } = (await import(pathToFileURL(join(repo, "main", "scripts", "build-main.mjs")).href)) as {
     buildMain(root: string, o: { outDir: string; production: boolean }): Promise<void>;
   };
   await buildMain(repo, { outDir, production: false });

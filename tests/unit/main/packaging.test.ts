@@ -29,7 +29,7 @@ function builderConfig(): BuilderConfig {
 }
 
 async function importScript<T>(name: string): Promise<T> {
-  return (await import(pathToFileURL(join(repo, "scripts", name)).href)) as T;
+  return (await import(pathToFileURL(join(repo, "main", "scripts", name)).href)) as T;
 }
 
 describe("electron-builder.yml", () => {

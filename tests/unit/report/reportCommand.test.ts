@@ -1,4 +1,4 @@
-// `islet report` run as a user runs it: bin/islet.mjs in a child process.
+// `islet report` run as a user runs it: src/cli/islet.mjs in a child process.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { spawnSync } from "node:child_process";
 import { createHash } from "node:crypto";
@@ -16,7 +16,7 @@ const hasChromium = existsSync("/usr/bin/chromium");
 let dir = "";
 
 function islet(...args: string[]) {
-  const r = spawnSync(process.execPath, [join(root, "bin/islet.mjs"), ...args], { cwd: root, encoding: "utf8", timeout: 300_000 });
+  const r = spawnSync(process.execPath, [join(root, "src/cli/islet.mjs"), ...args], { cwd: root, encoding: "utf8", timeout: 300_000 });
   return { code: r.status, out: r.stdout, err: r.stderr };
 }
 

@@ -1,4 +1,4 @@
-// `islet validate` and `islet summary` run as a user runs them: bin/islet.mjs in a child process.
+// `islet validate` and `islet summary` run as a user runs them: src/cli/islet.mjs in a child process.
 // Expected messages follow the house rule that every message names the element (id and name) and the field.
 import { describe, it, expect, beforeAll, afterAll } from "vitest";
 import { spawnSync } from "node:child_process";
@@ -13,7 +13,7 @@ const demoText = readFileSync(demoPath, "utf8");
 let dir = "";
 
 function islet(...args: string[]) {
-  const r = spawnSync(process.execPath, [join(root, "bin/islet.mjs"), ...args], { cwd: root, encoding: "utf8" });
+  const r = spawnSync(process.execPath, [join(root, "src/cli/islet.mjs"), ...args], { cwd: root, encoding: "utf8" });
   return { code: r.status, out: r.stdout, err: r.stderr };
 }
 

@@ -20,7 +20,7 @@ const get = <T extends Element>(id: string) => {
 const ofKind = <K extends Element["kind"]>(kind: K) => project.elements.filter((e): e is Extract<Element, { kind: K }> => e.kind === kind);
 
 describe("the committed demo file", () => {
-  it("equals a fresh serialization of the demo module (run node scripts/gen-demo.mjs after editing it)", () => {
+  it("equals a fresh serialization of the demo module (run node tests/tools/gen-demo.mjs after editing it)", () => {
     expect(committed).toBe(serializeProject(project));
   });
 

@@ -9,7 +9,7 @@ import { fileURLToPath, pathToFileURL } from "node:url";
 import { ensureRendererBuilt, serveStudio } from "./web.mjs";
 import { buildMain } from "./build-main.mjs";
 
-const repoRoot = resolve(dirname(fileURLToPath(import.meta.url)), "..");
+const repoRoot = resolve(dirname(fileURLToPath(import.meta.url)), "../..");
 
 export const RUNTIME_MISSING_LINE =
   "Islet: the desktop runtime (Electron) is not installed on this machine (`npm install` downloads it unless ELECTRON_SKIP_BINARY_DOWNLOAD is set or package.json's allowScripts blocks electron's install script); serving the studio in your browser instead.";

@@ -6,8 +6,8 @@ import { dirname, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 
 register();
-const root = resolve(dirname(fileURLToPath(import.meta.url)), "..");
-const { projectJsonSchemaText, PROJECT_SCHEMA_PATH } = await import("../src/model/projectJsonSchema.ts");
+const root = resolve(dirname(fileURLToPath(import.meta.url)), "../..");
+const { projectJsonSchemaText, PROJECT_SCHEMA_PATH } = await import("../../src/model/projectJsonSchema.ts");
 const out = resolve(root, PROJECT_SCHEMA_PATH);
 mkdirSync(dirname(out), { recursive: true });
 writeFileSync(out, projectJsonSchemaText(), "utf8");

@@ -1,10 +1,10 @@
 // Bundles the `islet` command into one ES module, out/cli/islet.mjs, for packaging.
-// (During development bin/islet.mjs runs the TypeScript sources through tsx instead.)
+// (During development src/cli/islet.mjs runs the TypeScript sources through tsx instead.)
 import { build } from "esbuild";
 import { dirname, join, resolve } from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
 
-const repoRoot = resolve(dirname(fileURLToPath(import.meta.url)), "..");
+const repoRoot = resolve(dirname(fileURLToPath(import.meta.url)), "../..");
 
 const entry = `import { main } from "./src/cli/main.ts";
 process.exitCode = await main(process.argv.slice(2));

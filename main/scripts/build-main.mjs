@@ -5,7 +5,7 @@ import { build } from "esbuild";
 import { dirname, join, resolve } from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
 
-const repoRoot = resolve(dirname(fileURLToPath(import.meta.url)), "..");
+const repoRoot = resolve(dirname(fileURLToPath(import.meta.url)), "../..");
 
 /** esbuild options for the two bundles; exported so a test can check them without building. */
 export function mainBuildOptions(root = repoRoot, { production = process.env.NODE_ENV === "production", outDir = join(root, "out", "main") } = {}) {

@@ -1,6 +1,6 @@
 // `npm run web`: the studio in a browser. Builds the renderer when out/renderer is missing or
 // older than its sources, then serves it with vite preview on a fixed local address.
-// Also used by scripts/start.mjs where the desktop runtime is not installed.
+// Also used by main/scripts/start.mjs where the desktop runtime is not installed.
 import { spawn } from "node:child_process";
 import { existsSync, readdirSync, statSync } from "node:fs";
 import { get } from "node:http";
@@ -12,10 +12,10 @@ export const STUDIO_HOST = "127.0.0.1";
 export const STUDIO_PORT = 5178;
 export const STUDIO_URL = `http://${STUDIO_HOST}:${STUDIO_PORT}/`;
 
-const repoRoot = resolve(dirname(fileURLToPath(import.meta.url)), "..");
+const repoRoot = resolve(dirname(fileURLToPath(import.meta.url)), "../..");
 
 /** Folders and files whose changes make the built renderer stale (the CLI is not part of it). */
-export const RENDERER_INPUTS = ["renderer", "src/model", "src/engine", "src/protection", "src/study", "src/report", "package.json"];
+export const RENDERER_INPUTS = ["renderer", "src/model", "src/engine", "src/protection", "src/study", "src/report", "assets/demo", "package.json"];
 
 /** Newest modification time (ms) of a file or of any file below a folder; 0 when missing. */
 export function newestMtime_ms(path) {

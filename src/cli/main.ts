@@ -1,5 +1,6 @@
 // Entry of the `islet` command: dispatches to one module per sub-command.
 // Exit codes: 0 ok, 1 the checked thing failed (invalid file, failing verdict), 2 usage or internal error.
+import { CAUTION_TEXT } from "../model/caution.ts";
 import { validateCommand } from "./commands/validate.ts";
 import { summaryCommand } from "./commands/summary.ts";
 import { studyCommand } from "./commands/study.ts";
@@ -12,7 +13,7 @@ const commands: CliCommand[] = [validateCommand, summaryCommand, studyCommand, c
 function usage(): string {
   const lines = ["Usage: islet <command> FILE [options]", "", "Commands:"];
   for (const c of commands) lines.push(`  ${c.name.padEnd(10)} ${c.summary}`);
-  lines.push("", "Results support, and do not replace, review by a licensed engineer under local codes and the utility's interconnection rules.");
+  lines.push("", CAUTION_TEXT);
   return lines.join("\n");
 }
 

@@ -3,6 +3,7 @@
 // Sign convention everywhere: a current is positive when it flows FROM the bus INTO the element at that end
 // (branch end or shunt terminal). Angles are in degrees, referred to the positive-sequence prefault voltage of
 // phase a at the faulted bus's side of the network, with vector-group phase shifts applied across transformers.
+import { CAUTION_TEXT } from "../model/caution.ts";
 
 export type FaultType = "3ph" | "LL" | "LG" | "LLG";
 export const FAULT_TYPES: readonly FaultType[] = ["3ph", "LL", "LG", "LLG"];
@@ -295,5 +296,4 @@ export interface LocationCurrent {
   i_A: number;
 }
 
-export const CAUTION =
-  "Results support, and do not replace, review by a licensed engineer under local codes and the utility's interconnection rules.";
+export const CAUTION = CAUTION_TEXT;

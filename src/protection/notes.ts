@@ -1,8 +1,8 @@
 // Fixed texts the UI, CLI and reports show beside protection results.
+import { CAUTION_TEXT } from "../model/caution.ts";
 
 /** Shown wherever settings, clearing times or withstand are displayed. */
-export const PROTECTION_CAUTION =
-  "Results support, and do not replace, review by a licensed engineer under local codes and the utility's interconnection rules.";
+export const PROTECTION_CAUTION = CAUTION_TEXT;
 
 /** Fuse current limitation is not modelled. */
 export const FUSE_LET_THROUGH_NOTE =

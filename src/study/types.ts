@@ -1,6 +1,7 @@
 // Public result types of the protection study: plain data (no classes, no Maps) so that results
 // cross the worker boundary unchanged and the UI, the report and the CLI read the same shapes.
 // Currents are primary amperes (RMS, initial symmetrical), times are seconds.
+import { CAUTION_TEXT } from "../model/caution.ts";
 
 /** IEC 60909 fault types: three-phase, line-to-line, line-to-earth, line-to-line-to-earth. */
 export type FaultType = "3ph" | "LL" | "LG" | "LLG";
@@ -205,8 +206,7 @@ export interface StudyResult {
   caution: string;
 }
 
-export const STUDY_CAUTION =
-  "Results support, and do not replace, review by a licensed engineer under local codes and the utility's interconnection rules.";
+export const STUDY_CAUTION = CAUTION_TEXT;
 
 // ---------- worker requests (src/study/rpc/handleStudyRequest.ts) ----------
 

@@ -1,5 +1,6 @@
 // `islet summary FILE [--json]`: element counts by kind, buses per voltage level, and the scenarios
 // with their out-of-service sources. Exit 0 on a readable project, 1 on an invalid one, 2 on usage errors.
+import { CAUTION_TEXT } from "../../model/caution.ts";
 import type { CliCommand } from "../command.ts";
 import { readTextFile } from "../fileIo.ts";
 import { parseFileArgs } from "../fileArgs.ts";
@@ -7,7 +8,7 @@ import { loadProject } from "../../model/projectFile.ts";
 import { summarizeProject } from "../../model/projectSummary.ts";
 
 const USAGE = "Usage: islet summary FILE [--json]";
-const CAUTION = "Results support, and do not replace, review by a licensed engineer under local codes and the utility's interconnection rules.";
+const CAUTION = CAUTION_TEXT;
 
 export const summaryCommand: CliCommand = {
   name: "summary",

@@ -145,19 +145,25 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
     const cUnits = isl.units;
     const vpreC = new Float64Array(Jl).fill(c);
     let ik3 = -1;
+    // IEC 60909 converter currents depend on the faulted bus only (arg I_j = -arg Z_kj): once for all fault types.
+    const noInj: ComplexVec = { re: new Float64Array(Jl), im: new Float64Array(Jl) };
+    const iecInj: ComplexVec = { re: new Float64Array(Jl), im: new Float64Array(Jl) };
+    if (Jl > 0 && used === "iec") {
+      unitIdx.forEach((g, l) => {
+        const u = model.inverters[g];
+        const ang = -Math.atan2(colU[1][g].im[k], colU[1][g].re[k]);
+        iecInj.re[l] = u.iMax_pu * u.ir_pu * Math.cos(ang);
+        iecInj.im[l] = u.iMax_pu * u.ir_pu * Math.sin(ang);
+      });
+    }
     for (let t = 0; t < T; t++) {
       const type = types[t];
       let fp: LinearFault;
-      let inj1: ComplexVec = { re: new Float64Array(Jl), im: new Float64Array(Jl) };
-      let inj2: ComplexVec = { re: new Float64Array(Jl), im: new Float64Array(Jl) };
+      let inj1: ComplexVec = noInj;
+      let inj2: ComplexVec = noInj;
       if (Jl === 0) fp = solveCompact(type, inj1, inj2, true);
       else if (used === "iec") {
-        unitIdx.forEach((g, l) => {
-          const u = model.inverters[g];
-          const ang = -Math.atan2(colU[1][g].im[k], colU[1][g].re[k]);
-          inj1.re[l] = u.iMax_pu * u.ir_pu * Math.cos(ang);
-          inj1.im[l] = u.iMax_pu * u.ir_pu * Math.sin(ang);
-        });
+        inj1 = iecInj;
         fp = solveCompact(type, inj1, inj2, true);
       } else {
         // The map is given, so the solve only makes the final fault currents (unit voltages are not kept here).

@@ -108,6 +108,9 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     return n === undefined ? 0 : (net.nodes[n]?.shift_deg ?? 0);
   };
 
+  // Below a milliampere a device "sees" only rounding residue of the solve: far below any pickup, so it
+  // is treated as carrying no current (it still appears in a case when it sits on a source path).
+  const NO_CURRENT_A = 1e-3;
   const snapshotOfFault = (net: CompiledNetwork, r: FaultResult, refShift: number): FaultSnapshot => {
     const ends = new Map<string, (typeof r.branchEnds)[number]>();
     for (const e of r.branchEnds) ends.set(`${e.element}|${e.end}`, e);
@@ -116,7 +119,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     const readings: Record<string, DeviceReading> = {};
     for (const d of devices) {
       const end = ends.get(locKey.get(d.id)!);
-      if (!end) continue;
+      if (!end || end.phase_A[0].mag + end.phase_A[1].mag + end.phase_A[2].mag < NO_CURRENT_A) continue;
       const v = volts.get(end.bus);
       const seq: SequenceQuantities = {
         i0_A: toRect(end.seq_A[0]),
@@ -135,7 +138,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
 
   const solveSingle = (net: CompiledNetwork, variantProject: Project, loc: FaultLocation, type: FaultType): FaultSnapshot => {
     try {
-      const r = solveFault(net, loc, type);
+      const r = solveFault(net, loc, type, { detail: "devices" });
       return snapshotOfFault(net, r, shiftOf(net, busOf(loc, variantProject)));
     } catch (err) {
       return { iFault_A: 0, readings: {}, messages: [err instanceof Error ? err.message : String(err)] };
@@ -155,7 +158,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
       const d = devices[k];
       const cur = sweepDeviceCurrents(sweep, di, b, t);
       const phase: [number, number, number] = [cur.phase_A[0].mag, cur.phase_A[1].mag, cur.phase_A[2].mag];
-      if (phase[0] + phase[1] + phase[2] <= 0) continue;
+      if (phase[0] + phase[1] + phase[2] < NO_CURRENT_A) continue;
       const vRef = shift_deg[k] - refShift;
       const a = (vRef * Math.PI) / 180;
       // no voltages in a sweep: the prefault voltage stands in for V1 (a memory-polarised relay's view)

@@ -3,7 +3,7 @@ export * from "./types.ts";
 export { compileNetwork } from "./network/compileNetwork.ts";
 export { solveFault } from "./fault/solveFault.ts";
 export { sweepFaults, sweepFaultsAsync } from "./fault/sweepFaults.ts";
-export { sweepDeviceCurrents } from "./fault/sweepDeviceCurrents.ts";
+export { sweepDeviceCurrents, sweepDeviceCurrentsInto } from "./fault/sweepDeviceCurrents.ts";
 export { runLoadFlow } from "./loadflow/runLoadFlow.ts";
 export { loadCurrents } from "./loadflow/loadCurrents.ts";
 export { voltageFactor, transformerKT, generatorKG, peakFactor, breakingFactorMu, thermalFactorM } from "./iec60909/factors.ts";

@@ -10,7 +10,7 @@ import {
   loadCurrents,
   runLoadFlow,
   solveFault,
-  sweepDeviceCurrents,
+  sweepDeviceCurrentsInto,
   sweepFaults,
   type CompiledNetwork,
   type FaultResult,
@@ -111,6 +111,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   // Below a milliampere a device "sees" only rounding residue of the solve: far below any pickup, so it
   // is treated as carrying no current (it still appears in a case when it sits on a source path).
   const NO_CURRENT_A = 1e-3;
+  const sweepScratch = new Float64Array(9);
   const snapshotOfFault = (net: CompiledNetwork, r: FaultResult, refShift: number): FaultSnapshot => {
     const ends = new Map<string, (typeof r.branchEnds)[number]>();
     for (const e of r.branchEnds) ends.set(`${e.element}|${e.end}`, e);
@@ -156,13 +157,21 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
       const di = index[k];
       if (di < 0) continue;
       const d = devices[k];
-      const cur = sweepDeviceCurrents(sweep, di, b, t);
-      const phase: [number, number, number] = [cur.phase_A[0].mag, cur.phase_A[1].mag, cur.phase_A[2].mag];
-      if (phase[0] + phase[1] + phase[2] < NO_CURRENT_A) continue;
+      const cur = sweepScratch;
+      sweepDeviceCurrentsInto(sweep, di, b, t, cur);
+      if (cur[6] + cur[7] + cur[8] < NO_CURRENT_A) continue;
+      const phase: [number, number, number] = [cur[6], cur[7], cur[8]];
       const vRef = shift_deg[k] - refShift;
       const a = (vRef * Math.PI) / 180;
       // no voltages in a sweep: the prefault voltage stands in for V1 (a memory-polarised relay's view)
-      const seq: SequenceQuantities = { i0_A: cur.seq_A[0], i1_A: cur.seq_A[1], i2_A: cur.seq_A[2], v0_pu: ZERO, v1_pu: { re: Math.cos(a), im: Math.sin(a) }, v2_pu: ZERO };
+      const seq: SequenceQuantities = {
+        i0_A: { re: cur[0], im: cur[1] },
+        i1_A: { re: cur[2], im: cur[3] },
+        i2_A: { re: cur[4], im: cur[5] },
+        v0_pu: ZERO,
+        v1_pu: { re: Math.cos(a), im: Math.sin(a) },
+        v2_pu: ZERO,
+      };
       const m = measurementFromSequence(seq);
       m.phase_A = phase;
       readings[d.id] = { m, direction: currentDirection(seq.i1_A, vRef) };

@@ -4,7 +4,14 @@ import { seqToPhase, toPhasor } from "./phasors.ts";
 
 const overrideIndex = new WeakMap<SweepResult, Map<number, Float64Array>>();
 
-export function sweepDeviceCurrents(sweep: SweepResult, d: number, b: number, t: number): SweepDeviceCurrents {
+const S3 = Math.sqrt(3) / 2;
+
+/**
+ * Allocation-free read for hot loops: writes the device location's sequence currents in A as
+ * [re0, im0, re1, im1, re2, im2] into out[0..5] and its phase-current magnitudes |Ia|, |Ib|, |Ic| into out[6..8].
+ * Same arithmetic as sweepDeviceCurrents, which is built on it.
+ */
+export function sweepDeviceCurrentsInto(sweep: SweepResult, d: number, b: number, t: number, out: Float64Array): void {
   const B = sweep.busIds.length;
   const T = sweep.types.length;
   const dd = sweep.deviceData;
@@ -14,14 +21,12 @@ export function sweepDeviceCurrents(sweep: SweepResult, d: number, b: number, t:
     overrideIndex.set(sweep, ov);
   }
   const hit = ov.get(b * T + t);
-  let seq: Complex[];
   if (hit) {
-    seq = [0, 1, 2].map((s) => ({ re: hit[d * 6 + 2 * s], im: hit[d * 6 + 2 * s + 1] }));
+    for (let k = 0; k < 6; k++) out[k] = hit[d * 6 + k];
   } else {
     const J = dd.nInj;
     const base = dd.base_A[d];
     const rot = ((dd.shift_deg[d] - dd.busShift_deg[b]) * Math.PI) / 180;
-    seq = [];
     for (let s = 0; s < 3; s++) {
       const o = (d * B + b) * 6 + 2 * s;
       const f = (b * T + t) * 6 + 2 * s;
@@ -46,9 +51,26 @@ export function sweepDeviceCurrents(sweep: SweepResult, d: number, b: number, t:
       const ang = s === 1 ? rot : s === 2 ? -rot : 0;
       const c = Math.cos(ang);
       const sn = Math.sin(ang);
-      seq.push({ re: (re * c - im * sn) * base, im: (re * sn + im * c) * base });
+      out[2 * s] = (re * c - im * sn) * base;
+      out[2 * s + 1] = (re * sn + im * c) * base;
     }
   }
-  const ph = seqToPhase([seq[0], seq[1], seq[2]]);
-  return { seq_A: [seq[0], seq[1], seq[2]], phase_A: [toPhasor(ph[0]), toPhasor(ph[1]), toPhasor(ph[2])] };
+  // phases from sequences (a = 1 at 120 deg), as seqToPhase does
+  const i0r = out[0], i0i = out[1], i1r = out[2], i1i = out[3], i2r = out[4], i2i = out[5];
+  out[6] = Math.hypot(i0r + i1r + i2r, i0i + i1i + i2i);
+  out[7] = Math.hypot(i0r + (-0.5 * i1r - -S3 * i1i) + (-0.5 * i2r - S3 * i2i), i0i + (-0.5 * i1i + -S3 * i1r) + (-0.5 * i2i + S3 * i2r));
+  out[8] = Math.hypot(i0r + (-0.5 * i1r - S3 * i1i) + (-0.5 * i2r - -S3 * i2i), i0i + (-0.5 * i1i + S3 * i1r) + (-0.5 * i2i + -S3 * i2r));
+}
+
+const scratch = new Float64Array(9);
+
+export function sweepDeviceCurrents(sweep: SweepResult, d: number, b: number, t: number): SweepDeviceCurrents {
+  sweepDeviceCurrentsInto(sweep, d, b, t, scratch);
+  const seq: [Complex, Complex, Complex] = [
+    { re: scratch[0], im: scratch[1] },
+    { re: scratch[2], im: scratch[3] },
+    { re: scratch[4], im: scratch[5] },
+  ];
+  const ph = seqToPhase(seq);
+  return { seq_A: seq, phase_A: [toPhasor(ph[0]), toPhasor(ph[1]), toPhasor(ph[2])] };
 }

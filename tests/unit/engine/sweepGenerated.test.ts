@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { compileNetwork, solveFault, sweepFaults, sweepDeviceCurrents } from "../../../src/engine/index.ts";
+import { compileNetwork, solveFault, sweepFaults, sweepDeviceCurrents, sweepDeviceCurrentsInto } from "../../../src/engine/index.ts";
 import { generateRadialNetwork, GENERATED_SCENARIOS } from "../../../src/model/generateNetwork.ts";
 
 describe("all-bus sweep on a generated network with converters", () => {
@@ -34,4 +34,30 @@ describe("all-bus sweep on a generated network with converters", () => {
       expect(checked).toBeGreaterThan(500);
     });
   }
+});
+
+describe("allocation-free sweep read", () => {
+  it("writes exactly the sequence currents and phase magnitudes the object read returns", () => {
+    // Same network as above; the reference is sweepDeviceCurrents, whose phases follow from the
+    // symmetrical-component transform Ia = I0 + I1 + I2, Ib = I0 + a^2 I1 + a I2, Ic = I0 + a I1 + a^2 I2 (Fortescue).
+    const project = generateRadialNetwork({ buses: 60, devices: 30, seed: 5 });
+    const r = compileNetwork(project, { scenario: GENERATED_SCENARIOS.gridTied, limit: "max" });
+    if (!r.ok) throw new Error(r.errors.map((e) => e.text).join("; "));
+    const sweep = sweepFaults(r.network, { inverterModel: "refined" });
+    const out = new Float64Array(9);
+    let checked = 0;
+    for (let b = 0; b < sweep.busIds.length; b += 3)
+      for (let t = 0; t < sweep.types.length; t++)
+        for (let d = 0; d < sweep.devices.length; d++) {
+          const ref = sweepDeviceCurrents(sweep, d, b, t);
+          sweepDeviceCurrentsInto(sweep, d, b, t, out);
+          for (let s = 0; s < 3; s++) {
+            expect(out[2 * s]).toBe(ref.seq_A[s].re);
+            expect(out[2 * s + 1]).toBe(ref.seq_A[s].im);
+            expect(out[6 + s]).toBe(ref.phase_A[s].mag);
+          }
+          checked++;
+        }
+    expect(checked).toBeGreaterThan(500);
+  });
 });

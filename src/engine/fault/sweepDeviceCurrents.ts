@@ -5,6 +5,30 @@ import { seqToPhase, toPhasor } from "./phasors.ts";
 const overrideIndex = new WeakMap<SweepResult, Map<number, Float64Array>>();
 
 const S3 = Math.sqrt(3) / 2;
+// The last (sweep, bus, type) looked up, by a per-sweep number so that no sweep is kept alive here.
+const sweepIds = new WeakMap<SweepResult, number>();
+let nextSweepId = 1;
+const last: { sweep: number; b: number; t: number; hit: Float64Array | undefined } = { sweep: 0, b: -1, t: -1, hit: undefined };
+const reachIndex = new WeakMap<SweepResult, Uint8Array>();
+
+/** Whether any converter's unit injection gives device d a non-zero current (per sweep, cached). */
+function injReaches(sweep: SweepResult, d: number): boolean {
+  let reach = reachIndex.get(sweep);
+  if (!reach) {
+    const dd = sweep.deviceData;
+    const J = dd.nInj;
+    const D = dd.base_A.length;
+    reach = new Uint8Array(D);
+    for (let k = 0; k < D; k++)
+      for (let m = k * J * 6; m < (k + 1) * J * 6; m++)
+        if (dd.injMap[m] !== 0) {
+          reach[k] = 1;
+          break;
+        }
+    reachIndex.set(sweep, reach);
+  }
+  return reach[d] === 1;
+}
 
 /**
  * Allocation-free read for hot loops: writes the device location's sequence currents in A as
@@ -15,16 +39,29 @@ export function sweepDeviceCurrentsInto(sweep: SweepResult, d: number, b: number
   const B = sweep.busIds.length;
   const T = sweep.types.length;
   const dd = sweep.deviceData;
-  let ov = overrideIndex.get(sweep);
-  if (!ov) {
-    ov = new Map(dd.overrides.map((o) => [o.b * T + o.t, o.seq_A]));
-    overrideIndex.set(sweep, ov);
+  // callers loop over devices for one (bus, type): look the override up once per (sweep, bus, type)
+  let id = sweepIds.get(sweep);
+  if (id === undefined) {
+    id = nextSweepId++;
+    sweepIds.set(sweep, id);
   }
-  const hit = ov.get(b * T + t);
+  if (id !== last.sweep || b !== last.b || t !== last.t) {
+    let ov = overrideIndex.get(sweep);
+    if (!ov) {
+      ov = new Map(dd.overrides.map((o) => [o.b * T + o.t, o.seq_A]));
+      overrideIndex.set(sweep, ov);
+    }
+    last.sweep = id;
+    last.b = b;
+    last.t = t;
+    last.hit = ov.get(b * T + t);
+  }
+  const hit = last.hit;
   if (hit) {
     for (let k = 0; k < 6; k++) out[k] = hit[d * 6 + k];
   } else {
-    const J = dd.nInj;
+    // a device that no converter injection reaches skips the injection sum (its terms are exactly zero)
+    const J = injReaches(sweep, d) ? dd.nInj : 0;
     const base = dd.base_A[d];
     const rot = ((dd.shift_deg[d] - dd.busShift_deg[b]) * Math.PI) / 180;
     for (let s = 0; s < 3; s++) {

@@ -58,7 +58,7 @@ export default tseslint.config(
     },
   },
   {
-    files: ["scripts/**/*.{js,mjs,ts}", "tests/**/*.{ts,tsx,mjs}", "main/scripts/**/*.mjs", "src/cli/**/*.mjs", "*.config.{js,ts}"],
+    files: ["tests/**/*.{ts,tsx,mjs}", "main/scripts/**/*.mjs", "src/cli/**/*.mjs", "*.config.{js,ts}"],
     languageOptions: { globals: { ...globals.node, ...globals.browser } },
   },
 );

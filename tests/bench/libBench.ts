@@ -1,5 +1,5 @@
 // Shared helpers of the benchmark scripts: median timing with warm-up, PASS/MISS target lines, memory figures.
-// Target lines start with PASS or MISS so that scripts/bench.mjs can count them; a miss is reported, never thrown.
+// Target lines start with PASS or MISS so that tests/bench/run.mjs can count them; a miss is reported, never thrown.
 
 export interface Timing {
   median_ms: number;
@@ -55,7 +55,7 @@ export function target(label: string, value: number, unit: string, better: "lowe
   return ok;
 }
 
-/** Heap in use after a full collection when the process runs with --expose-gc (scripts/bench.mjs passes it). */
+/** Heap in use after a full collection when the process runs with --expose-gc (tests/bench/run.mjs passes it). */
 export function heapUsed_MB(): number {
   const gc = (globalThis as { gc?: () => void }).gc;
   if (gc) gc();

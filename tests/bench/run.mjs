@@ -1,4 +1,4 @@
-// `npm run bench`: runs every scripts/bench/*.ts (helpers named lib*.ts excluded) one after another with
+// `npm run bench`: runs every tests/bench/*.ts (helpers named lib*.ts excluded) one after another with
 // `node --import tsx`, streams their figures and sums up the PASS/MISS target lines they print.
 // Exits non-zero only when a benchmark crashes, never on a missed target.
 // `npm run bench -- engine study` runs only the files whose names contain one of the words.
@@ -7,7 +7,7 @@ import { readdirSync } from "node:fs";
 import { join, dirname } from "node:path";
 import { fileURLToPath } from "node:url";
 
-const dir = join(dirname(fileURLToPath(import.meta.url)), "bench");
+const dir = dirname(fileURLToPath(import.meta.url));
 const filters = process.argv.slice(2);
 const files = readdirSync(dir)
   .filter((f) => f.endsWith(".ts") && !f.startsWith("lib") && !f.endsWith(".d.ts"))

@@ -39,6 +39,20 @@ interface CableType {
   x0: number;
   ampacity_A: number;
 }
+/** The per-km data and rating fields of a cable record, one run of XLPE cable of this type. */
+function cableData(type: CableType) {
+  return {
+    r1_ohmPerKm: type.r1,
+    x1_ohmPerKm: type.x1,
+    r0_ohmPerKm: type.r0,
+    x0_ohmPerKm: type.x0,
+    parallel: 1,
+    material: type.material,
+    insulation: "XLPE" as const,
+    csa_mm2: type.csa_mm2,
+    ampacity_A: type.ampacity_A,
+  };
+}
 // Round generic values, ohm/km (typical orders of magnitude; // from memory).
 const MV_CABLES: CableType[] = [
   { csa_mm2: 240, material: "Al", r1: 0.125, x1: 0.097, r0: 0.5, x0: 0.35, ampacity_A: 420 },
@@ -169,15 +183,7 @@ function build(o: GenerateNetworkOptions, ties: number, shape: "radial" | "meshe
         fromBus: par.id,
         toBus: busId,
         length_km,
-        r1_ohmPerKm: type.r1,
-        x1_ohmPerKm: type.x1,
-        r0_ohmPerKm: type.r0,
-        x0_ohmPerKm: type.x0,
-        parallel: 1,
-        material: type.material,
-        insulation: "XLPE",
-        csa_mm2: type.csa_mm2,
-        ampacity_A: type.ampacity_A,
+        ...cableData(type),
       });
       z_pu = (Math.hypot(type.r1, type.x1) * length_km) / ((un * un) / BASE_MVA);
     }
@@ -281,15 +287,7 @@ function build(o: GenerateNetworkOptions, ties: number, shape: "radial" | "meshe
       fromBus: tree[a].id,
       toBus: tree[b].id,
       length_km: round(0.2 + rnd() * 0.8, 3),
-      r1_ohmPerKm: type.r1,
-      x1_ohmPerKm: type.x1,
-      r0_ohmPerKm: type.r0,
-      x0_ohmPerKm: type.x0,
-      parallel: 1,
-      material: type.material,
-      insulation: "XLPE",
-      csa_mm2: type.csa_mm2,
-      ampacity_A: type.ampacity_A,
+      ...cableData(type),
     });
   }
 

@@ -191,7 +191,7 @@ export function OneLineCanvas() {
         proOptions={{ hideAttribution: true }}
       >
         <Background variant={BackgroundVariant.Dots} gap={GRID * 2} size={1} />
-        <MiniMap pannable zoomable className="minimap" nodeStrokeWidth={2} />
+        <MiniMap pannable zoomable className="minimap" nodeStrokeWidth={2} style={{ width: 140, height: 96 }} />
         <Controls showInteractive={false} />
       </ReactFlow>
     </div>

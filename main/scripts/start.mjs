@@ -12,7 +12,7 @@ import { buildMain } from "./build-main.mjs";
 const repoRoot = resolve(dirname(fileURLToPath(import.meta.url)), "../..");
 
 export const RUNTIME_MISSING_LINE =
-  "Islet: the desktop runtime (Electron) is not installed on this machine (`npm install` downloads it unless ELECTRON_SKIP_BINARY_DOWNLOAD is set or package.json's allowScripts blocks electron's install script); serving the studio in your browser instead.";
+  "Islet: the desktop runtime (Electron) is not installed here (package.json's allowScripts keeps `npm install` from downloading it, as ELECTRON_SKIP_BINARY_DOWNLOAD=1 would); fetch it once with `node node_modules/electron/install.js`; serving the studio in your browser instead.";
 
 /** Path of the Electron binary, or null when the package is there without its runtime. */
 export function electronBinary(root = repoRoot) {

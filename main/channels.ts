@@ -11,6 +11,7 @@ export const CHANNELS = {
   readAutosave: "islet:read-autosave",
   clearAutosave: "islet:clear-autosave",
   exportFile: "islet:export-file",
+  exportReportPdf: "islet:export-report-pdf",
   /** main -> renderer: a command from the native menu or the launch arguments. */
   menuCommand: "islet:menu-command",
 } as const;

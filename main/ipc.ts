@@ -9,6 +9,7 @@ import { ArgumentError, checkBoolean, checkDocumentState, checkExportData, check
 import { samePath } from "./recentList.ts";
 import type { FileStore } from "./fileStore.ts";
 import { APP_ORIGIN } from "./protocol.ts";
+import { printReportPdf, type PdfPrinter } from "../src/report/printReportPdf.ts";
 
 export const PROJECT_EXTENSION = ".islet";
 
@@ -43,6 +44,8 @@ export interface IpcDeps {
   onSaveFinished(ok: boolean): void;
   onRecentChanged(paths: string[]): void;
   warn(message: string): void;
+  /** Prints report HTML to PDF bytes (the desktop's hidden print window); without it the call is refused. */
+  printPdf?: PdfPrinter;
 }
 
 export function isAppFrameUrl(url: string | undefined | null): boolean {
@@ -178,5 +181,22 @@ export function registerIpcHandlers(ipcMain: IpcMainLike, deps: IpcDeps): IpcReg
     return true;
   });
 
+  handle(CHANNELS.exportReportPdf, "exportReportPdf", async (nameArg, htmlArg) => {
+    const suggested = withPdfExtension(safeFileName(checkString("exportReportPdf", "suggestedName", nameArg, LIMITS.name_chars), "report.pdf"));
+    const html = checkString("exportReportPdf", "html", htmlArg, LIMITS.reportHtml_chars);
+    if (!deps.printPdf) throw new Error("exportReportPdf: printing to PDF is not available in this window");
+    // print first: a failed print never leaves the user with a half-chosen file
+    const pdf = await printReportPdf(html, deps.printPdf);
+    const path = await deps.dialogs.chooseExportPath(suggested, "pdf");
+    if (path === null) return false;
+    const outcome = await deps.store.writeExport(withPdfExtension(path), pdf);
+    if (!outcome.ok) throw new Error(outcome.message);
+    return true;
+  });
+
   return { allowFile };
+}
+
+export function withPdfExtension(path: string): string {
+  return extname(path).toLowerCase() === ".pdf" ? path : `${path}.pdf`;
 }

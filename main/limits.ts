@@ -7,6 +7,8 @@ export const LIMITS = {
   projectFile_bytes: 64 * 1024 * 1024,
   /** An exported report, CSV, SVG or PNG. */
   export_bytes: 128 * 1024 * 1024,
+  /** A report's HTML to print to PDF (UTF-16 code units). */
+  reportHtml_chars: 64 * 1024 * 1024,
   /** Display names and suggested file names. */
   name_chars: 255,
   /** File keys (absolute paths). */

@@ -11,6 +11,7 @@ import { CLOSE_DIALOG_BUTTONS, closeChoiceFromButton, createCloseGuard, type Clo
 import { electronFileDialogs } from "./dialogs.ts";
 import { createFileStore } from "./fileStore.ts";
 import { fileRefFor, registerIpcHandlers } from "./ipc.ts";
+import { createPdfPrinter } from "./pdfPrinter.ts";
 import { parseLaunchArgs, startupCommand } from "./launchArgs.ts";
 import { installMenu } from "./menu.ts";
 import { registerAppScheme, serveAppProtocol } from "./protocol.ts";
@@ -80,6 +81,7 @@ const ipc = registerIpcHandlers(ipcMain, {
   },
   onRecentChanged: refreshMenu,
   warn: (m) => console.warn(m),
+  printPdf: createPdfPrinter({ newWindow: (options) => new BrowserWindow(options) }),
 });
 
 function openWindow(): void {

@@ -34,6 +34,7 @@ export function createHostBridge(ipc: BridgeIpc): HostApi {
     readAutosave: () => ipc.invoke(CHANNELS.readAutosave) as Promise<{ text: string; savedAt: string } | null>,
     clearAutosave: () => ipc.invoke(CHANNELS.clearAutosave) as Promise<void>,
     exportFile: (suggestedName: string, data: string | Uint8Array, mime: string) => ipc.invoke(CHANNELS.exportFile, suggestedName, data, mime) as Promise<boolean>,
+    exportReportPdf: (suggestedName: string, html: string) => ipc.invoke(CHANNELS.exportReportPdf, suggestedName, html) as Promise<boolean>,
     onMenuCommand(handler: MenuHandler) {
       handlers.add(handler);
       if (early.length > 0) {

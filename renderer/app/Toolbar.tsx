@@ -12,6 +12,7 @@ import { nodeSize } from "../canvas/toFlow.ts";
 import { autoLayout } from "../canvas/autoLayout.ts";
 import { faultAtSelection } from "./faultCommands.ts";
 import { StudyControl } from "./StudyControl.tsx";
+import { saveReport } from "../files/saveReport.ts";
 
 const FAULT_WORDS: Record<FaultType, string> = { "3ph": "Three-phase", LL: "Line-line", LG: "Line-earth", LLG: "Line-line-earth" };
 
@@ -139,6 +140,9 @@ export function Toolbar() {
         )}
       </div>
       <StudyControl />
+      <div className="tool-group" aria-label="Report">
+        <button className="tool-button" onClick={() => void saveReport()} title="Run the study if needed and save the study report" data-testid="report">Report</button>
+      </div>
       <div className="tool-spacer" />
       <button className="tool-button" onClick={() => session.set({ theme: session.theme === "light" ? "dark" : "light" })} aria-label="Switch theme">
         {session.theme === "light" ? "Dark" : "Light"}

@@ -51,6 +51,8 @@ export function desktopHost(bridge: HostApi): HostApi {
     readAutosave: () => plain(() => bridge.readAutosave()),
     clearAutosave: () => plain(() => bridge.clearAutosave()),
     exportFile: (name, data, mime) => plain(() => bridge.exportFile(name, data, mime)),
+    // only when the bridge offers it, so the studio can tell whether PDF printing exists
+    ...(bridge.exportReportPdf ? { exportReportPdf: (name: string, html: string) => plain(() => bridge.exportReportPdf!(name, html)) } : {}),
     onMenuCommand(handler) {
       return bridge.onMenuCommand((raw) => {
         const command = asMenuCommand(raw);

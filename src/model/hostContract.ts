@@ -41,6 +41,8 @@ export interface HostApi {
   clearAutosave(): Promise<void>;
   /** Export a generated file (report, CSV, SVG, PNG) chosen by the user; returns false when cancelled. */
   exportFile(suggestedName: string, data: string | Uint8Array, mime: string): Promise<boolean>;
+  /** Desktop only: print the report's HTML to PDF and save it where the user chooses; false when cancelled. */
+  exportReportPdf?(suggestedName: string, html: string): Promise<boolean>;
   /** Commands from the native menu (desktop) or nothing (browser). Returns an unsubscribe function. */
   onMenuCommand(handler: (command: MenuCommand) => void): () => void;
 }

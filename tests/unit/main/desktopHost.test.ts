@@ -45,6 +45,16 @@ describe("desktop host adapter", () => {
     expect(b.exportFile).toHaveBeenCalledWith("r.csv", "a", "text/csv");
   });
 
+  it("offers PDF printing only when the bridge does, with plain error messages", async () => {
+    expect(desktopHost(bridge()).exportReportPdf).toBeUndefined();
+    const print = vi.fn(async () => true);
+    const host = desktopHost(bridge({ exportReportPdf: print }));
+    expect(await host.exportReportPdf!("r.pdf", "<p>x</p>")).toBe(true);
+    expect(print).toHaveBeenCalledWith("r.pdf", "<p>x</p>");
+    const failing = desktopHost(bridge({ exportReportPdf: async () => Promise.reject(remote("islet:export-report-pdf", "exportReportPdf: html is too large")) }));
+    await expect(failing.exportReportPdf!("r.pdf", "x")).rejects.toThrow(/^exportReportPdf: html is too large$/);
+  });
+
   it("rejects with the plain message when the main process refuses a call", async () => {
     const host = desktopHost(bridge({ openRecent: async () => Promise.reject(remote("islet:open-recent", "openRecent: not listed")) }));
     await expect(host.openRecent({ name: "a", key: "/a" })).rejects.toThrow(/^openRecent: not listed$/);

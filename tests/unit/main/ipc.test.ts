@@ -70,6 +70,7 @@ describe("IPC channels", () => {
       CHANNELS.readAutosave,
       CHANNELS.clearAutosave,
       CHANNELS.exportFile,
+      CHANNELS.exportReportPdf,
     ];
     expect([...handlers.keys()].sort()).toEqual([...expected].sort());
   });

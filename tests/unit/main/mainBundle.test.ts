@@ -94,7 +94,7 @@ describe("built main process and preload", () => {
     const lines = run(join(out, "preload.cjs"), dir, hook);
     expect(lines).toContain("electron: ipcRenderer.on islet:menu-command");
     expect(lines).toContain(
-      "electron: expose isletHost clearAutosave,exportFile,kind,listRecent,loadDemo,onMenuCommand,openProject,openRecent,readAutosave,saveProject,setDocumentState,writeAutosave",
+      "electron: expose isletHost clearAutosave,exportFile,exportReportPdf,kind,listRecent,loadDemo,onMenuCommand,openProject,openRecent,readAutosave,saveProject,setDocumentState,writeAutosave",
     );
   });
 });

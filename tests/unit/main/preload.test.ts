@@ -22,6 +22,7 @@ const HOST_API_MEMBERS: Record<keyof HostApi, true> = {
   readAutosave: true,
   clearAutosave: true,
   exportFile: true,
+  exportReportPdf: true,
   onMenuCommand: true,
 };
 
@@ -62,6 +63,7 @@ describe("preload bridge", () => {
     await host.readAutosave();
     await host.clearAutosave();
     await host.exportFile("r.png", bytes, "image/png");
+    await host.exportReportPdf!("r.pdf", "<html></html>");
     expect(ipc.invoke.mock.calls).toEqual([
       [CHANNELS.openProject],
       [CHANNELS.openRecent, file],
@@ -72,6 +74,7 @@ describe("preload bridge", () => {
       [CHANNELS.readAutosave],
       [CHANNELS.clearAutosave],
       [CHANNELS.exportFile, "r.png", bytes, "image/png"],
+      [CHANNELS.exportReportPdf, "r.pdf", "<html></html>"],
     ]);
     host.setDocumentState({ name: "a.islet", dirty: true });
     expect(ipc.send).toHaveBeenCalledWith(CHANNELS.setDocumentState, { name: "a.islet", dirty: true });

@@ -10,6 +10,8 @@ export interface ReportCommandInput {
   study: StudyResult;
   /** Name of the session's file, or null for a project never saved. */
   fileName: string | null;
+  /** The document differs from the saved file (the hash is then of the current document, not the file). */
+  dirty: boolean;
   /** Report date, YYYY-MM-DD (the caller reads the clock). */
   date: string;
   version: string;
@@ -37,6 +39,12 @@ export function reportBaseName(fileName: string | null, projectName: string): st
   return base || "project";
 }
 
+/** What the cover says about the file: the hash is always of the current document's text. */
+export function fileLabel(fileName: string | null, dirty: boolean): string {
+  if (fileName === null) return "not saved to a file (hash of the current document)";
+  return dirty ? `${fileName}, with unsaved changes (hash of the current document)` : fileName;
+}
+
 export async function reportCommand(input: ReportCommandInput): Promise<AssembledReport> {
   // The hash is over the text a save would write, so it matches the file once saved unchanged.
   const text = serializeProject(input.project);
@@ -47,7 +55,7 @@ export async function reportCommand(input: ReportCommandInput): Promise<Assemble
     project: input.project,
     study: input.study,
     faults: faultTable(input.project),
-    meta: { date: input.date, version: input.version, fileName: input.fileName ?? `${base}.islet (unsaved)`, fileSha256 },
+    meta: { date: input.date, version: input.version, fileName: fileLabel(input.fileName, input.dirty), fileSha256 },
     validationWarnings: loaded.ok ? loaded.warnings : [],
   });
   return { html: report.html, htmlName: `${base}-report.html`, pdfName: `${base}-report.pdf`, fileSha256 };

@@ -8,6 +8,7 @@ import { useStudyStore } from "../fault/studyStore.ts";
 import { runFullStudy } from "../fault/studyCommands.ts";
 import { currentHost } from "../host/currentHost.ts";
 import { reportCommand } from "./reportCommand.ts";
+import { isDirty } from "./fileCommands.ts";
 
 function message(err: unknown): string {
   return err instanceof Error ? err.message : String(err);
@@ -35,6 +36,7 @@ export async function saveReport(): Promise<void> {
       project: useDocumentStore.getState().doc,
       study,
       fileName: useSessionStore.getState().file?.name ?? null,
+      dirty: isDirty(),
       date: new Date().toISOString().slice(0, 10),
       version: packageJson.version,
     });

@@ -39,7 +39,7 @@ describe("reportBaseName", () => {
 
 describe("reportCommand", () => {
   it("builds an HTML report with the project name, the caution and the project text's SHA-256", async () => {
-    const out = await reportCommand({ project, study, fileName: "dairy-coop.islet", date: "2026-12-02", version: "9.9.9-test" });
+    const out = await reportCommand({ project, study, fileName: "dairy-coop.islet", dirty: false, date: "2026-12-02", version: "9.9.9-test" });
     // independent hash of the same serialized text with node:crypto
     const expected = createHash("sha256").update(serializeProject(project), "utf8").digest("hex");
     expect(out.fileSha256).toBe(expected);
@@ -54,8 +54,10 @@ describe("reportCommand", () => {
     expect(out.pdfName).toBe("dairy-coop-report.pdf");
   });
 
-  it("marks a never-saved project's file name as unsaved", async () => {
-    const out = await reportCommand({ project, study, fileName: null, date: "2026-12-02", version: "1" });
-    expect(out.html).toContain("(unsaved)");
+  it("says when the hash is of a document never saved or changed since its save", async () => {
+    const unsaved = await reportCommand({ project, study, fileName: null, dirty: true, date: "2026-12-02", version: "1" });
+    expect(unsaved.html).toContain("not saved to a file (hash of the current document)");
+    const changed = await reportCommand({ project, study, fileName: "dairy-coop.islet", dirty: true, date: "2026-12-02", version: "1" });
+    expect(changed.html).toContain("dairy-coop.islet, with unsaved changes (hash of the current document)");
   });
 });

@@ -205,7 +205,7 @@ export interface SweepResult {
   /**
    * Sequence currents at every device location for every fault, in a compact linear form (memory D*B*6 rather than
    * D*B*T*6): read them with `sweepDeviceCurrents(sweep, d, b, t)`, which returns primary amperes with the
-   * EndCurrent sign convention. Layout documented in src/engine/fault/sweep.ts.
+   * EndCurrent sign convention. Layout documented in src/engine/fault/sweepFaults.ts.
    */
   deviceData: SweepDeviceData;
   messages: EngineMessage[];
@@ -215,7 +215,7 @@ export interface SweepResult {
 export interface SweepDeviceData {
   /** Primary-ampere base of each device location (node base current at its end). */
   base_A: Float64Array;
-  /** Per [(d * B + b) * 6 + 2 * s + re/im]: device current (pu) per pu fault current of sequence s at bus b. */
+  /** Per [(b * D + d) * 6 + 2 * s + re/im]: device current (pu) per pu fault current of sequence s at bus b (bus-major: one bus's devices are contiguous). */
   transfer: Float64Array;
   /** Fault sequence currents drawn into the fault, pu, per [(b * T + t) * 6 + 2 * s + re/im]. */
   faultSeq_pu: Float64Array;

@@ -7,6 +7,9 @@ import { faultEquations, type SeqView } from "./faultEquations.ts";
 import type { ComplexVec, LinearFault } from "./solveLinearFault.ts";
 import { sequenceSystem, zColumn, type Variant } from "../network/sequenceSystem.ts";
 import type { EngineCache } from "../network/engineCache.ts";
+import { FaultCoupledResponse, type UnitBlock } from "../inverter/unitResponse.ts";
+
+export type { UnitBlock };
 
 const EMPTY: ComplexVec = { re: new Float64Array(0), im: new Float64Array(0) };
 
@@ -40,13 +43,6 @@ export interface CompactFaultInput {
   block?: UnitBlock;
 }
 
-/** Z[u_q, u_j] among the units taking part, per [q * J + j], positive (z1) and negative (z2) sequence. */
-export interface UnitBlock {
-  z1r: Float64Array;
-  z1i: Float64Array;
-  z2r: Float64Array;
-  z2i: Float64Array;
-}
 
 /** Reads the unit-to-unit block of Z out of the unit columns once per island. */
 export function unitBlock(model: Model, unitIdx: number[], colU: ComplexVec[][]): UnitBlock {
@@ -123,108 +119,38 @@ export function solveCompactFault(p: CompactFaultInput, inj1: ComplexVec, inj2: 
   return { v: [z0, v1, v2], i: fp.i, consistent: fp.consistent, zkk: [null, p.z1kk, p.z2kk] };
 }
 
-/** The affine response V = a + M x at the unit nodes, flattened as refinedIteration takes it. */
-export interface AffineMap {
-  /** a: unit voltages with no converter injection, positive (a1) and negative (a2) sequence. */
-  a1r: Float64Array;
-  a1i: Float64Array;
-  a2r: Float64Array;
-  a2i: Float64Array;
-  /** [q * J + j]: response of unit j's V1 (M1) / V2 (M2) to injection q (q < J positive of unit q, else negative). */
-  M1r: Float64Array;
-  M1i: Float64Array;
-  M2r: Float64Array;
-  M2i: Float64Array;
+/**
+ * Loads the fault-coupled response (see unitResponse.ts) for the fault in p: Z[u_j, k] from the unit columns, and
+ * the fault currents' affine dependence on the open-circuit voltages E1, E2 at the fault from three evaluations of
+ * the fault equations. `g` is scratch space (8 numbers).
+ */
+export function loadFaultResponse(r: FaultCoupledResponse, p: CompactFaultInput, g: Float64Array = new Float64Array(8)): FaultCoupledResponse {
+  const { colU, k, c } = p;
+  for (let j = 0; j < r.J; j++) {
+    const u = p.unitIdx[j];
+    r.z1r[j] = colU[1][u].re[k];
+    r.z1i[j] = colU[1][u].im[k];
+    r.z2r[j] = colU[2][u].re[k];
+    r.z2i[j] = colU[2][u].im[k];
+  }
+  const f = (e1r: number, e2r: number) => faultEquations(p.type, [p.zeroView, { floating: false, e: { re: e1r, im: 0 }, z: p.z1kk }, { floating: false, e: { re: e2r, im: 0 }, z: p.z2kk }], p.zf).i;
+  const i0 = f(c, 0);
+  const iE1 = f(c + 1, 0);
+  const iE2 = f(c, 1);
+  g[0] = iE1[1].re - i0[1].re;
+  g[1] = iE1[1].im - i0[1].im;
+  g[2] = iE1[2].re - i0[2].re;
+  g[3] = iE1[2].im - i0[2].im;
+  g[4] = iE2[1].re - i0[1].re;
+  g[5] = iE2[1].im - i0[1].im;
+  g[6] = iE2[2].re - i0[2].re;
+  g[7] = iE2[2].im - i0[2].im;
+  r.setFault(c, i0[1].re, i0[1].im, i0[2].re, i0[2].im, g);
+  return r;
 }
 
-/**
- * Builds the map analytically: the fault currents are affine in the open-circuit voltages E1, E2 at the fault
- * (three evaluations of the fault equations give the coefficients), and V_U = c + Z_UU x - Z_Uk I.
- * Written with scalars (no temporaries): the sweep builds one map per bus and fault type.
- */
-export function compactAffineMap(p: CompactFaultInput): AffineMap {
-  const J = p.unitIdx.length;
-  const { colU, k, c } = p;
-  const f = (e1: Cx, e2: Cx) => faultEquations(p.type, [p.zeroView, { floating: false, e: e1, z: p.z1kk }, { floating: false, e: e2, z: p.z2kk }], p.zf).i;
-  const i0 = f({ re: c, im: 0 }, { re: 0, im: 0 });
-  const iE1 = f({ re: c + 1, im: 0 }, { re: 0, im: 0 });
-  const iE2 = f({ re: c, im: 0 }, { re: 1, im: 0 });
-  const g11r = iE1[1].re - i0[1].re;
-  const g11i = iE1[1].im - i0[1].im;
-  const g21r = iE1[2].re - i0[2].re;
-  const g21i = iE1[2].im - i0[2].im;
-  const g12r = iE2[1].re - i0[1].re;
-  const g12i = iE2[1].im - i0[1].im;
-  const g22r = iE2[2].re - i0[2].re;
-  const g22i = iE2[2].im - i0[2].im;
-  const nodes = new Int32Array(J);
-  const z1r = new Float64Array(J);
-  const z1i = new Float64Array(J);
-  const z2r = new Float64Array(J);
-  const z2i = new Float64Array(J);
-  const a1r = new Float64Array(J);
-  const a1i = new Float64Array(J);
-  const a2r = new Float64Array(J);
-  const a2i = new Float64Array(J);
-  const i01r = i0[1].re;
-  const i01i = i0[1].im;
-  const i02r = i0[2].re;
-  const i02i = i0[2].im;
-  for (let j = 0; j < J; j++) {
-    const g = p.unitIdx[j];
-    nodes[j] = p.model.inverters[g].node;
-    z1r[j] = colU[1][g].re[k];
-    z1i[j] = colU[1][g].im[k];
-    z2r[j] = colU[2][g].re[k];
-    z2i[j] = colU[2][g].im[k];
-    // a1 = c - Z[j,k] I0_1, a2 = -Z[j,k] I0_2
-    a1r[j] = c - (z1r[j] * i01r - z1i[j] * i01i);
-    a1i[j] = -(z1r[j] * i01i + z1i[j] * i01r);
-    a2r[j] = -(z2r[j] * i02r - z2i[j] * i02i);
-    a2i[j] = -(z2r[j] * i02i + z2i[j] * i02r);
-  }
-  const M1r = new Float64Array(2 * J * J);
-  const M1i = new Float64Array(2 * J * J);
-  const M2r = new Float64Array(2 * J * J);
-  const M2i = new Float64Array(2 * J * J);
-  for (let q = 0; q < 2 * J; q++) {
-    const pos = q < J;
-    const l = pos ? q : q - J;
-    const gq = p.unitIdx[l];
-    // Z[k, q] = Z[q, k]
-    const zr = pos ? z1r[l] : z2r[l];
-    const zi = pos ? z1i[l] : z2i[l];
-    const h1r = pos ? g11r : g12r;
-    const h1i = pos ? g11i : g12i;
-    const h2r = pos ? g21r : g22r;
-    const h2i = pos ? g21i : g22i;
-    const d1r = h1r * zr - h1i * zi;
-    const d1i = h1r * zi + h1i * zr;
-    const d2r = h2r * zr - h2i * zi;
-    const d2i = h2r * zi + h2i * zr;
-    const col = pos ? colU[1][gq] : colU[2][gq];
-    const blk = p.block;
-    const br = blk ? (pos ? blk.z1r : blk.z2r) : null;
-    const bi = blk ? (pos ? blk.z1i : blk.z2i) : null;
-    for (let j = 0; j < J; j++) {
-      let r1 = -(z1r[j] * d1r - z1i[j] * d1i);
-      let m1 = -(z1r[j] * d1i + z1i[j] * d1r);
-      let r2 = -(z2r[j] * d2r - z2i[j] * d2i);
-      let m2 = -(z2r[j] * d2i + z2i[j] * d2r);
-      const zr = br && bi ? br[l * J + j] : col.re[nodes[j]];
-      const zi = br && bi ? bi[l * J + j] : col.im[nodes[j]];
-      if (pos) {
-        r1 += zr;
-        m1 += zi;
-      } else {
-        r2 += zr;
-        m2 += zi;
-      }
-      M1r[q * J + j] = r1;
-      M1i[q * J + j] = m1;
-      M2r[q * J + j] = r2;
-      M2i[q * J + j] = m2;
-    }
-  }
-  return { a1r, a1i, a2r, a2i, M1r, M1i, M2r, M2i };
+/** A fresh fault-coupled response for the fault in p (one-off solves; a sweep reuses one with loadFaultResponse). */
+export function compactResponse(p: CompactFaultInput): FaultCoupledResponse {
+  const block = p.block ?? unitBlock(p.model, p.unitIdx, p.colU);
+  return loadFaultResponse(new FaultCoupledResponse(p.unitIdx.length, block), p);
 }

@@ -9,7 +9,7 @@ import { splitLine } from "../network/splitLine.ts";
 import { solveLinearFault, type ComplexVec, type LinearFault } from "./solveLinearFault.ts";
 import { iecInjections } from "../inverter/iecInjections.ts";
 import { refinedIteration, type RefinedOutcome } from "../inverter/refinedIteration.ts";
-import { compactAffineMap, compactUnits, solveCompactFault, unitColumns, type CompactFaultInput } from "./compactFault.ts";
+import { compactResponse, compactUnits, solveCompactFault, unitColumns, type CompactFaultInput } from "./compactFault.ts";
 import type { SeqView } from "./faultEquations.ts";
 import { allShuntCurrents, branchEndResults, type RawEnd } from "./endCurrents.ts";
 import { faultMagnitudes } from "./faultCurrentMagnitude.ts";
@@ -143,7 +143,7 @@ export function solveFault(network: CompiledNetwork, location: FaultLocation, ty
       const colU = unitColumns(model, cache, hasGfm ? "refined" : "iec");
       const zeroView: SeqView = sysR[0].floating[sysR[0].comp[k]] ? { floating: true, j: { re: 0, im: 0 } } : { floating: false, e: { re: 0, im: 0 }, z: { re: zkR[0].re[k], im: zkR[0].im[k] } };
       const cin: CompactFaultInput = { model, unitIdx, colU, k, type, zf, c, zeroView, z1kk: { re: zkR[1].re[k], im: zkR[1].im[k] }, z2kk: { re: zkR[2].re[k], im: zkR[2].im[k] } };
-      const r = refinedIteration(compactUnits(model, unitIdx), unitIdx.length, new Float64Array(unitIdx.length).fill(c), (a, b) => solveCompactFault(cin, a, b), compactAffineMap(cin));
+      const r = refinedIteration(compactUnits(model, unitIdx), unitIdx.length, new Float64Array(unitIdx.length).fill(c), (a, b) => solveCompactFault(cin, a, b), compactResponse(cin));
       const inj1 = { re: new Float64Array(n), im: new Float64Array(n) };
       const inj2 = { re: new Float64Array(n), im: new Float64Array(n) };
       unitIdx.forEach((g, l) => {

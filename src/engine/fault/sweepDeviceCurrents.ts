@@ -36,7 +36,7 @@ function injReaches(sweep: SweepResult, d: number): boolean {
  * Same arithmetic as sweepDeviceCurrents, which is built on it.
  */
 export function sweepDeviceCurrentsInto(sweep: SweepResult, d: number, b: number, t: number, out: Float64Array): void {
-  const B = sweep.busIds.length;
+  const D = sweep.deviceData.base_A.length;
   const T = sweep.types.length;
   const dd = sweep.deviceData;
   // callers loop over devices for one (bus, type): look the override up once per (sweep, bus, type)
@@ -65,7 +65,7 @@ export function sweepDeviceCurrentsInto(sweep: SweepResult, d: number, b: number
     const base = dd.base_A[d];
     const rot = ((dd.shift_deg[d] - dd.busShift_deg[b]) * Math.PI) / 180;
     for (let s = 0; s < 3; s++) {
-      const o = (d * B + b) * 6 + 2 * s;
+      const o = (b * D + d) * 6 + 2 * s;
       const f = (b * T + t) * 6 + 2 * s;
       const tr = dd.transfer[o];
       const ti = dd.transfer[o + 1];

@@ -2,19 +2,20 @@
 // driving-point impedance (and the branch-pair entries the radial peak factor needs), one solve per device location
 // (reciprocity: the device current for a fault at every bus is c_d^T Z[:, k] = (Z c_d)[k]) and one per inverter
 // unit. Each fault then costs a few complex operations; device currents are kept in linear form (see types.ts):
-//   I_d,s(b, t) = transfer[d, b, s] * If_s(b, t) + sum_j injMap[d, j, s] * inj_s(b, t, j)
+//   I_d,s(b, t) = transfer[b, d, s] * If_s(b, t) + sum_j injMap[d, j, s] * inj_s(b, t, j)
 // Buses where a sequence network floats (islands of current sources only) are solved one by one (overrides).
 import type { CompiledNetwork, EngineMessage, FaultType, SweepOptions, SweepResult } from "../types.ts";
 import { FAULT_TYPES } from "../types.ts";
 import type { Cx } from "../network/model.ts";
 import { sequenceSystem, type SequenceSystem } from "../network/sequenceSystem.ts";
-import { compactAffineMap, compactUnits, solveCompactFault, unitBlock, unitColumns, type CompactFaultInput, type UnitBlock } from "./compactFault.ts";
+import { compactUnits, loadFaultResponse, solveCompactFault, unitBlock, unitColumns, type CompactFaultInput } from "./compactFault.ts";
+import { FaultCoupledResponse } from "../inverter/unitResponse.ts";
+import { InjectionWork, iterateInjections } from "../inverter/refinedIteration.ts";
 import { solveLdltBlock } from "../sparse/ldlt.ts";
 import { inverseSubset, type InverseSubset } from "../sparse/takahashi.ts";
 import { deviceCombination, type Combination } from "./deviceCombination.ts";
 import type { SeqView } from "./faultEquations.ts";
 import { faultMagnitudes } from "./faultCurrentMagnitude.ts";
-import { refinedIteration } from "../inverter/refinedIteration.ts";
 import { voltageFactor, peakFactor } from "../iec60909/factors.ts";
 import { isRadialIsland } from "./peakCurrent.ts";
 import { solveFault, type EngineInternal } from "./solveFault.ts";
@@ -99,7 +100,7 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
   const busShift_deg = new Float64Array(B);
   const overrides: SweepResult["deviceData"]["overrides"] = [];
   const radial = new Map<number, boolean>();
-  const islandUnits = new Map<number, { unitIdx: number[]; units: ReturnType<typeof compactUnits>; block: UnitBlock }>();
+  const islandUnits = new Map<number, IslandUnits>();
   // Branches and shunts meeting at each node (the radial peak factor looks at them for every faulted bus).
   const atNode: { branches: number[]; shunts: number[] }[] = model.nodes.map(() => ({ branches: [], shunts: [] }));
   model.branches.forEach((br, i) => {
@@ -134,20 +135,15 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
     const zeroView: SeqView = sys[0].floating[sys[0].comp[k]] ? { floating: true, j: { re: 0, im: 0 } } : { floating: false, e: { re: 0, im: 0 }, z: zkk[0] };
     let isl = islandUnits.get(node.island);
     if (!isl) {
-      const idx = model.inverters.map((u, j) => (model.nodes[u.node].island === node.island ? j : -1)).filter((j) => j >= 0);
-      isl = { unitIdx: idx, units: compactUnits(model, idx), block: unitBlock(model, idx, colU) };
+      isl = islandWork(model, node.island, colU);
       islandUnits.set(node.island, isl);
     }
-    const unitIdx = isl.unitIdx;
+    const { unitIdx, iecInj, noInj, work } = isl;
     const Jl = unitIdx.length;
     const cin: CompactFaultInput = { model, unitIdx, colU, k, type: "3ph", zf, c, zeroView, z1kk: zkk[1], z2kk: zkk[2], block: isl.block };
-    const solveCompact = (type: FaultType, a: ComplexVec, bb: ComplexVec, currentsOnly = false): LinearFault => solveCompactFault({ ...cin, type }, a, bb, currentsOnly);
-    const cUnits = isl.units;
-    const vpreC = new Float64Array(Jl).fill(c);
+    isl.vpre.fill(c);
     let ik3 = -1;
     // IEC 60909 converter currents depend on the faulted bus only (arg I_j = -arg Z_kj): once for all fault types.
-    const noInj: ComplexVec = { re: new Float64Array(Jl), im: new Float64Array(Jl) };
-    const iecInj: ComplexVec = { re: new Float64Array(Jl), im: new Float64Array(Jl) };
     if (Jl > 0 && used === "iec") {
       unitIdx.forEach((g, l) => {
         const u = model.inverters[g];
@@ -158,20 +154,22 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
     }
     for (let t = 0; t < T; t++) {
       const type = types[t];
+      cin.type = type;
       let fp: LinearFault;
       let inj1: ComplexVec = noInj;
       let inj2: ComplexVec = noInj;
-      if (Jl === 0) fp = solveCompact(type, inj1, inj2, true);
+      if (Jl === 0) fp = solveCompactFault(cin, inj1, inj2, true);
       else if (used === "iec") {
         inj1 = iecInj;
-        fp = solveCompact(type, inj1, inj2, true);
+        fp = solveCompactFault(cin, inj1, inj2, true);
       } else {
-        // The map is given, so the solve only makes the final fault currents (unit voltages are not kept here).
-        const r = refinedIteration(cUnits, Jl, vpreC, (a, bb) => solveCompact(type, a, bb, true), compactAffineMap({ ...cin, type }));
-        fp = r.fault;
+        // Iterate on the closed-form response at the unit nodes; the final solve only makes the fault currents.
+        const report = iterateInjections(isl.units, loadFaultResponse(isl.response, cin, isl.g), isl.vpre, work);
         // Per-unit injections (grid-forming: the limiting correction; the shunt part is in the transfer).
-        [inj1, inj2] = r.inj;
-        if (!r.converged) messages.push({ level: "warning", code: "inverter-not-converged", text: `${type} fault at bus ${busIds[b]}: the refined inverter iteration did not converge` });
+        inj1 = isl.x1;
+        inj2 = isl.x2;
+        fp = solveCompactFault(cin, inj1, inj2, true);
+        if (!report.converged) messages.push({ level: "warning", code: "inverter-not-converged", text: `${type} fault at bus ${busIds[b]}: the refined inverter iteration did not converge` });
       }
       const mags = faultMagnitudes(type, fp.i);
       ikss_kA[b * T + t] = mags.ikss * iBase_kA;
@@ -216,13 +214,50 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
   };
 }
 
+/** Per island: its units and the workspace their iteration reuses for every bus and fault type. */
+interface IslandUnits {
+  unitIdx: number[];
+  units: ReturnType<typeof compactUnits>;
+  block: ReturnType<typeof unitBlock>;
+  response: FaultCoupledResponse;
+  work: InjectionWork;
+  vpre: Float64Array;
+  g: Float64Array;
+  /** Views of the workspace's injections (the iterate) as complex vectors. */
+  x1: ComplexVec;
+  x2: ComplexVec;
+  iecInj: ComplexVec;
+  noInj: ComplexVec;
+}
+
+function islandWork(model: EngineInternal["model"], island: number, colU: ComplexVec[][]): IslandUnits {
+  const unitIdx = model.inverters.map((u, j) => (model.nodes[u.node].island === island ? j : -1)).filter((j) => j >= 0);
+  const J = unitIdx.length;
+  const block = unitBlock(model, unitIdx, colU);
+  const work = new InjectionWork(J);
+  return {
+    unitIdx,
+    units: compactUnits(model, unitIdx),
+    block,
+    response: new FaultCoupledResponse(J, block),
+    work,
+    vpre: new Float64Array(J),
+    g: new Float64Array(8),
+    x1: { re: work.x1r, im: work.x1i },
+    x2: { re: work.x2r, im: work.x2i },
+    iecInj: { re: new Float64Array(J), im: new Float64Array(J) },
+    noInj: { re: new Float64Array(J), im: new Float64Array(J) },
+  };
+}
+
 /** Columns solved together per block: one cache line of doubles per row of the block. */
 const BLOCK = 8;
 
 /**
- * transfer[d, b, s] = -(Z_s c_d)[k_b] and injMap[d, j, s] = (Z_s c_d)[node_j] for every device d with a combination,
- * solving BLOCK devices at a time per sequence (see solveLdltBlock); the unit's own injection enters its terminal
- * current with -1. Values equal those of one solve per device and sequence, bit for bit.
+ * transfer[b, d, s] = -(Z_s c_d)[k_b] and injMap[d, j, s] = (Z_s c_d)[node_j] for every device d with a combination,
+ * solving BLOCK devices at a time in each sequence (see solveLdltBlock), then writing the block's three sequences
+ * for every bus in one pass (bus-major: a block's values at a bus are one contiguous run). The unit's own injection
+ * enters its terminal current with -1. Values equal those of one solve per device and sequence, bit for bit.
  */
 function deviceTransfers(
   model: EngineInternal["model"],
@@ -242,42 +277,51 @@ function deviceTransfers(
   for (let b = 0; b < B; b++) busRow[b] = busNodes[b] < 0 ? -1 : inv[busNodes[b]] * BLOCK;
   const unitRow = new Int32Array(J);
   for (let j = 0; j < J; j++) unitRow[j] = inv[model.inverters[j].node] * BLOCK;
-  const xr = new Float64Array(n * BLOCK);
-  const xi = new Float64Array(n * BLOCK);
+  const xs = [0, 1, 2].map(() => ({ re: new Float64Array(n * BLOCK), im: new Float64Array(n * BLOCK) }));
   const cols = new Int32Array(BLOCK);
-  for (let s = 0; s < 3; s++) {
-    const f = sys[s].factor;
-    for (let d0 = 0; d0 < D; ) {
-      // Gather up to BLOCK devices with terms in this sequence.
-      let m = 0;
+  for (let d0 = 0; d0 < D; ) {
+    // The next BLOCK devices with a combination.
+    let m = 0;
+    for (; d0 < D && m < BLOCK; d0++) if (combos[d0]) cols[m++] = d0;
+    if (m === 0) break;
+    for (let s = 0; s < 3; s++) {
+      const { re: xr, im: xi } = xs[s];
       xr.fill(0);
       xi.fill(0);
-      for (; d0 < D && m < BLOCK; d0++) {
-        const tm = combos[d0]?.terms[s];
-        if (!tm || tm.nodes.length === 0) continue;
+      let any = false;
+      for (let c = 0; c < m; c++) {
+        const tm = combos[cols[c]]?.terms[s];
+        if (!tm) continue;
         for (let q = 0; q < tm.nodes.length; q++) {
-          const o = inv[tm.nodes[q]] * BLOCK + m;
+          const o = inv[tm.nodes[q]] * BLOCK + c;
           xr[o] += tm.re[q];
           xi[o] += tm.im[q];
+          any = true;
         }
-        cols[m++] = d0;
       }
-      if (m === 0) break;
-      solveLdltBlock(f, xr, xi, BLOCK);
+      if (any) solveLdltBlock(sys[s].factor, xr, xi, BLOCK);
       for (let c = 0; c < m; c++) {
-        const d = cols[c];
-        const base = d * B * 6 + 2 * s;
-        for (let b = 0; b < B; b++) {
-          const r = busRow[b];
-          if (r < 0) continue;
-          transfer[base + b * 6] = -xr[r + c];
-          transfer[base + b * 6 + 1] = -xi[r + c];
-        }
+        const o = (cols[c] * J) * 6 + 2 * s;
         for (let j = 0; j < J; j++) {
-          const o = (d * J + j) * 6 + 2 * s;
-          injMap[o] = xr[unitRow[j] + c];
-          injMap[o + 1] = xi[unitRow[j] + c];
+          injMap[o + j * 6] = xr[unitRow[j] + c];
+          injMap[o + j * 6 + 1] = xi[unitRow[j] + c];
         }
+      }
+    }
+    const [x0, x1, x2] = xs;
+    for (let b = 0; b < B; b++) {
+      const r = busRow[b];
+      if (r < 0) continue;
+      const row = b * D;
+      for (let c = 0; c < m; c++) {
+        const o = (row + cols[c]) * 6;
+        const q = r + c;
+        transfer[o] = -x0.re[q];
+        transfer[o + 1] = -x0.im[q];
+        transfer[o + 2] = -x1.re[q];
+        transfer[o + 3] = -x1.im[q];
+        transfer[o + 4] = -x2.re[q];
+        transfer[o + 5] = -x2.im[q];
       }
     }
   }

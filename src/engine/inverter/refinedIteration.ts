@@ -11,12 +11,13 @@
 //    and negative sequence); when its largest phase current exceeds iMax Ir, extra injections scale its positive and
 //    negative-sequence currents down together to the limit.
 // The network response is affine in the injections, so it is sampled once (2J + 1 solutions for J units, or given in
-// closed form by the caller) and the
-// damped fixed-point iteration runs on that small map; the damping halves whenever the residual grows.
+// closed form by the caller, see unitResponse.ts) and the damped fixed-point iteration runs on that small map; the
+// damping halves whenever the residual grows. The iteration proper (iterateInjections) works in a reusable
+// workspace and allocates nothing: a sweep runs it for every bus and fault type.
 import type { InverterUnit } from "../network/model.ts";
 import type { ComplexVec, LinearFault } from "../fault/solveLinearFault.ts";
 import type { InverterUnitResult } from "../types.ts";
-import type { AffineMap } from "../fault/compactFault.ts";
+import { DenseResponse, type AffineMap, type UnitResponse } from "./unitResponse.ts";
 import { newtonSolve } from "./newtonFallback.ts";
 
 export const MAX_ITERATIONS = 300;
@@ -36,6 +37,8 @@ export interface RefinedOutcome {
 }
 
 const cabs = (a: C) => Math.hypot(a.re, a.im);
+/** |(x, y)|: Math.hypot guards against overflow that per-unit values cannot reach, at several times the cost. */
+const mag = (x: number, y: number) => Math.sqrt(x * x + y * y);
 
 const A: C = { re: -0.5, im: Math.sqrt(3) / 2 };
 const A2: C = { re: -0.5, im: -Math.sqrt(3) / 2 };
@@ -50,62 +53,109 @@ function maxPhase(i1r: number, i1i: number, i2r: number, i2i: number): number {
   const c1i = A.re * i1i + A.im * i1r;
   const c2r = A2.re * i2r - A2.im * i2i;
   const c2i = A2.re * i2i + A2.im * i2r;
-  return Math.max(Math.hypot(i1r + i2r, i1i + i2i), Math.hypot(b1r + b2r, b1i + b2i), Math.hypot(c1r + c2r, c1i + c2i));
+  return Math.max(mag(i1r + i2r, i1i + i2i), mag(b1r + b2r, b1i + b2i), mag(c1r + c2r, c1i + c2i));
 }
 
 /**
- * Workspace of the iteration: every per-unit quantity in typed arrays, so that an iteration step allocates nothing
- * (the sweep runs it for every bus and fault type). Arithmetic is the same, operation by operation, as the object
- * form it replaced.
+ * Workspace of the iteration: every per-unit quantity in typed arrays, so that an iteration step allocates nothing.
+ * Create one per number of units and reuse it (see iterateInjections).
  */
-interface Work {
-  J: number;
+export class InjectionWork {
   /** Voltages at the unit nodes for the present injections. */
-  v1r: Float64Array;
-  v1i: Float64Array;
-  v2r: Float64Array;
-  v2i: Float64Array;
+  readonly v1r: Float64Array;
+  readonly v1i: Float64Array;
+  readonly v2r: Float64Array;
+  readonly v2i: Float64Array;
   /** Targets: the injections each unit wants for those voltages, and its total output currents. */
-  t1r: Float64Array;
-  t1i: Float64Array;
-  t2r: Float64Array;
-  t2i: Float64Array;
-  o1r: Float64Array;
-  o1i: Float64Array;
-  o2r: Float64Array;
-  o2i: Float64Array;
-  limited: Uint8Array;
+  readonly t1r: Float64Array;
+  readonly t1i: Float64Array;
+  readonly t2r: Float64Array;
+  readonly t2i: Float64Array;
+  readonly o1r: Float64Array;
+  readonly o1i: Float64Array;
+  readonly o2r: Float64Array;
+  readonly o2i: Float64Array;
+  readonly limited: Uint8Array;
+  /** The injections (the iterate): positive x1, negative x2 per unit. */
+  readonly x1r: Float64Array;
+  readonly x1i: Float64Array;
+  readonly x2r: Float64Array;
+  readonly x2i: Float64Array;
+  /** Unit directions of the angle references (see referenceDirections). */
+  readonly dirR: Float64Array;
+  readonly dirI: Float64Array;
+  /** The iterate and the targets flattened [x1r, x1i, x2r, x2i] (the arrays above are views of these). */
+  readonly x: Float64Array;
+  readonly t: Float64Array;
+  /** Anderson acceleration: the residual f = t - x, the previous iterate and residual, the last ANDERSON_DEPTH
+   * differences dF of f and dG of x + f (ring buffers), the inner products of the dF, and the least-squares system. */
+  readonly af: Float64Array;
+  readonly axPrev: Float64Array;
+  readonly afPrev: Float64Array;
+  readonly dG: Float64Array;
+  readonly dF: Float64Array;
+  readonly dots: Float64Array;
+  readonly gram: Float64Array;
+  readonly rhs: Float64Array;
+  constructor(readonly J: number) {
+    const f = () => new Float64Array(J);
+    this.v1r = f();
+    this.v1i = f();
+    this.v2r = f();
+    this.v2i = f();
+    this.t = new Float64Array(4 * J);
+    this.t1r = this.t.subarray(0, J);
+    this.t1i = this.t.subarray(J, 2 * J);
+    this.t2r = this.t.subarray(2 * J, 3 * J);
+    this.t2i = this.t.subarray(3 * J, 4 * J);
+    this.o1r = f();
+    this.o1i = f();
+    this.o2r = f();
+    this.o2i = f();
+    this.limited = new Uint8Array(J);
+    this.x = new Float64Array(4 * J);
+    this.x1r = this.x.subarray(0, J);
+    this.x1i = this.x.subarray(J, 2 * J);
+    this.x2r = this.x.subarray(2 * J, 3 * J);
+    this.x2i = this.x.subarray(3 * J, 4 * J);
+    this.dirR = f();
+    this.dirI = f();
+    this.af = new Float64Array(4 * J);
+    this.axPrev = new Float64Array(4 * J);
+    this.afPrev = new Float64Array(4 * J);
+    this.dG = new Float64Array(ANDERSON_DEPTH * 4 * J);
+    this.dF = new Float64Array(ANDERSON_DEPTH * 4 * J);
+    this.dots = new Float64Array(ANDERSON_DEPTH * ANDERSON_DEPTH);
+    this.gram = new Float64Array(ANDERSON_DEPTH * ANDERSON_DEPTH);
+    this.rhs = new Float64Array(ANDERSON_DEPTH);
+  }
 }
 
-function createWork(J: number): Work {
-  const f = () => new Float64Array(J);
-  return { J, v1r: f(), v1i: f(), v2r: f(), v2i: f(), t1r: f(), t1i: f(), t2r: f(), t2i: f(), o1r: f(), o1i: f(), o2r: f(), o2i: f(), limited: new Uint8Array(J) };
-}
+/** Differences kept by the Anderson acceleration, and the iterations it may take before the damped iteration takes over. */
+const ANDERSON_DEPTH = 3;
+const ANDERSON_ITERATIONS = 60;
 
 /**
  * Unit directions of the angle references: the voltages without converter injections (a1), or the prefault angle at
  * a dead terminal. The same for every iteration, so computed once.
  */
-function referenceDirections(a1r: Float64Array, a1i: Float64Array): { dirR: Float64Array; dirI: Float64Array } {
-  const J = a1r.length;
-  const dirR = new Float64Array(J);
-  const dirI = new Float64Array(J);
-  for (let j = 0; j < J; j++) {
+function referenceDirections(a1r: Float64Array, a1i: Float64Array, dirR: Float64Array, dirI: Float64Array): void {
+  for (let j = 0; j < a1r.length; j++) {
     let refr = 1;
     let refi = 0;
-    if (Math.hypot(a1r[j], a1i[j]) > 1e-9) {
+    if (mag(a1r[j], a1i[j]) > 1e-9) {
       refr = a1r[j];
       refi = a1i[j];
     }
-    const rm = Math.hypot(refr, refi);
+    const rm = mag(refr, refi);
     dirR[j] = refr / rm;
     dirI[j] = refi / rm;
   }
-  return { dirR, dirI };
 }
 
 /** Targets for the voltages in w (v1, v2), grid-following currents aligned with the reference directions. */
-function targets(units: InverterUnit[], w: Work, dirR: Float64Array, dirI: Float64Array, vpre: Float64Array): void {
+function targets(units: InverterUnit[], w: InjectionWork, vpre: Float64Array): void {
+  const { dirR, dirI } = w;
   for (let j = 0; j < units.length; j++) {
     const u = units[j];
     const v1r = w.v1r[j];
@@ -144,7 +194,7 @@ function targets(units: InverterUnit[], w: Work, dirR: Float64Array, dirI: Float
       w.limited[j] = k < 1 ? 1 : 0;
       continue;
     }
-    const vm = Math.hypot(v1r, v1i) * u.vScale;
+    const vm = mag(v1r, v1i) * u.vScale;
     const dip = Math.max(0, 1 - vm);
     const iq = Math.min(u.kFactor * dip, u.iMax_pu);
     const pmax = Math.sqrt(Math.max(0, u.iMax_pu * u.iMax_pu - iq * iq));
@@ -158,9 +208,9 @@ function targets(units: InverterUnit[], w: Work, dirR: Float64Array, dirI: Float
     let i2r = 0;
     let i2i = 0;
     if (u.negSeq === "k-factor") {
-      const v2abs = Math.hypot(v2r, v2i);
+      const v2abs = mag(v2r, v2i);
       const v2m = v2abs * u.vScale;
-      const room = Math.max(0, u.iMax_pu - Math.hypot(ip, iq));
+      const room = Math.max(0, u.iMax_pu - mag(ip, iq));
       const m2 = Math.min(u.k2 * v2m, room);
       if (v2m > 1e-12) {
         const ci = (m2 * u.ir_pu) / v2abs;
@@ -176,7 +226,7 @@ function targets(units: InverterUnit[], w: Work, dirR: Float64Array, dirI: Float
     w.o1i[j] = i1i;
     w.o2r[j] = i2r;
     w.o2i[j] = i2i;
-    w.limited[j] = Math.hypot(ip, iq) + Math.hypot(i2r, i2i) / u.ir_pu >= u.iMax_pu * (1 - 1e-9) ? 1 : 0;
+    w.limited[j] = mag(ip, iq) + mag(i2r, i2i) / u.ir_pu >= u.iMax_pu * (1 - 1e-9) ? 1 : 0;
   }
 }
 
@@ -215,146 +265,265 @@ function sampleMap(units: InverterUnit[], n: number, solve: (inj1: ComplexVec, i
   return { a1r, a1i, a2r, a2i, M1r, M1i, M2r, M2i };
 }
 
-/** V = a + M x at the unit nodes, into w.v1 / w.v2 (columns with a zero injection are skipped). */
-function evalV(map: AffineMap, w: Work, x1r: Float64Array, x1i: Float64Array, x2r: Float64Array, x2i: Float64Array): void {
-  const J = w.J;
-  const { M1r, M1i, M2r, M2i } = map;
-  const { v1r, v1i, v2r, v2i } = w;
-  v1r.set(map.a1r);
-  v1i.set(map.a1i);
-  v2r.set(map.a2r);
-  v2i.set(map.a2i);
-  for (let q = 0; q < 2 * J; q++) {
-    const xr = q < J ? x1r[q] : x2r[q - J];
-    const xi = q < J ? x1i[q] : x2i[q - J];
-    if (xr === 0 && xi === 0) continue;
-    const o = q * J;
-    for (let j = 0; j < J; j++) {
-      const a = M1r[o + j];
-      const b = M1i[o + j];
-      const c = M2r[o + j];
-      const d = M2i[o + j];
-      v1r[j] += a * xr - b * xi;
-      v1i[j] += a * xi + b * xr;
-      v2r[j] += c * xr - d * xi;
-      v2i[j] += c * xi + d * xr;
-    }
-  }
+export interface IterationReport {
+  iterations: number;
+  residual_pu: number;
+  converged: boolean;
 }
 
-/** `precomputed`: the affine map when the caller has it in closed form (see compactAffineMap). */
+/** V for the injections x, then the targets for that V, into w. */
+function step(units: InverterUnit[], resp: UnitResponse, w: InjectionWork, vpre: Float64Array, x1r: Float64Array, x1i: Float64Array, x2r: Float64Array, x2i: Float64Array): void {
+  resp.evaluate(w, x1r, x1i, x2r, x2i);
+  targets(units, w, vpre);
+}
+
+/** Largest |T(x) - x| over the units, in units of each one's rated current. */
+function residualOf(units: InverterUnit[], w: InjectionWork): number {
+  let residual = 0;
+  for (let j = 0; j < units.length; j++) {
+    const r1 = mag(w.t1r[j] - w.x1r[j], w.t1i[j] - w.x1i[j]);
+    const r2 = mag(w.t2r[j] - w.x2r[j], w.t2i[j] - w.x2i[j]);
+    residual = Math.max(residual, r1 / units[j].ir_pu, r2 / units[j].ir_pu);
+  }
+  return residual;
+}
+
+/**
+ * Damped fixed-point iterations from the present w.x; the step halves whenever the residual fails to fall by 5 %
+ * (which also breaks two-cycles, whose residual stays put). Returns the last residual and the steps taken.
+ */
+function fixedPoint(units: InverterUnit[], resp: UnitResponse, w: InjectionWork, vpre: Float64Array, alpha0: number, maxIterations: number): { residual: number; steps: number } {
+  const J = w.J;
+  const { x1r, x1i, x2r, x2i, t1r, t1i, t2r, t2i } = w;
+  let alpha = alpha0;
+  let previous = Infinity;
+  let residual = Infinity;
+  let k = 0;
+  for (; k < maxIterations; k++) {
+    step(units, resp, w, vpre, x1r, x1i, x2r, x2i);
+    residual = residualOf(units, w);
+    if (residual < TOLERANCE_PU) return { residual, steps: k };
+    if (residual > 0.95 * previous) alpha = Math.max(0.01, alpha / 2);
+    previous = residual;
+    for (let j = 0; j < J; j++) {
+      x1r[j] += alpha * (t1r[j] - x1r[j]);
+      x1i[j] += alpha * (t1i[j] - x1i[j]);
+      x2r[j] += alpha * (t2r[j] - x2r[j]);
+      x2i[j] += alpha * (t2i[j] - x2i[j]);
+    }
+  }
+  return { residual, steps: k };
+}
+
+/**
+ * Anderson-accelerated fixed point (type II, depth ANDERSON_DEPTH) from the present w.x: the next iterate combines
+ * the last few so that their residuals cancel in the least-squares sense. Near a smooth fixed point it needs about
+ * half the plain iteration's steps. The history is dropped when the least-squares system is singular or the
+ * residual grows tenfold (a limit switching on or off changes the map); the plain damped iteration and Newton's
+ * method remain behind it for what this does not settle.
+ */
+function andersonPoint(units: InverterUnit[], resp: UnitResponse, w: InjectionWork, vpre: Float64Array, maxIterations: number): { residual: number; steps: number } {
+  const n4 = 4 * w.J;
+  const { x, t, af, axPrev, afPrev, dG, dF, dots, gram, rhs } = w;
+  let count = 0;
+  let head = 0;
+  let previous = Infinity;
+  let residual = Infinity;
+  let k = 0;
+  for (; k < maxIterations; k++) {
+    step(units, resp, w, vpre, w.x1r, w.x1i, w.x2r, w.x2i);
+    residual = residualOf(units, w);
+    if (residual < TOLERANCE_PU) return { residual, steps: k };
+    for (let i = 0; i < n4; i++) af[i] = t[i] - x[i];
+    if (residual > 10 * previous) {
+      count = 0;
+      head = 0;
+    } else if (k > 0) {
+      const o = head * n4;
+      for (let i = 0; i < n4; i++) {
+        const df = af[i] - afPrev[i];
+        dF[o + i] = df;
+        dG[o + i] = x[i] - axPrev[i] + df;
+      }
+      if (count < ANDERSON_DEPTH) count++;
+      // Only the new difference's inner products change (slots 0..count-1 hold the history, in any order).
+      for (let a = 0; a < count; a++) {
+        let g = 0;
+        for (let i = 0; i < n4; i++) g += dF[a * n4 + i] * dF[o + i];
+        dots[a * ANDERSON_DEPTH + head] = g;
+        dots[head * ANDERSON_DEPTH + a] = g;
+      }
+      head = (head + 1) % ANDERSON_DEPTH;
+    }
+    previous = residual;
+    axPrev.set(x);
+    afPrev.set(af);
+    // gamma = argmin |f - dF gamma| by the normal equations (count x count, a tiny regularisation keeps it solvable).
+    let ok = count > 0;
+    if (ok) {
+      for (let a = 0; a < count; a++) {
+        let r = 0;
+        for (let i = 0; i < n4; i++) r += dF[a * n4 + i] * af[i];
+        rhs[a] = r;
+        for (let c = 0; c < count; c++) gram[a * count + c] = dots[a * ANDERSON_DEPTH + c];
+      }
+      ok = choleskySolve(gram, rhs, count);
+    }
+    if (!ok) {
+      count = 0;
+      head = 0;
+    }
+    for (let i = 0; i < n4; i++) {
+      let v = x[i] + af[i];
+      for (let a = 0; a < count; a++) v -= dG[a * n4 + i] * rhs[a];
+      x[i] = v;
+    }
+  }
+  return { residual, steps: k };
+}
+
+/** Solves the small symmetric positive (semi)definite system g x = b in place (b becomes x); false when singular. */
+function choleskySolve(g: Float64Array, b: Float64Array, m: number): boolean {
+  let trace = 0;
+  for (let a = 0; a < m; a++) trace += g[a * m + a];
+  if (!(trace > 0)) return false;
+  const eps = 1e-14 * trace;
+  for (let a = 0; a < m; a++) g[a * m + a] += eps;
+  for (let a = 0; a < m; a++) {
+    for (let c = 0; c < a; c++) {
+      let s = g[a * m + c];
+      for (let q = 0; q < c; q++) s -= g[a * m + q] * g[c * m + q];
+      g[a * m + c] = s / g[c * m + c];
+    }
+    let d = g[a * m + a];
+    for (let q = 0; q < a; q++) d -= g[a * m + q] * g[a * m + q];
+    if (!(d > eps)) return false;
+    g[a * m + a] = Math.sqrt(d);
+  }
+  for (let a = 0; a < m; a++) {
+    let s = b[a];
+    for (let q = 0; q < a; q++) s -= g[a * m + q] * b[q];
+    b[a] = s / g[a * m + a];
+  }
+  for (let a = m - 1; a >= 0; a--) {
+    let s = b[a];
+    for (let q = a + 1; q < m; q++) s -= g[q * m + a] * b[q];
+    b[a] = s / g[a * m + a];
+  }
+  return true;
+}
+
+/** The damped fixed point stalled (limits switching, strong coupling): Newton's method from w.x, then small damped steps. */
+function newtonFinish(units: InverterUnit[], resp: UnitResponse, w: InjectionWork, vpre: Float64Array, residual0: number): { residual: number; steps: number } {
+  const J = w.J;
+  const m = 4 * J;
+  const { x1r, x1i, x2r, x2i } = w;
+  const pack = () => {
+    const z = new Float64Array(m);
+    for (let j = 0; j < J; j++) {
+      z[4 * j] = x1r[j];
+      z[4 * j + 1] = x1i[j];
+      z[4 * j + 2] = x2r[j];
+      z[4 * j + 3] = x2i[j];
+    }
+    return z;
+  };
+  const p1r = new Float64Array(J);
+  const p1i = new Float64Array(J);
+  const p2r = new Float64Array(J);
+  const p2i = new Float64Array(J);
+  const unpack = (z: Float64Array) => {
+    for (let j = 0; j < J; j++) {
+      p1r[j] = z[4 * j];
+      p1i[j] = z[4 * j + 1];
+      p2r[j] = z[4 * j + 2];
+      p2i[j] = z[4 * j + 3];
+    }
+  };
+  const F = (z: Float64Array) => {
+    unpack(z);
+    step(units, resp, w, vpre, p1r, p1i, p2r, p2i);
+    const out = new Float64Array(m);
+    for (let j = 0; j < J; j++) {
+      out[4 * j] = w.t1r[j] - p1r[j];
+      out[4 * j + 1] = w.t1i[j] - p1i[j];
+      out[4 * j + 2] = w.t2r[j] - p2r[j];
+      out[4 * j + 3] = w.t2i[j] - p2i[j];
+    }
+    return out;
+  };
+  const norm = (f: Float64Array) => {
+    let r = 0;
+    for (let j = 0; j < J; j++) r = Math.max(r, Math.hypot(f[4 * j], f[4 * j + 1]) / units[j].ir_pu, Math.hypot(f[4 * j + 2], f[4 * j + 3]) / units[j].ir_pu);
+    return r;
+  };
+  const scale = new Float64Array(m);
+  units.forEach((u, j) => scale.fill(u.ir_pu, 4 * j, 4 * j + 4));
+  let residual = residual0;
+  const nw = newtonSolve(pack(), F, norm, scale, TOLERANCE_PU);
+  if (nw.norm < residual) {
+    unpack(nw.z);
+    x1r.set(p1r);
+    x1i.set(p1i);
+    x2r.set(p2r);
+    x2i.set(p2i);
+    residual = nw.norm;
+  }
+  let steps = nw.steps;
+  // Newton stops short at a kink of the limits (min/max switching); small damped steps finish from there.
+  if (!(residual < TOLERANCE_PU)) {
+    const fp = fixedPoint(units, resp, w, vpre, 0.1, 4 * MAX_ITERATIONS);
+    residual = fp.residual;
+    steps += fp.steps;
+  }
+  return { residual, steps };
+}
+
+/**
+ * Solves the refined model's injections for one fault: w.x holds them on return, and w's voltages, targets and
+ * outputs are those of that final x. Starts from the targets for no injection.
+ */
+export function iterateInjections(units: InverterUnit[], resp: UnitResponse, vpre: Float64Array, w: InjectionWork): IterationReport {
+  referenceDirections(resp.a1r, resp.a1i, w.dirR, w.dirI);
+  w.x1r.fill(0);
+  w.x1i.fill(0);
+  w.x2r.fill(0);
+  w.x2i.fill(0);
+  step(units, resp, w, vpre, w.x1r, w.x1i, w.x2r, w.x2i);
+  w.x1r.set(w.t1r);
+  w.x1i.set(w.t1i);
+  w.x2r.set(w.t2r);
+  w.x2i.set(w.t2i);
+  const aa = andersonPoint(units, resp, w, vpre, ANDERSON_ITERATIONS);
+  let residual = aa.residual;
+  let it = aa.steps;
+  if (!(residual < TOLERANCE_PU)) {
+    const fp = fixedPoint(units, resp, w, vpre, 1, MAX_ITERATIONS);
+    residual = fp.residual;
+    it += fp.steps;
+  }
+  if (!(residual < TOLERANCE_PU)) {
+    const nf = newtonFinish(units, resp, w, vpre, residual);
+    residual = nf.residual;
+    it += nf.steps;
+  }
+  // Report the state actually injected (after the last update or Newton step).
+  step(units, resp, w, vpre, w.x1r, w.x1i, w.x2r, w.x2i);
+  return { iterations: it + 1, residual_pu: residual, converged: residual < TOLERANCE_PU };
+}
+
+/** `precomputed`: the response when the caller has it in closed form (see compactResponse). */
 export function refinedIteration(
   units: InverterUnit[],
   n: number,
   vpre: Float64Array,
   solve: (inj1: ComplexVec, inj2: ComplexVec) => LinearFault,
-  precomputed?: AffineMap,
+  precomputed?: UnitResponse,
 ): RefinedOutcome {
-  const J = units.length;
-  const map = precomputed ?? sampleMap(units, n, solve);
-  const { dirR, dirI } = referenceDirections(map.a1r, map.a1i);
-  const w = createWork(J);
-  const step = (x1r: Float64Array, x1i: Float64Array, x2r: Float64Array, x2i: Float64Array) => {
-    evalV(map, w, x1r, x1i, x2r, x2i);
-    targets(units, w, dirR, dirI, vpre);
-  };
-  const x1r = new Float64Array(J);
-  const x1i = new Float64Array(J);
-  const x2r = new Float64Array(J);
-  const x2i = new Float64Array(J);
-  step(x1r, x1i, x2r, x2i);
-  x1r.set(w.t1r);
-  x1i.set(w.t1i);
-  x2r.set(w.t2r);
-  x2i.set(w.t2i);
-  let residual = Infinity;
-  let it = 0;
-  /** Damped fixed-point iterations from the present x; the step halves whenever the residual fails to fall by 5 %. */
-  const fixedPoint = (alpha0: number, maxIterations: number) => {
-    let alpha = alpha0;
-    let previous = Infinity;
-    for (let k = 0; k < maxIterations; k++, it++) {
-      step(x1r, x1i, x2r, x2i);
-      residual = 0;
-      for (let j = 0; j < J; j++) {
-        const r1 = Math.hypot(w.t1r[j] - x1r[j], w.t1i[j] - x1i[j]);
-        const r2 = Math.hypot(w.t2r[j] - x2r[j], w.t2i[j] - x2i[j]);
-        residual = Math.max(residual, r1 / units[j].ir_pu, r2 / units[j].ir_pu);
-      }
-      if (residual < TOLERANCE_PU) return;
-      // Also breaks two-cycles, whose residual stays put.
-      if (residual > 0.95 * previous) alpha = Math.max(0.01, alpha / 2);
-      previous = residual;
-      const a = alpha;
-      for (let j = 0; j < J; j++) {
-        x1r[j] = x1r[j] + a * (w.t1r[j] - x1r[j]);
-        x1i[j] = x1i[j] + a * (w.t1i[j] - x1i[j]);
-        x2r[j] = x2r[j] + a * (w.t2r[j] - x2r[j]);
-        x2i[j] = x2i[j] + a * (w.t2i[j] - x2i[j]);
-      }
-    }
-  };
-  fixedPoint(1, MAX_ITERATIONS);
-  if (!(residual < TOLERANCE_PU)) {
-    // The damped fixed point stalled (limits switching, strong coupling): finish with Newton's method.
-    const m = 4 * J;
-    const pack = () => {
-      const z = new Float64Array(m);
-      for (let j = 0; j < J; j++) {
-        z[4 * j] = x1r[j];
-        z[4 * j + 1] = x1i[j];
-        z[4 * j + 2] = x2r[j];
-        z[4 * j + 3] = x2i[j];
-      }
-      return z;
-    };
-    const p1r = new Float64Array(J);
-    const p1i = new Float64Array(J);
-    const p2r = new Float64Array(J);
-    const p2i = new Float64Array(J);
-    const unpack = (z: Float64Array) => {
-      for (let j = 0; j < J; j++) {
-        p1r[j] = z[4 * j];
-        p1i[j] = z[4 * j + 1];
-        p2r[j] = z[4 * j + 2];
-        p2i[j] = z[4 * j + 3];
-      }
-    };
-    const F = (z: Float64Array) => {
-      unpack(z);
-      step(p1r, p1i, p2r, p2i);
-      const out = new Float64Array(m);
-      for (let j = 0; j < J; j++) {
-        out[4 * j] = w.t1r[j] - p1r[j];
-        out[4 * j + 1] = w.t1i[j] - p1i[j];
-        out[4 * j + 2] = w.t2r[j] - p2r[j];
-        out[4 * j + 3] = w.t2i[j] - p2i[j];
-      }
-      return out;
-    };
-    const norm = (f: Float64Array) => {
-      let r = 0;
-      for (let j = 0; j < J; j++) r = Math.max(r, Math.hypot(f[4 * j], f[4 * j + 1]) / units[j].ir_pu, Math.hypot(f[4 * j + 2], f[4 * j + 3]) / units[j].ir_pu);
-      return r;
-    };
-    const scale = new Float64Array(m);
-    units.forEach((u, j) => scale.fill(u.ir_pu, 4 * j, 4 * j + 4));
-    const nw = newtonSolve(pack(), F, norm, scale, TOLERANCE_PU);
-    if (nw.norm < residual) {
-      unpack(nw.z);
-      x1r.set(p1r);
-      x1i.set(p1i);
-      x2r.set(p2r);
-      x2i.set(p2i);
-      residual = nw.norm;
-    }
-    it += nw.steps;
-    // Newton stops short at a kink of the limits (min/max switching); small damped steps finish from there.
-    if (!(residual < TOLERANCE_PU)) fixedPoint(0.1, 4 * MAX_ITERATIONS);
-  }
-  const converged = residual < TOLERANCE_PU;
-  // Report the state actually injected (after the last update or Newton step).
-  step(x1r, x1i, x2r, x2i);
+  const resp = precomputed ?? new DenseResponse(sampleMap(units, n, solve));
+  const w = new InjectionWork(units.length);
+  const report = iterateInjections(units, resp, vpre, w);
+  const { x1r, x1i, x2r, x2i } = w;
   // Currents out of each unit for the injections used: x itself (grid-following), or the unlimited source current
   // plus the limiting correction x (grid-forming). Equal to the targets once converged.
   const out = units.map((_, j) => ({
@@ -378,5 +547,5 @@ export function refinedIteration(
     v1_pu: Math.hypot(w.v1r[j], w.v1i[j]) * u.vScale,
     limited: w.limited[j] === 1,
   }));
-  return { fault, inj: [inj1, inj2], iterations: it + 1, residual_pu: residual, converged, units: unitsOut, out };
+  return { fault, inj: [inj1, inj2], iterations: report.iterations, residual_pu: report.residual_pu, converged: report.converged, units: unitsOut, out };
 }

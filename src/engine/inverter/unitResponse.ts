@@ -129,7 +129,14 @@ export class FaultCoupledResponse implements UnitResponse {
    * of those currents per unit open-circuit voltage at the fault: column 1 for E1, column 2 for E2. z must be set.
    */
   setFault(c: number, i01r: number, i01i: number, i02r: number, i02i: number, g: Float64Array): void {
-    [this.g11r, this.g11i, this.g21r, this.g21i, this.g12r, this.g12i, this.g22r, this.g22i] = g;
+    this.g11r = g[0];
+    this.g11i = g[1];
+    this.g21r = g[2];
+    this.g21i = g[3];
+    this.g12r = g[4];
+    this.g12i = g[5];
+    this.g22r = g[6];
+    this.g22i = g[7];
     const { z1r, z1i, z2r, z2i } = this;
     for (let j = 0; j < this.J; j++) {
       // a1 = c - Z[j,k] I0_1, a2 = -Z[j,k] I0_2

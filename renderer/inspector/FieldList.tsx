@@ -10,6 +10,7 @@ const GROUP_STARTS: Record<string, Record<string, unknown>> = {
   instantaneous: { ii_x: 10 },
   groundFault: { ig_A: 100, tg_s: 0.2, i2t: false },
   restraint: { vFull_pu: 0.9, kMin: 0.25 },
+  unit: { transformer: "", onLoadTap: true, pG_pct: 0 },
 };
 
 function pick(values: unknown[], key: string | number): FieldValue {

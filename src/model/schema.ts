@@ -99,6 +99,17 @@ export const lineSchema = z.looseObject({
   ampacity_A: positive("Continuous current rating of one run in A"),
 });
 
+/** A generator that feeds the network through its own step-up transformer: IEC 60909-0:2016, 6.7 corrects the two
+ * as one power station unit (K_S with an on-load tap changer, else K_SO) instead of KG and KT apart. */
+export const powerStationUnitSchema = z
+  .looseObject({
+    transformer: id.describe("Unit transformer: id of the step-up transformer whose LV bus is the generator's bus"),
+    onLoadTap: z.boolean().default(true).describe("On-load tap changer on the unit transformer: K_S if set, else K_SO"),
+    pG_pct: nonNegative("Generator voltage regulation range p_G in percent, used without on-load tap changer (K_SO)").default(0),
+  })
+  .describe("Power station unit: generator and unit transformer corrected as one (IEC 60909-0:2016, 6.7)");
+export type PowerStationUnit = z.infer<typeof powerStationUnitSchema>;
+
 export const generatorSchema = z.looseObject({
   kind: z.literal("generator"),
   id,
@@ -114,6 +125,7 @@ export const generatorSchema = z.looseObject({
   x0_pu: positive("Zero-sequence reactance in pu"),
   rx: nonNegative("R/X of the subtransient impedance (IEC 60909-0: 0.15 LV, 0.07 or 0.05 HV)").default(0.15),
   earthing: earthingSchema.default({ kind: "isolated" }),
+  unit: powerStationUnitSchema.optional(),
 });
 
 export const inverterSchema = z.looseObject({
@@ -146,6 +158,7 @@ export const motorSchema = z.looseObject({
   ilrIr: positive("Locked-rotor current in multiples of rated current").default(6),
   rx: nonNegative("R/X of the locked-rotor impedance (IEC 60909-0: 0.42 for LV motor groups)").default(0.42),
   start_s: positive("Starting time in seconds (for the starting curve)").default(5),
+  polePairs: z.number().int().min(1).optional().describe("Pairs of poles p, for the breaking-current factor q (IEC 60909-0); q = 1 when absent"),
 });
 
 export const loadSchema = z.looseObject({

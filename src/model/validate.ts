@@ -11,8 +11,9 @@ import { voltages } from "./rules/voltages.ts";
 import { ratings } from "./rules/ratings.ts";
 import { scenarios } from "./rules/scenarios.ts";
 import { connectivity } from "./rules/connectivity.ts";
+import { powerStationUnits } from "./rules/powerStationUnits.ts";
 
-const RULES = [uniqueIds, references, voltages, ratings, scenarios, connectivity];
+const RULES = [uniqueIds, references, voltages, ratings, scenarios, connectivity, powerStationUnits];
 
 /** Messages for a project: schema errors when the document does not parse, else every rule's findings. */
 export function validateProject(input: Project | unknown): Message[] {

@@ -12,9 +12,16 @@ function neutral_pu(e: Earthing, zBase: number): Cx | null {
   return e.kind === "resistance" ? { re: z, im: 0 } : { re: 0, im: z };
 }
 
-/** Generator: Z"d corrected by KG (IEC method; cmax null for the classic method), x2 and x0 with the same R/X. */
-export function generatorStamp(g: Generator, node: number, label: string, un_kV: number, baseMVA: number, cmax: number | null): ShuntStamp {
-  const kg = cmax === null ? 1 : generatorKG(un_kV, g.ur_kV, cmax, g.xdss_pu, g.cosPhi);
+/** KG for a generator on its own (IEC 60909-0:2016, 6.6.1), 1 for the classic method (cmax null). */
+export function standaloneGeneratorK(g: Generator, un_kV: number, cmax: number | null): number {
+  return cmax === null ? 1 : generatorKG(un_kV, g.ur_kV, cmax, g.xdss_pu, g.cosPhi);
+}
+
+/**
+ * Generator: Z"d times the correction factor kg (KG alone, or the share of a power station unit's K_S / K_SO or
+ * K_G,S / K_G,SO), x2 and x0 scaled the same and with the same R/X.
+ */
+export function generatorStamp(g: Generator, node: number, label: string, un_kV: number, baseMVA: number, kg: number): ShuntStamp {
   const k = (baseMVA / g.sr_MVA) * (g.ur_kV / un_kV) ** 2 * kg;
   const z = (x: number): Cx => ({ re: g.rx * x * k, im: x * k });
   const z1 = z(g.xdss_pu);
@@ -32,7 +39,10 @@ export function generatorStamp(g: Generator, node: number, label: string, un_kV:
   };
 }
 
-/** Motor: ZM = (1/(ILR/IrM)) UrM^2/SrM with SrM = PrM/(eta cos phi); no zero-sequence path (unearthed star). */
+/**
+ * Motor: ZM = (1/(ILR/IrM)) UrM^2/SrM with SrM = PrM/(eta cos phi); no zero-sequence path (unearthed star).
+ * With its pole pairs known it carries m = PrM/p in MW for the breaking-current factor q.
+ */
 export function motorStamp(m: Motor, node: number, label: string, un_kV: number, baseMVA: number): ShuntStamp {
   const srM_MVA = m.pr_kW / 1000 / (m.eta * m.cosPhi);
   const zMag = (1 / m.ilrIr) * (baseMVA / srM_MVA) * (m.ur_kV / un_kV) ** 2;
@@ -48,5 +58,6 @@ export function motorStamp(m: Motor, node: number, label: string, un_kV: number,
     ir_pu: (srM_MVA / baseMVA) * (un_kV / m.ur_kV),
     z1,
     refinedOnly: false,
+    ...(m.polePairs !== undefined ? { m_MW: m.pr_kW / 1000 / m.polePairs } : {}),
   };
 }

@@ -1,4 +1,5 @@
-// Two-winding network transformer (IEC 60909-0:2016, 6.3): ZT from uk and ur, corrected by KT for the IEC method,
+// Two-winding network transformer (IEC 60909-0:2016, 6.3): ZT from uk and ur, corrected by KT for the IEC method
+// (or by the unit's factor when it is a power station unit's transformer, 6.7),
 // an off-nominal ratio from rated voltages and tap, the vector group's phase shift, and zero-sequence paths from
 // the winding connections and neutral earthing (delta blocks; an earthed star opposite a delta is a shunt on the
 // star side; earthed star to earthed star passes through; an earthing impedance enters as 3 Zn).
@@ -17,6 +18,8 @@ export interface TransformerInput {
   baseMVA: number;
   /** KT is applied when set (IEC method), with the LV side's cmax. */
   cmaxLv: number | null;
+  /** Unit transformer of a power station unit: this factor (K_S, K_SO or the in-unit K_T,S / K_T,SO) replaces KT. */
+  kUnit?: number;
 }
 
 /** Clock number of the vector group: LV lags HV by 30 degrees per hour. */
@@ -32,13 +35,19 @@ function earthedNeutral_pu(e: Earthing, zBase: number): Cx | null {
   return e.kind === "resistance" ? { re: z, im: 0 } : { re: 0, im: z };
 }
 
+/** Relative reactance xT = sqrt(uk^2 - ur^2) / 100 in pu of the transformer rating (ur capped at uk). */
+export function transformerXT(tr: Transformer): number {
+  const ur = Math.min(tr.ur_pct, tr.uk_pct);
+  return Math.sqrt(tr.uk_pct * tr.uk_pct - ur * ur) / 100;
+}
+
 export function transformerStamp(p: TransformerInput): { stamp: BranchStamp; error: string | null } {
   const { tr } = p;
   let error: string | null = null;
   if (tr.ur_pct > tr.uk_pct) error = `${p.label}: ur_pct must not exceed uk_pct (got ${tr.ur_pct} > ${tr.uk_pct})`;
   const ur = Math.min(tr.ur_pct, tr.uk_pct);
-  const xT = Math.sqrt(tr.uk_pct * tr.uk_pct - ur * ur) / 100;
-  const kt = p.cmaxLv === null ? 1 : transformerKT(xT, p.cmaxLv);
+  const xT = transformerXT(tr);
+  const kt = p.kUnit ?? (p.cmaxLv === null ? 1 : transformerKT(xT, p.cmaxLv));
   const k = (p.baseMVA / tr.sr_MVA) * (tr.urLv_kV / p.unLv_kV) ** 2 * kt;
   const z1: Cx = { re: (ur / 100) * k, im: xT * k };
   const t = ((tr.urHv_kV * (1 + tr.tap_pct / 100)) / p.unHv_kV) / (tr.urLv_kV / p.unLv_kV);

@@ -15,7 +15,7 @@ import { allShuntCurrents, branchEndResults, type RawEnd } from "./endCurrents.t
 import { faultMagnitudes } from "./faultCurrentMagnitude.ts";
 import { seqAndPhaseParts, seqAndPhasePhasors, seqToPhase, toPhasor } from "./phasors.ts";
 import { peakKappa } from "./peakCurrent.ts";
-import { voltageFactor, breakingFactorMu, thermalFactorM } from "../iec60909/factors.ts";
+import { voltageFactor, breakingFactorMu, motorFactorQ, thermalFactorM } from "../iec60909/factors.ts";
 
 export interface EngineInternal {
   model: Model;
@@ -250,8 +250,10 @@ export function solveFault(network: CompiledNetwork, location: FaultLocation, ty
       if (!st || (st.kind !== "generator" && st.kind !== "motor") || model.nodes[st.node].island !== island) continue;
       const iG = Math.hypot(e.i[1].re, e.i[1].im);
       const mu = breakingFactorMu(iG / st.ir_pu, opts.breakingTime_s);
+      // Asynchronous motors decay faster: mu q (IEC 60909-0:2016, 9.1.1); q = 1 when the pole pairs are not known.
+      const q = st.kind === "motor" && st.m_MW !== undefined ? motorFactorQ(st.m_MW, opts.breakingTime_s) : 1;
       const du = Math.hypot(st.z1.re, st.z1.im) * iG;
-      ib_pu -= (du / c) * (1 - mu) * iG;
+      ib_pu -= (du / c) * (1 - mu * q) * iG;
     }
   }
   const ib_kA = Math.max(0, ib_pu) * iBase_kA;

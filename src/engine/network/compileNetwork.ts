@@ -9,7 +9,8 @@ import { voltageFactor } from "../iec60909/factors.ts";
 import { gridStamp } from "../elements/gridStamp.ts";
 import { lineImpedance } from "../elements/lineStamp.ts";
 import { transformerStamp } from "../elements/transformerStamp.ts";
-import { generatorStamp, motorStamp } from "../elements/machineStamps.ts";
+import { generatorStamp, motorStamp, standaloneGeneratorK } from "../elements/machineStamps.ts";
+import { powerStationUnits } from "../elements/powerStationUnit.ts";
 import { inverterUnit } from "../elements/inverterUnit.ts";
 import { inv } from "../complex.ts";
 import { assignIslands } from "./assignIslands.ts";
@@ -93,6 +94,12 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
   const branches: BranchStamp[] = [];
   const shunts: ShuntStamp[] = [];
   const inverters: InverterUnit[] = [];
+  const units = powerStationUnits({ project, out, busNode, nodeUn_kV: (n) => nodes[n].un_kV, cmaxOf });
+  errors.push(...units.errors);
+  messages.push(...units.messages);
+  // In-unit stamps of each unit's generator and transformer, for faults at the unit's LV node.
+  const inUnitShunt = new Map<string, ShuntStamp>();
+  const inUnitBranch = new Map<string, BranchStamp>();
 
   for (const e of project.elements) {
     if (out.has(e.id)) continue;
@@ -111,7 +118,10 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
         if (!busOf(e, "bus", e.bus)) break;
         for (const f of ["sr_MVA", "ur_kV", "xdss_pu", "x2_pu", "x0_pu"] as const) positiveField(e, f, e[f], errors);
         const n = busNode.get(e.bus)!;
-        shunts.push(generatorStamp(e, n, label, nodes[n].un_kV, opts.baseMVA, cmaxOf(nodes[n].un_kV)));
+        const un = nodes[n].un_kV;
+        const plan = units.byGenerator.get(e.id);
+        shunts.push(generatorStamp(e, n, label, un, opts.baseMVA, plan ? (plan.kOutside ?? 1) : standaloneGeneratorK(e, un, cmaxOf(un))));
+        if (plan && plan.kGenInside !== null) inUnitShunt.set(e.id, generatorStamp(e, n, label, un, opts.baseMVA, plan.kGenInside));
         break;
       }
       case "motor": {
@@ -119,6 +129,9 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
         for (const f of ["pr_kW", "ur_kV", "ilrIr"] as const) positiveField(e, f, e[f], errors);
         // IEC 60909-0:2016: motors are left out of minimum short-circuit currents.
         if (opts.limit === "min" && iec) break;
+        if (iec && e.polePairs === undefined) {
+          messages.push({ level: "info", code: "motor-q", text: `${label}: polePairs is not given, so its breaking current uses q = 1 (IEC 60909-0:2016, 9.1.1), the largest value`, element: e.id });
+        }
         const n = busNode.get(e.bus)!;
         shunts.push(motorStamp(e, n, label, nodes[n].un_kV, opts.baseMVA));
         break;
@@ -178,9 +191,12 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
           errors.push(err(`${label}: hvBus and lvBus are the same node`, e.id));
           break;
         }
-        const r = transformerStamp({ tr: e, label, from: f, to: t, unHv_kV: nodes[f].un_kV, unLv_kV: nodes[t].un_kV, baseMVA: opts.baseMVA, cmaxLv: cmaxOf(nodes[t].un_kV) });
+        const plan = units.byTransformer.get(e.id);
+        const input = { tr: plan ? plan.transformer : e, label, from: f, to: t, unHv_kV: nodes[f].un_kV, unLv_kV: nodes[t].un_kV, baseMVA: opts.baseMVA, cmaxLv: cmaxOf(nodes[t].un_kV) };
+        const r = transformerStamp(plan?.kOutside != null ? { ...input, kUnit: plan.kOutside } : input);
         if (r.error) errors.push(err(r.error, e.id));
         branches.push(r.stamp);
+        if (plan && plan.kTrInside !== null) inUnitBranch.set(e.id, transformerStamp({ ...input, kUnit: plan.kTrInside }).stamp);
         break;
       }
       default:
@@ -202,6 +218,18 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
   const model: Model = { nodes, branches, shunts, inverters, busNode, baseMVA: opts.baseMVA, devices, islandLive: [] };
   const islandErrors = assignIslands(model);
   if (islandErrors.length > 0) return { ok: false, errors: islandErrors };
+  for (const plan of units.byGenerator.values()) {
+    const g = inUnitShunt.get(plan.generator.id);
+    const t = inUnitBranch.get(plan.transformer.id);
+    if (!g || !t) continue;
+    const variant: Model = {
+      ...model,
+      shunts: model.shunts.map((x) => (x.element === g.element ? g : x)),
+      branches: model.branches.map((x) => (x.element === t.element ? t : x)),
+    };
+    model.inUnit ??= new Map();
+    model.inUnit.set(plan.lvNode, { model: variant, cache: createEngineCache() });
+  }
   for (let i = 0; i < model.islandLive.length; i++) {
     if (!model.islandLive[i]) {
       const bs = nodes.filter((n) => n.island === i).flatMap((n) => n.buses);

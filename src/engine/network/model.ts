@@ -1,6 +1,8 @@
 // Internal model of one compiled scenario: nodes and per-sequence element stamps in per unit on
 // project.meta.baseMVA with each node's base voltage = its bus un_kV. Not part of the public API.
 
+import type { EngineCache } from "./engineCache.ts";
+
 /** Per-sequence values are indexed 0 zero, 1 positive, 2 negative. */
 export type Seq = 0 | 1 | 2;
 
@@ -50,6 +52,8 @@ export interface ShuntStamp {
   z1: Cx;
   /** True when this shunt exists only in the refined inverter model (grid-forming unit). */
   refinedOnly: boolean;
+  /** Motors with known pole pairs: rated active power per pair of poles in MW (for the breaking-current factor q). */
+  m_MW?: number;
 }
 
 /** A converter-interfaced unit. */
@@ -91,4 +95,11 @@ export interface Model {
   devices: { element: string; end: "from" | "to" | "terminal" }[];
   /** Islands (positive-sequence connectivity): has any source? */
   islandLive: boolean[];
+  /**
+   * Power station units (IEC 60909-0:2016, 6.7): this model carries each unit corrected as a whole (K_S or K_SO),
+   * right for faults outside the unit. A fault at a unit's LV node (between generator and unit transformer) is
+   * solved on the model kept here under that node, where the unit's generator and transformer carry the in-unit
+   * factors instead. Same nodes, islands and devices; only the two stamps differ.
+   */
+  inUnit?: Map<number, { model: Model; cache: EngineCache }>;
 }

@@ -3,6 +3,9 @@ import { useDocumentStore } from "../store/documentStore.ts";
 import { useSessionStore } from "../store/sessionStore.ts";
 import { useStudyStore } from "./studyStore.ts";
 import type { StudyClient } from "../worker/studyClient.ts";
+import type { Project } from "../../src/model/schema.ts";
+import type { ClearingTimeline, StudyResult } from "../../src/study/types.ts";
+import { failureTimelineCases } from "../../src/report/failureTimelineCases.ts";
 
 let client: StudyClient | null = null;
 
@@ -32,6 +35,20 @@ export async function runFullStudy(): Promise<void> {
   } else if (response.kind === "error") {
     session.notify("error", `The study could not run: ${response.message}`);
   }
+}
+
+/**
+ * Clearing timelines of the worst failed bus faults the full study did not simulate, one case request each in the
+ * study worker: the report shows them as the CLI's does. A case that fails to run is left out.
+ */
+export async function failureTimelines(project: Project, study: StudyResult): Promise<ClearingTimeline[]> {
+  if (!client) return [];
+  const out: ClearingTimeline[] = [];
+  for (const req of failureTimelineCases(study)) {
+    const response = await client.call({ kind: "case", project, caseId: req.caseId, timeline: true }).result;
+    if (response.kind === "case" && response.timeline) out.push(response.timeline);
+  }
+  return out;
 }
 
 export function cancelFullStudy(): void {

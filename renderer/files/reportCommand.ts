@@ -2,7 +2,7 @@
 // document and the last full study. Pure apart from the SHA-256 (Web Crypto), so it is unit-tested.
 import { loadProject, serializeProject } from "../../src/model/projectFile.ts";
 import type { Project } from "../../src/model/schema.ts";
-import type { StudyResult } from "../../src/study/types.ts";
+import type { ClearingTimeline, StudyResult } from "../../src/study/types.ts";
 import { buildReport, faultTable } from "../../src/report/index.ts";
 
 export interface ReportCommandInput {
@@ -15,6 +15,8 @@ export interface ReportCommandInput {
   /** Report date, YYYY-MM-DD (the caller reads the clock). */
   date: string;
   version: string;
+  /** Clearing timelines of failed cases the full study did not simulate (see failureTimelineCases), as the CLI adds. */
+  extraTimelines?: readonly ClearingTimeline[];
 }
 
 export interface AssembledReport {
@@ -57,6 +59,7 @@ export async function reportCommand(input: ReportCommandInput): Promise<Assemble
     faults: faultTable(input.project),
     meta: { date: input.date, version: input.version, fileName: fileLabel(input.fileName, input.dirty), fileSha256 },
     validationWarnings: loaded.ok ? loaded.warnings : [],
+    extraTimelines: input.extraTimelines,
   });
   return { html: report.html, htmlName: `${base}-report.html`, pdfName: `${base}-report.pdf`, fileSha256 };
 }

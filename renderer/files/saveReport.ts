@@ -5,7 +5,7 @@ import { REPORT_CAUTION } from "../../src/report/reportCaution.ts";
 import { useDocumentStore } from "../store/documentStore.ts";
 import { useSessionStore } from "../store/sessionStore.ts";
 import { useStudyStore } from "../fault/studyStore.ts";
-import { runFullStudy } from "../fault/studyCommands.ts";
+import { failureTimelines, runFullStudy } from "../fault/studyCommands.ts";
 import { currentHost } from "../host/currentHost.ts";
 import { reportCommand } from "./reportCommand.ts";
 import { isDirty } from "./fileCommands.ts";
@@ -32,9 +32,12 @@ export async function saveReport(): Promise<void> {
   }
   const host = currentHost();
   try {
+    const project = useDocumentStore.getState().doc;
+    const extraTimelines = await failureTimelines(project, study);
     const report = await reportCommand({
-      project: useDocumentStore.getState().doc,
+      project,
       study,
+      extraTimelines,
       fileName: useSessionStore.getState().file?.name ?? null,
       dirty: isDirty(),
       date: new Date().toISOString().slice(0, 10),

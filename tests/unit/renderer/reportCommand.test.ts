@@ -8,8 +8,11 @@ import { loadProject, serializeProject } from "../../../src/model/projectFile.ts
 import type { Project } from "../../../src/model/schema.ts";
 import { studyProject } from "../../../src/study/studyProject.ts";
 import type { StudyResult } from "../../../src/study/types.ts";
-import { REPORT_CAUTION } from "../../../src/report/index.ts";
+import { REPORT_CAUTION, failureTimelineCases } from "../../../src/report/index.ts";
 import { reportBaseName, reportCommand, sha256Hex } from "../../../renderer/files/reportCommand.ts";
+import { failureTimelines, setStudyClient } from "../../../renderer/fault/studyCommands.ts";
+import { studyClient } from "../../../renderer/worker/studyClient.ts";
+import { mainThreadPort } from "../../../renderer/worker/studioWorker.ts";
 
 const demoText = readFileSync(fileURLToPath(new URL("../../../assets/demo/dairy-coop.islet", import.meta.url)), "utf8");
 let project: Project;
@@ -60,4 +63,20 @@ describe("reportCommand", () => {
     const changed = await reportCommand({ project, study, fileName: "dairy-coop.islet", dirty: true, date: "2026-12-02", version: "1" });
     expect(changed.html).toContain("dairy-coop.islet, with unsaved changes (hash of the current document)");
   });
+
+  it("adds the clearing timelines of the worst failed cases the full study did not simulate, as the CLI's report does", async () => {
+    setStudyClient(studyClient(mainThreadPort()));
+    const wanted = failureTimelineCases(study);
+    expect(wanted.length).toBeGreaterThan(0);
+    const extra = await failureTimelines(project, study);
+    expect(extra.map((t) => t.caseId)).toEqual(wanted.map((w) => w.caseId));
+    for (const t of extra) expect(t.events.length).toBeGreaterThan(0);
+    const out = await reportCommand({ project, study, extraTimelines: extra, fileName: "dairy-coop.islet", dirty: false, date: "2026-12-02", version: "1" });
+    const plain = await reportCommand({ project, study, fileName: "dairy-coop.islet", dirty: false, date: "2026-12-02", version: "1" });
+    const section = (html: string) => html.slice(html.indexOf('id="timelines"'), html.indexOf('id="open-items"'));
+    const blocks = (html: string) => [...section(html).matchAll(/<div class="timeline-block">/g)].length;
+    expect(blocks(out.html)).toBe(blocks(plain.html) + extra.length);
+    const label = (id: string) => study.cases.find((c) => c.faultCase.id === id)!.faultCase.label.replace(/&/g, "&amp;").replace(/'/g, "&#39;").replace(/"/g, "&quot;");
+    for (const t of extra) expect(section(out.html)).toContain(`<h3>${label(t.caseId)}</h3>`);
+  }, 120_000);
 });

@@ -27,17 +27,25 @@ const SQRT3 = Math.sqrt(3);
 /** Resolves a fault location to a model (possibly with a temporary node) and its node. Throws on unknown ids. */
 export function locateFault(network: CompiledNetwork, location: FaultLocation): { model: Model; cache: EngineCache; k: number; label: string } | { dead: string } {
   const { model, cache } = network.internal as EngineInternal;
+  // A fault between a power station unit's generator and its transformer sees the unit's own corrections
+  // (IEC 60909-0:2016, 6.7: KG and K_T,S there, K_S elsewhere): that node has a model variant of its own.
+  const at = (k: number, label: string) => {
+    const unit = model.inUnit?.get(k);
+    return unit ? { model: unit.model, cache: unit.cache, k, label } : { model, cache, k, label };
+  };
   if (location.kind === "bus") {
     const k = model.busNode.get(location.bus);
     if (k === undefined) return { dead: `Bus ${location.bus}: not in service in this scenario (or unknown)` };
-    return { model, cache, k, label: `bus ${location.bus}` };
+    return at(k, `bus ${location.bus}`);
   }
   const b = model.branches.find((x) => x.element === location.line && x.kind === "line");
   if (!b) return { dead: `Line ${location.line}: not in service in this scenario (or unknown)` };
   if (!(location.pct >= 0 && location.pct <= 100)) throw new Error(`${b.label}: fault position pct must be within 0-100 (got ${location.pct})`);
-  if (location.pct === 0) return { model, cache, k: b.from, label: `${b.label} at 0 %` };
-  if (location.pct === 100) return { model, cache, k: b.to, label: `${b.label} at 100 %` };
-  const s = splitLine(model, location.line, location.pct);
+  if (location.pct === 0) return at(b.from, `${b.label} at 0 %`);
+  if (location.pct === 100) return at(b.to, `${b.label} at 100 %`);
+  // A line inside a unit (an auxiliary feeder) is split in that unit's variant.
+  const base = model.inUnit?.get(b.from)?.model ?? model.inUnit?.get(b.to)?.model ?? model;
+  const s = splitLine(base, location.line, location.pct);
   if (!s) throw new Error(`${b.label}: cannot place a fault point`);
   return { model: s.model, cache: createEngineCache(), k: s.node, label: `${b.label} at ${location.pct} %` };
 }

@@ -3,7 +3,8 @@
 // (reciprocity: the device current for a fault at every bus is c_d^T Z[:, k] = (Z c_d)[k]) and one per inverter
 // unit. Each fault then costs a few complex operations; device currents are kept in linear form (see types.ts):
 //   I_d,s(b, t) = transfer[b, d, s] * If_s(b, t) + sum_j injMap[d, j, s] * inj_s(b, t, j)
-// Buses where a sequence network floats (islands of current sources only) are solved one by one (overrides).
+// Buses where a sequence network floats (islands of current sources only) or inside a power station unit are solved
+// one by one (overrides).
 import type { CompiledNetwork, EngineMessage, FaultType, SweepOptions, SweepResult } from "../types.ts";
 import { FAULT_TYPES } from "../types.ts";
 import type { Cx } from "../network/model.ts";
@@ -123,7 +124,9 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
     if (!model.islandLive[node.island]) continue;
     const un = node.un_kV;
     const iBase_kA = opts.baseMVA / (SQRT3 * un);
-    if (sys[1].floating[sys[1].comp[k]] || sys[2].floating[sys[2].comp[k]]) {
+    // Islands of current sources only, and nodes inside a power station unit (their own corrections, see
+    // locateFault), are solved one fault at a time.
+    if (sys[1].floating[sys[1].comp[k]] || sys[2].floating[sys[2].comp[k]] || model.inUnit?.has(k)) {
       overrideBus(network, busIds[b], b, types, locs, devices, { ikss_kA, maxPhase_kA, ip_kA, xr: xrOut, overrides }, used);
       continue;
     }

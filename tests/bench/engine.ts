@@ -99,6 +99,10 @@ for (const c of cases) {
     if (c.sweepTarget_ms) target(full, sweepT.median_ms, "ms", "lower", c.sweepTarget_ms);
     else figure(full, sweepT.median_ms, "ms", `${sweepT.runs} run(s)`);
     figure("faults per second in the sweep", (nb * types.length) / (sweepT.median_ms / 1000), "1/s", `${nb} buses x ${types.length} types`);
+    // The same sweep with the IEC 60909 full-size-converter currents (the standard's result, no iteration), for
+    // comparison: what the refined inverter model costs on top of the linear algebra.
+    const iecT = timeMedian(() => sweepFaults(net, { types, inverterModel: "iec" }), { warmup: 1, runs: c.sweepRuns, budget_ms: 60000 });
+    figure("the same sweep with the IEC 60909 converter model", iecT.median_ms, "ms", "for comparison");
     const d = sweep.deviceData;
     const bytes = [d.base_A, d.transfer, d.faultSeq_pu, d.injMap, d.inj_pu, d.shift_deg, sweep.ikss_kA, sweep.maxPhase_kA, sweep.ip_kA, sweep.xr].reduce((s, a) => s + a.byteLength, 0);
     figure("sweep result size (typed arrays)", bytes / 2 ** 20, "MB", `${d.overrides.length} faults solved one by one`);

@@ -9,6 +9,8 @@ export type FieldValue = unknown | typeof MIXED;
 
 export interface RowContext {
   buses: Element[];
+  /** Every element of the document, for choosers of a referenced element (elementRef fields). */
+  elements: Element[];
   hosts: Element[];
   messagesAt(path: string): Message[];
   commit(path: (string | number)[], value: unknown): void;
@@ -114,6 +116,23 @@ export function Row({ spec, path, value, ctx, children }: { spec: FieldSpec; pat
         </select>
       );
       break;
+    case "elementRef": {
+      const choices = ctx.elements.filter((e) => e.kind === spec.kind);
+      const known = value === MIXED || value === undefined || value === "" || choices.some((e) => e.id === value);
+      control = (
+        <select className="field-input" aria-label={spec.label} value={value === MIXED ? "" : String(value ?? "")} onChange={(e) => ctx.commit(path, e.target.value)}>
+          {value === MIXED && <option value="">mixed</option>}
+          <option value="">none chosen</option>
+          {!known && <option value={String(value)}>{`${String(value)} (not a ${spec.kind})`}</option>}
+          {choices.map((e) => (
+            <option key={e.id} value={e.id}>
+              {e.name ? `${e.name} (${e.id})` : e.id}
+            </option>
+          ))}
+        </select>
+      );
+      break;
+    }
     case "choice":
       control = (
         <select

@@ -56,6 +56,7 @@ export function Inspector() {
   const ctx: RowContext = useMemo(
     () => ({
       buses: doc.elements.filter((e) => e.kind === "bus"),
+      elements: doc.elements,
       hosts: doc.elements.filter((e) => e.kind !== "bus" && !isProtectiveDevice(e)),
       readOnlyId: true,
       messagesAt: (path) => messages.filter((m) => m.elementId !== undefined && ids.includes(m.elementId) && m.field === path),

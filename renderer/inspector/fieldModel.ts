@@ -34,11 +34,14 @@ export const KIND_SCHEMAS: Record<ElementKind, z.ZodType> = {
 
 /** Fields holding a bus reference: edited with a bus chooser. */
 export const BUS_REF_FIELDS = new Set(["bus", "fromBus", "toBus", "hvBus", "lvBus", "busA", "busB"]);
+/** Fields holding a reference to another element of one kind: edited with a chooser of those elements. */
+export const ELEMENT_REF_FIELDS: Record<string, ElementKind> = { transformer: "transformer" };
 
 export type FieldSpec =
   | { type: "number"; key: string; label: string; unit: string; help: string; optional: boolean; integer: boolean }
   | { type: "text"; key: string; label: string; help: string; optional: boolean }
   | { type: "busRef"; key: string; label: string; help: string }
+  | { type: "elementRef"; key: string; label: string; help: string; kind: ElementKind }
   | { type: "choice"; key: string; label: string; help: string; options: (string | number)[]; optional: boolean }
   | { type: "flag"; key: string; label: string; help: string }
   | { type: "group"; key: string; label: string; help: string; optional: boolean; fields: FieldSpec[] }
@@ -164,6 +167,7 @@ export function fieldSpec(key: string, schema: z.ZodType): FieldSpec | null {
   const help = description ?? "";
   if (key === "at") return { type: "location", key, label: "Located at", help };
   if (BUS_REF_FIELDS.has(key)) return { type: "busRef", key, label: labelOf(key, undefined), help };
+  if (Object.hasOwn(ELEMENT_REF_FIELDS, key) && d.type === "string") return { type: "elementRef", key, label, help, kind: ELEMENT_REF_FIELDS[key] };
   switch (d.type) {
     case "number": {
       const integer = (d.checks ?? []).some((c) => c._zod?.def?.format === "safeint" || c._zod?.def?.check === "number_format");

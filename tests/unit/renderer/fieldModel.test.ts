@@ -27,6 +27,12 @@ describe("inspector fields derived from the schema", () => {
     expect(fieldsOfKind("fuse").find((f) => f.key === "at")?.type).toBe("location");
   });
 
+  it("edits a power station unit's transformer with a chooser of transformers", () => {
+    const unit = fieldsOfKind("generator").find((f) => f.key === "unit");
+    const tr = unit?.type === "group" ? unit.fields.find((f) => f.key === "transformer") : undefined;
+    expect(tr?.type === "elementRef" && tr.kind).toBe("transformer");
+  });
+
   it("shows a relay's functions as a list with the curve names of the schema", () => {
     const list = fieldsOfKind("relay").find((f) => f.key === "functions");
     expect(list?.type).toBe("list");

@@ -229,8 +229,8 @@ const ELEMENTS: unknown[] = [
   load("L-OF", "Offices and canteen", "LV-OF", 40, 0.95),
   load("L-WS", "Workshop", "LV-WS", 60, 0.85),
   load("L-VIL", "Village load", "LV-VIL", 300, 0.93),
-  { kind: "motor", id: "M-CMP", name: "Compressor motor (90 kW)", bus: "LV-CMP", pr_kW: 90, ur_kV: 0.4, eta: 0.95, cosPhi: 0.87, ilrIr: 7, rx: 0.42, start_s: 8 },
-  { kind: "motor", id: "M-PMP", name: "Effluent pump motor (55 kW)", bus: "LV-PMP", pr_kW: 55, ur_kV: 0.4, eta: 0.94, cosPhi: 0.86, ilrIr: 6.5, rx: 0.42, start_s: 4 },
+  { kind: "motor", id: "M-CMP", name: "Compressor motor (90 kW)", bus: "LV-CMP", pr_kW: 90, ur_kV: 0.4, eta: 0.95, cosPhi: 0.87, ilrIr: 7, rx: 0.42, start_s: 8, polePairs: 2 },
+  { kind: "motor", id: "M-PMP", name: "Effluent pump motor (55 kW)", bus: "LV-PMP", pr_kW: 55, ur_kV: 0.4, eta: 0.94, cosPhi: 0.86, ilrIr: 6.5, rx: 0.42, start_s: 4, polePairs: 1 },
   // ---- 11 kV protection ----
   mvRelay("R-INC", "Utility tie relay", "C-INC", "from", 300, { p51_A: 240, tms: 0.4, p50_A: 3000, t50_s: 0.35, p51n_A: 40, t51n_s: 0.7 }),
   mvRelay("R-T1", "Transformer 1 HV relay", "T1", "from", 150, { p51_A: 120, tms: 0.35, p50_A: 1900, t50_s: 0, p51n_A: 20, t51n_s: 0.3 }),

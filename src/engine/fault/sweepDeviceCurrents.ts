@@ -63,7 +63,11 @@ export function sweepDeviceCurrentsInto(sweep: SweepResult, d: number, b: number
     // a device that no converter injection reaches skips the injection sum (its terms are exactly zero)
     const J = injReaches(sweep, d) ? dd.nInj : 0;
     const base = dd.base_A[d];
-    const rot = ((dd.shift_deg[d] - dd.busShift_deg[b]) * Math.PI) / 180;
+    // Positive sequence turns by the shift between the device's node and the faulted bus, negative by minus that.
+    const shift = dd.shift_deg[d] - dd.busShift_deg[b];
+    const rot = (shift * Math.PI) / 180;
+    const cr = shift === 0 ? 1 : Math.cos(rot);
+    const sr = shift === 0 ? 0 : Math.sin(rot);
     for (let s = 0; s < 3; s++) {
       const o = (b * D + d) * 6 + 2 * s;
       const f = (b * T + t) * 6 + 2 * s;
@@ -85,9 +89,8 @@ export function sweepDeviceCurrentsInto(sweep: SweepResult, d: number, b: number
           im += ar * xi + ai * xr;
         }
       }
-      const ang = s === 1 ? rot : s === 2 ? -rot : 0;
-      const c = Math.cos(ang);
-      const sn = Math.sin(ang);
+      const c = s === 0 ? 1 : cr;
+      const sn = s === 0 ? 0 : s === 1 ? sr : -sr;
       out[2 * s] = (re * c - im * sn) * base;
       out[2 * s + 1] = (re * sn + im * c) * base;
     }

@@ -61,7 +61,7 @@ for (const c of cases) {
   // The same faults listing only the protective devices' currents (detail "devices"): what the study and relays read.
   let slowest = 0;
   for (const type of FAULT_TYPES) {
-    const t = timeMedian(() => solveFault(net, { kind: "bus", bus }, type, { detail: "devices" }), { warmup: 3, runs: 15, budget_ms: 10000 });
+    const t = timeMedian(() => solveFault(net, { kind: "bus", bus }, type, { detail: "devices" }), { warmup: 10, runs: 31, budget_ms: 10000 });
     const r = solveFault(net, { kind: "bus", bus }, type, { detail: "devices" });
     figure(`one-bus ${type} fault, device currents only`, t.median_ms, "ms", `${r.branchEnds.length} device branch ends, ${r.shunts.length} shunts, ${r.buses.length} buses`);
     slowest = Math.max(slowest, t.median_ms);

@@ -2,11 +2,11 @@
 // (sensitivity, selectivity, speed, blinding, sympathetic tripping), clearing timelines and the matrix.
 // Pure and deterministic; progress, cancellation and yielding to the host are passed in.
 import type { Project, ProtectiveDevice, Scenario } from "../model/schema.ts";
-import { buildChains } from "./chains.ts";
+import { chainPlan, chainsFromPlan, type ChainPlan } from "./chains.ts";
 import type { DeviceModel } from "./deviceModel.ts";
 import { deviceResponse } from "./deviceResponse.ts";
 import { deviceSides } from "./deviceSides.ts";
-import { caseId, caseLabel, faultLocations, locationKey } from "./faultCases.ts";
+import { caseId, caseLabel, faultLocations } from "./faultCases.ts";
 import { studyMatrix } from "./matrix.ts";
 import { scenarioNetwork, type ScenarioNetwork } from "./scenarioNetwork.ts";
 import { findSourcePaths, sourceTrees, type SourcePath } from "./sourcePaths.ts";
@@ -70,30 +70,30 @@ export function analyseCase(
   snapshot: Pick<FaultSnapshot, "iFault_A" | "readings">,
   model: DeviceModel,
   withstand: WithstandFn = withstand_s,
+  /** The chains of the location (chainPlan of `paths`), when the caller analyses many cases there. */
+  plan: ChainPlan = chainPlan(net, paths, sides),
 ): { work: CaseWork; verdicts: Verdict[] } {
   // responses of the devices that see current, and of every device on a source path (zero when it sees none)
   const responses = new Map<string, DeviceResponse>();
   for (const id in snapshot.readings) if (net.deviceEdge.has(id)) responses.set(id, deviceResponse(net.devices.get(id)!, snapshot.readings[id], model));
-  for (const p of paths)
-    for (const step of p.steps)
-      for (const id of net.edges[step.edge].devices) if (!responses.has(id)) responses.set(id, deviceResponse(net.devices.get(id)!, undefined, model));
-  const { chains, sympatheticCandidates } = buildChains(fc.id, net, paths, responses, sides);
-  for (const path of chains.paths)
-    for (const l of path.links) {
-      const r = responses.get(l.device)!;
-      if (l.role === "primary" || r.role === "none") r.role = l.role;
-      if (!r.onPathsOf.includes(path.source)) r.onPathsOf.push(path.source);
-    }
+  for (const id of plan.pathDevices) if (!responses.has(id)) responses.set(id, deviceResponse(net.devices.get(id)!, undefined, model));
+  const chains = chainsFromPlan(fc.id, plan, responses);
+  // every path device has a response, so the plan's roles and paths are this case's (arrays shared by the location's cases)
+  for (const [id, m] of plan.members) {
+    const r = responses.get(id)!;
+    r.role = m.role;
+    r.onPathsOf = m.onPathsOf;
+  }
   // Devices on no source path carry only motor infeed, which decays within a few cycles (IEC 60909 treats
   // it as initial current only); they are not judged for sympathetic tripping. // common practice
-  for (const d of sympatheticCandidates) {
+  for (const d of plan.sympatheticCandidates) {
     const r = responses.get(d)!;
     if (r.role === "none" && r.direction !== "forward") r.role = "sympathetic";
   }
   const verdicts = [
     ...selectivityVerdicts(fc, chains, responses, net.devices, project.criteria),
     ...speedVerdicts(fc, chains, responses, net.elements, project.criteria, (source) => isGridFollowing(net, source), withstand),
-    ...sympatheticVerdicts(fc, chains, sympatheticCandidates, responses, net.devices, model, project.criteria),
+    ...sympatheticVerdicts(fc, chains, plan.sympatheticCandidates, responses, net.devices, model, project.criteria),
   ];
   const result: CaseResult = {
     faultCase: fc,
@@ -180,9 +180,11 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
     }
     const sides = deviceSides(net);
     const infeeds = infeedsByBus(net);
-    const pathsByLoc = new Map<string, SourcePath[]>();
+    // source paths and chains per location index (the same for every limit and fault type)
     const trees = sourceTrees(net);
-    for (const loc of locations) pathsByLoc.set(locationKey(loc), findSourcePaths(net, loc, trees));
+    const pathsAt = locations.map((loc) => findSourcePaths(net, loc, trees));
+    const plans = pathsAt.map((paths) => chainPlan(net, paths, sides));
+    const pairsAt: (BlindingPair[] | undefined)[] = [];
     const sensLimit: FaultLimit = limits.includes("min") ? "min" : "max";
     const zone = new ZoneMinimum(net.devices, model);
     const works: KeptCase[] = [];
@@ -204,8 +206,8 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
           };
           const snap = snapAt(i);
           for (const m of snap.messages) if (!warnings.includes(m)) warnings.push(m);
-          const paths = pathsByLoc.get(locationKey(loc))!;
-          const { work, verdicts } = analyseCase(project, net, sides, fc, paths, snap, model, withstand);
+          const paths = pathsAt[i];
+          const { work, verdicts } = analyseCase(project, net, sides, fc, paths, snap, model, withstand, plans[i]);
           addVerdicts(verdicts);
           // keep only the result: the per-case response lookup would otherwise live as long as the study
           works.push({ result: work.result });
@@ -214,9 +216,15 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
           // other protection (neutral displacement); it says nothing about overcurrent sensitivity
           if (limit === sensLimit && snap.iFault_A >= 1) {
             // a grid-following inverter's path is opened by the inverter's own protection, not by overcurrent devices
-            for (const p of work.result.chains.paths.filter((x) => !isGridFollowing(net, x.source)))
-              for (const l of p.links.slice(0, 2)) zone.add({ device: l.device, role: l.role, response: work.responses.get(l.device)!, faultCase: fc });
-            const pairs = blindingPairs(net, paths, work.result.chains, infeeds);
+            for (const p of work.result.chains.paths) {
+              if (isGridFollowing(net, p.source)) continue;
+              for (let k = 0; k < p.links.length && k < 2; k++) {
+                const l = p.links[k];
+                zone.add({ device: l.device, role: l.role, response: work.responses.get(l.device)!, faultCase: fc });
+              }
+            }
+            // which devices and infeeds pair up depends on the chains' devices only: once per location
+            const pairs = (pairsAt[i] ??= blindingPairs(net, paths, work.result.chains, infeeds));
             if (pairs.length) blinding.push({ work, pairs, locIndex: i, type });
           }
           done++;

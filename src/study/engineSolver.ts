@@ -17,7 +17,7 @@ import {
   type Phasor as EnginePhasor,
   type SweepResult,
 } from "../engine/index.ts";
-import { measurementFromSequence, type Phasor, type SequenceQuantities } from "../protection/index.ts";
+import { measurementFromSequence, type Measurement, type Phasor, type SequenceQuantities } from "../protection/index.ts";
 import { splitLines } from "./splitLines.ts";
 import type { DeviceReading, FaultSnapshot, OpenEnd, StudySolver } from "./studySolver.ts";
 import { FAULT_TYPES, type CurrentDirection, type FaultLimit, type FaultLocation, type FaultType } from "./types.ts";
@@ -112,13 +112,16 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   // is treated as carrying no current (it still appears in a case when it sits on a source path).
   const NO_CURRENT_A = 1e-3;
   const sweepScratch = new Float64Array(9);
-  const snapshotOfFault = (net: CompiledNetwork, r: FaultResult, refShift: number): FaultSnapshot => {
+  /** Devices (by id) a snapshot is restricted to; null: every device. */
+  type Wanted = ReadonlySet<string> | null;
+  const snapshotOfFault = (net: CompiledNetwork, r: FaultResult, refShift: number, wanted: Wanted): FaultSnapshot => {
     const ends = new Map<string, (typeof r.branchEnds)[number]>();
     for (const e of r.branchEnds) ends.set(`${e.element}|${e.end}`, e);
     for (const e of r.shunts) ends.set(`${e.element}|${e.end}`, e);
     const volts = new Map(r.buses.map((b) => [b.bus, b] as const));
     const readings: Record<string, DeviceReading> = {};
     for (const d of devices) {
+      if (wanted && !wanted.has(d.id)) continue;
       const end = ends.get(locKey.get(d.id)!);
       if (!end || end.phase_A[0].mag + end.phase_A[1].mag + end.phase_A[2].mag < NO_CURRENT_A) continue;
       const v = volts.get(end.bus);
@@ -137,16 +140,16 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     return { iFault_A: r.maxPhase_kA * 1000, readings, messages: r.messages.filter((m) => m.level !== "info").map((m) => m.text) };
   };
 
-  const solveSingle = (net: CompiledNetwork, variantProject: Project, loc: FaultLocation, type: FaultType): FaultSnapshot => {
+  const solveSingle = (net: CompiledNetwork, variantProject: Project, loc: FaultLocation, type: FaultType, wanted: Wanted = null): FaultSnapshot => {
     try {
       const r = solveFault(net, loc, type, { detail: "devices" });
-      return snapshotOfFault(net, r, shiftOf(net, busOf(loc, variantProject)));
+      return snapshotOfFault(net, r, shiftOf(net, busOf(loc, variantProject)), wanted);
     } catch (err) {
       return { iFault_A: 0, readings: {}, messages: [err instanceof Error ? err.message : String(err)] };
     }
   };
 
-  const fromSweep = (net: CompiledNetwork, sweep: SweepResult, bus: string, type: FaultType): FaultSnapshot => {
+  const fromSweep = (net: CompiledNetwork, sweep: SweepResult, bus: string, type: FaultType, wanted: Wanted): FaultSnapshot => {
     const b = sweepBusIndex.get(sweep)!.get(bus);
     const t = sweep.types.indexOf(type);
     if (b === undefined || t < 0) return { iFault_A: 0, readings: {}, messages: [] };
@@ -157,24 +160,25 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
       const di = index[k];
       if (di < 0) continue;
       const d = devices[k];
+      if (wanted && !wanted.has(d.id)) continue;
       const cur = sweepScratch;
       sweepDeviceCurrentsInto(sweep, di, b, t, cur);
       if (cur[6] + cur[7] + cur[8] < NO_CURRENT_A) continue;
-      const phase: [number, number, number] = [cur[6], cur[7], cur[8]];
       const vRef = shift_deg[k] - refShift;
       const a = (vRef * Math.PI) / 180;
       // no voltages in a sweep: the prefault voltage stands in for V1 (a memory-polarised relay's view)
+      const i1_A: Phasor = { re: cur[2], im: cur[3] };
       const seq: SequenceQuantities = {
         i0_A: { re: cur[0], im: cur[1] },
-        i1_A: { re: cur[2], im: cur[3] },
+        i1_A,
         i2_A: { re: cur[4], im: cur[5] },
         v0_pu: ZERO,
         v1_pu: { re: Math.cos(a), im: Math.sin(a) },
         v2_pu: ZERO,
       };
-      const m = measurementFromSequence(seq);
-      m.phase_A = phase;
-      readings[d.id] = { m, direction: currentDirection(seq.i1_A, vRef) };
+      // the sweep's phase magnitudes, and |3 I0| and |I2| as measurementFromSequence computes them
+      const m: Measurement = { phase_A: [cur[6], cur[7], cur[8]], residual_A: 3 * Math.hypot(cur[0], cur[1]), negative_A: Math.hypot(cur[4], cur[5]), sequence: seq };
+      readings[d.id] = { m, direction: currentDirection(i1_A, vRef) };
     }
     return { iFault_A: sweep.maxPhase_kA[b * sweep.types.length + t] * 1000, readings, messages: [] };
   };
@@ -201,13 +205,13 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   const sweepBusIndex = new WeakMap<SweepResult, Map<string, number>>();
   /** One sweep of every energised bus and every fault type per network variant and limit. */
   const sweeps = new Map<string, SweepResult | null>();
-  const sweepOf = (key: string, net: CompiledNetwork, variant: Project, scenarioId: string, buses?: string[]): SweepResult | null => {
+  const sweepOf = (key: string, net: CompiledNetwork, variant: Project, scenarioId: string, buses?: string[], only?: ReadonlySet<string>): SweepResult | null => {
     if (sweeps.has(key)) return sweeps.get(key)!;
     let sweep: SweepResult | null = null;
     if (!sweepBroken) {
       try {
         const out = new Set(variant.scenarios.find((s) => s.id === scenarioId)?.outOfService ?? []);
-        const locs = devices.filter((d) => !out.has(d.at.element) && !out.has(locKey.get(d.id)!.split("|")[0])).map((d) => {
+        const locs = devices.filter((d) => (!only || only.has(d.id)) && !out.has(d.at.element) && !out.has(locKey.get(d.id)!.split("|")[0])).map((d) => {
           const [element, end] = locKey.get(d.id)!.split("|");
           return { element, end: end as OpenEnd["end"] };
         });
@@ -223,7 +227,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     return sweep;
   };
 
-  const solveEach = (scenario: Scenario, locations: FaultLocation[], type: FaultType, limit: FaultLimit): ((i: number) => FaultSnapshot) => {
+  const solveEach = (scenario: Scenario, locations: FaultLocation[], type: FaultType, limit: FaultLimit, wanted?: readonly string[]): ((i: number) => FaultSnapshot) => {
     const v = variantOf(scenario, []);
     const c = compile(v, limit);
     if (!c.network) return (k) => ({ iFault_A: 0, readings: {}, messages: k === 0 ? c.messages : [] });
@@ -234,21 +238,26 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     // any other variant: only the buses asked for (each bus's answer does not depend on the others swept)
     const isBase = v.project === base;
     const whole = isBase || scenarioContents.has(v.content);
-    const requestKey = isBase ? `${v.key}#${limit}` : `${v.key}#${limit}#${[...buses].sort().join(",")}`;
-    const sweepKey = whole ? `${v.content}#${limit}` : `${v.content}#${limit}#${[...buses].sort().join(",")}`;
-    const sweep = buses.length > singleLimit ? sweepOf(sweepKey, net, v.project, v.scenarioId, whole ? undefined : buses) : null;
+    const only = wanted ? new Set(wanted) : null;
+    // a variant swept for a few buses follows only the devices asked for (the sweep's work grows with them);
+    // a whole network's sweep is shared, so it follows every device
+    const sweptOnly = whole ? undefined : (only ?? undefined);
+    const onlyKey = sweptOnly ? `#${[...sweptOnly].sort().join(",")}` : "";
+    const requestKey = isBase ? `${v.key}#${limit}` : `${v.key}#${limit}#${[...buses].sort().join(",")}${onlyKey}`;
+    const sweepKey = whole ? `${v.content}#${limit}` : `${v.content}#${limit}#${[...buses].sort().join(",")}${onlyKey}`;
+    const sweep = buses.length > singleLimit ? sweepOf(sweepKey, net, v.project, v.scenarioId, whole ? undefined : buses, sweptOnly) : null;
     const first = sweep && !sweepsReported.has(requestKey);
     if (sweep) sweepsReported.add(requestKey);
     return (k) => {
       const loc = where[k];
-      const out = sweep && loc.kind === "bus" ? fromSweep(net, sweep, loc.bus, type) : solveSingle(net, v.project, loc, type);
+      const out = sweep && loc.kind === "bus" ? fromSweep(net, sweep, loc.bus, type, only) : solveSingle(net, v.project, loc, type, only);
       if (k === 0) out.messages.push(...c.messages, ...(first ? sweep.messages.filter((m) => m.level !== "info").map((m) => m.text) : []));
       return out;
     };
   };
 
-  const solveMany = (scenario: Scenario, locations: FaultLocation[], type: FaultType, limit: FaultLimit): FaultSnapshot[] => {
-    const at = solveEach(scenario, locations, type, limit);
+  const solveMany = (scenario: Scenario, locations: FaultLocation[], type: FaultType, limit: FaultLimit, wanted?: readonly string[]): FaultSnapshot[] => {
+    const at = solveEach(scenario, locations, type, limit, wanted);
     return locations.map((_, k) => at(k));
   };
 

@@ -112,10 +112,10 @@ export function isGridFollowing(net: ScenarioNetwork, source: string): boolean {
 }
 
 /** Every location's snapshot, one at a time when the solver can (see StudySolver.solveEach). */
-function solveAll(solver: StudySolver, scenario: Scenario, locations: FaultLocation[], type: FaultType, limit: FaultLimit): (i: number) => FaultSnapshot {
+function solveAll(solver: StudySolver, scenario: Scenario, locations: FaultLocation[], type: FaultType, limit: FaultLimit, devices?: readonly string[]): (i: number) => FaultSnapshot {
   if (locations.length === 0) return () => ({ iFault_A: 0, readings: {}, messages: [] });
-  if (solver.solveEach) return solver.solveEach(scenario, locations, type, limit);
-  const snaps = solver.solveMany(scenario, locations, type, limit);
+  if (solver.solveEach) return solver.solveEach(scenario, locations, type, limit, devices);
+  const snaps = solver.solveMany(scenario, locations, type, limit, devices);
   return (i) => snaps[i];
 }
 
@@ -251,14 +251,23 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
       const variant: Scenario = { ...scenario, outOfService: [...scenario.outOfService, infeed] };
       const locIdx = [...new Set(items.map((x) => x.locIndex))].sort((a, b) => a - b);
       const locs: FaultLocation[] = locIdx.map((k) => locations[k]);
+      const position = new Map(locIdx.map((k, j) => [k, j] as const));
+      const wanted = [...new Set(items.map((x) => x.pair.device))];
       for (const type of types) {
         const ofType = items.filter((x) => x.type === type);
         if (ofType.length === 0) continue;
-        const snaps = solver.solveMany(variant, locs, type, sensLimit);
-        const snapAt = new Map(locIdx.map((k, j) => [k, snaps[j]] as const));
+        // only the locations and devices of this type's pairs are read (in location order)
+        const at = solveAll(solver, variant, locs, type, sensLimit, wanted);
+        const snaps = new Map<number, FaultSnapshot>();
+        const snapOf = (j: number): FaultSnapshot => {
+          let s = snaps.get(j);
+          if (!s) snaps.set(j, (s = at(j)));
+          return s;
+        };
+        for (const j of [...new Set(ofType.map((x) => position.get(x.locIndex)!))].sort((a, b) => a - b)) snapOf(j);
         for (const item of ofType) {
           const device = net.devices.get(item.pair.device) as ProtectiveDevice;
-          const without = deviceResponse(device, snapAt.get(item.locIndex)!.readings[device.id], model);
+          const without = deviceResponse(device, snapOf(position.get(item.locIndex)!).readings[device.id], model);
           const v = blindingVerdict(item.work.result.faultCase, item.pair, item.work.responses.get(device.id)!, without, device, model, project.criteria);
           addVerdicts([v]);
           item.work.result.verdictIds.push(v.id);

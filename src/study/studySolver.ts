@@ -27,12 +27,14 @@ export interface OpenEnd {
 
 export interface StudySolver {
   /** Faults of one type and limit at many locations of one scenario (the bulk of the study). */
-  solveMany(scenario: Scenario, locations: FaultLocation[], faultType: FaultType, limit: FaultLimit): FaultSnapshot[];
+  /** `devices`: when given, only these devices' readings are needed (a snapshot may leave the others out). */
+  solveMany(scenario: Scenario, locations: FaultLocation[], faultType: FaultType, limit: FaultLimit, devices?: readonly string[]): FaultSnapshot[];
   /**
-   * Optional: the same answers read one at a time (`at(i)` is `solveMany(...)[i]`, asked for once each, in
-   * order), so that a large study holds one snapshot at a time instead of every location's readings.
+   * Optional: the same answers read one at a time (`at(i)` is `solveMany(...)[i]`, asked for at most once each,
+   * in increasing order), so that a large study holds one snapshot at a time instead of every location's readings
+   * and solves only the locations it reads.
    */
-  solveEach?(scenario: Scenario, locations: FaultLocation[], faultType: FaultType, limit: FaultLimit): (i: number) => FaultSnapshot;
+  solveEach?(scenario: Scenario, locations: FaultLocation[], faultType: FaultType, limit: FaultLimit, devices?: readonly string[]): (i: number) => FaultSnapshot;
   /** One fault with some element ends opened (clearing timeline). */
   solveOne(scenario: Scenario, location: FaultLocation, faultType: FaultType, limit: FaultLimit, open: OpenEnd[]): FaultSnapshot;
   /** Largest phase load current at each device (device id -> A) from a balanced load flow; null when it cannot run. */

@@ -37,6 +37,28 @@ describe("the engine-bound study solver", () => {
     buses.forEach((_, k) => expect(own[k].readings).toEqual(viaVariant[k].readings));
   });
 
+  it("gives the devices asked for the same readings as a full answer, and leaves the others out", () => {
+    // blinding variants: grid-all without the PV inverter (no other scenario's network: swept for itself) and
+    // island-genset without the genset (island-inverters' network: its whole sweep is shared)
+    const variants: Scenario[] = [
+      { ...scenario("grid-all"), outOfService: ["INV-PV"] },
+      { ...scenario("island-genset"), outOfService: ["GRID", "GEN1"] },
+    ];
+    const wanted = ["R-T1", "Q-T1", "Q-BESS"];
+    // by sweep (singleSolveLimit 0) and by single faults (a limit above the bus count)
+    for (const variant of variants)
+      for (const singleSolveLimit of [0, 1000]) {
+        const full = engineSolver(project, { singleSolveLimit }).solveMany(variant, buses, "LG", "min");
+        const some = engineSolver(project, { singleSolveLimit }).solveMany(variant, buses, "LG", "min", wanted);
+        buses.forEach((_, k) => {
+          const expected = Object.fromEntries(Object.entries(full[k].readings).filter(([id]) => wanted.includes(id)));
+          expect(some[k].readings).toEqual(expected); // each device's reading is independent of the others read: identical data
+          expect(some[k].iFault_A).toBe(full[k].iFault_A);
+        });
+        expect(full.some((s, k) => Object.keys(s.readings).length > Object.keys(some[k].readings).length)).toBe(true);
+      }
+  });
+
   it("does not share a network between scenarios with different elements in service", () => {
     const solver = engineSolver(project);
     const all = solver.solveMany(scenario("grid-all"), buses, "3ph", "max");

@@ -25,12 +25,14 @@ import {
   type StudyOptions,
   type StudyResult,
   type Verdict,
+  type VerdictStatus,
 } from "./types.ts";
 import { blindingPairs, blindingVerdict, infeedsByBus, type BlindingPair } from "./verdicts/blinding.ts";
 import { loadVerdicts, sensitivityVerdicts, ZoneMinimum } from "./verdicts/sensitivity.ts";
 import { selectivityVerdicts } from "./verdicts/selectivity.ts";
 import { speedVerdicts } from "./verdicts/speed.ts";
 import { sympatheticVerdicts } from "./verdicts/sympathetic.ts";
+import { verdictIdsDistinct } from "./verdictIds.ts";
 import { memoWithstand, withstand_s, type WithstandFn } from "./withstand.ts";
 
 export interface StudyDeps {
@@ -119,21 +121,20 @@ function solveAll(solver: StudySolver, scenario: Scenario, locations: FaultLocat
   return (i) => snaps[i];
 }
 
-/** What the study keeps of a case once it is analysed (the response lookup only where blinding needs it). */
-type KeptCase = Pick<CaseWork, "result">;
+/**
+ * What the study keeps of a case once it is analysed (the response lookup only where blinding needs it), and
+ * the statuses of the verdicts listed in its verdictIds (the matrix cell's counts).
+ */
+interface KeptCase {
+  result: CaseResult;
+  counts: Record<VerdictStatus, number>;
+}
 
-function pickTimelineCase(works: KeptCase[], verdicts: Map<string, Verdict>): KeptCase | null {
+function pickTimelineCase(works: KeptCase[]): KeptCase | null {
   let best: KeptCase | null = null;
   let bestScore = -1;
   for (const w of works) {
-    let fails = 0;
-    let warns = 0;
-    for (const id of w.result.verdictIds) {
-      const v = verdicts.get(id);
-      if (v?.status === "fail") fails++;
-      else if (v?.status === "warn") warns++;
-    }
-    const score = fails * 1000 + warns;
+    const score = w.counts.fail * 1000 + w.counts.warn;
     if (score > bestScore) {
       best = w;
       bestScore = score;
@@ -147,23 +148,32 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
   const warnings: string[] = [];
   const cases: CaseResult[] = [];
   const verdictList: Verdict[] = [];
-  const verdictById = new Map<string, Verdict>();
   const timelines: ClearingTimeline[] = [];
   const scenarios = project.scenarios.filter((s) => !options.scenarios || options.scenarios.includes(s.id));
   if (options.scenarios)
     for (const id of options.scenarios) if (!project.scenarios.some((s) => s.id === id)) warnings.push(`Scenario ${id}: not found in the project`);
   const types: FaultType[] = options.faultTypes ?? [...FAULT_TYPES];
+  const limitsOf = (s: Scenario) => s.limits.filter((l) => !options.limits || options.limits.includes(l));
+  // Repeated verdict ids (possible only in a project that fails verdictIdsDistinct) keep their first verdict.
+  const verdictById = verdictIdsDistinct(project, scenarios, types, limitsOf) ? null : new Map<string, Verdict>();
   const addVerdicts = (list: Verdict[]) => {
     for (const v of list) {
-      if (verdictById.has(v.id)) continue;
-      verdictById.set(v.id, v);
+      if (verdictById) {
+        if (verdictById.has(v.id)) continue;
+        verdictById.set(v.id, v);
+      }
       verdictList.push(v);
     }
   };
+  /** Counts a verdict listed in a case (by the status of the verdict kept under its id). */
+  const count = (w: KeptCase, v: Verdict) => {
+    w.counts[verdictById ? verdictById.get(v.id)!.status : v.status]++;
+  };
+  const caseCounts: Record<VerdictStatus, number>[] = [];
   // total for progress: locations x types x limits over scenarios
   const plan = scenarios.map((s) => {
     const locations = faultLocations(project, s, options);
-    const limits = s.limits.filter((l) => !options.limits || options.limits.includes(l));
+    const limits = limitsOf(s);
     return { scenario: s, locations, limits };
   });
   const total = plan.reduce((n, p) => n + p.locations.length * p.limits.length * types.length, 0);
@@ -188,7 +198,9 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
     const sensLimit: FaultLimit = limits.includes("min") ? "min" : "max";
     const zone = new ZoneMinimum(net.devices, model);
     const works: KeptCase[] = [];
-    const blinding: { work: CaseWork; pairs: BlindingPair[]; locIndex: number; type: FaultType }[] = [];
+    const blinding: { work: CaseWork; kept: KeptCase; pairs: BlindingPair[]; locIndex: number; type: FaultType }[] = [];
+    /** The cases whose observations the zone minimum holds (sensitivity verdicts are listed there). */
+    const observed = new Map<FaultCase, KeptCase>();
 
     for (const limit of limits) {
       for (const type of types) {
@@ -210,8 +222,11 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
           const { work, verdicts } = analyseCase(project, net, sides, fc, paths, snap, model, withstand, plans[i]);
           addVerdicts(verdicts);
           // keep only the result: the per-case response lookup would otherwise live as long as the study
-          works.push({ result: work.result });
+          const kept: KeptCase = { result: work.result, counts: { pass: 0, warn: 0, fail: 0 } };
+          for (const v of verdicts) count(kept, v);
+          works.push(kept);
           cases.push(work.result);
+          caseCounts.push(kept.counts);
           // a fault that draws no current (an earth fault on an isolated-neutral section) is left to
           // other protection (neutral displacement); it says nothing about overcurrent sensitivity
           if (limit === sensLimit && snap.iFault_A >= 1) {
@@ -221,11 +236,12 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
               for (let k = 0; k < p.links.length && k < 2; k++) {
                 const l = p.links[k];
                 zone.add({ device: l.device, role: l.role, response: work.responses.get(l.device)!, faultCase: fc });
+                observed.set(fc, kept);
               }
             }
             // which devices and infeeds pair up depends on the chains' devices only: once per location
             const pairs = (pairsAt[i] ??= blindingPairs(net, paths, work.result.chains, infeeds));
-            if (pairs.length) blinding.push({ work, pairs, locIndex: i, type });
+            if (pairs.length) blinding.push({ work, kept, pairs, locIndex: i, type });
           }
           done++;
           if (done % 64 === 0) {
@@ -239,11 +255,11 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
 
     // blinding: re-solve the affected locations with each infeed switched out (one location set per infeed,
     // so that the solver can answer every fault type from one sweep)
-    const byInfeed = new Map<string, { work: CaseWork; pair: BlindingPair; locIndex: number; type: FaultType }[]>();
+    const byInfeed = new Map<string, { work: CaseWork; kept: KeptCase; pair: BlindingPair; locIndex: number; type: FaultType }[]>();
     for (const b of blinding)
       for (const pair of b.pairs) {
         const list = byInfeed.get(pair.infeed) ?? [];
-        list.push({ work: b.work, pair, locIndex: b.locIndex, type: b.type });
+        list.push({ work: b.work, kept: b.kept, pair, locIndex: b.locIndex, type: b.type });
         byInfeed.set(pair.infeed, list);
       }
     for (const [infeed, items] of byInfeed) {
@@ -271,16 +287,26 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
           const v = blindingVerdict(item.work.result.faultCase, item.pair, item.work.responses.get(device.id)!, without, device, model, project.criteria);
           addVerdicts([v]);
           item.work.result.verdictIds.push(v.id);
+          count(item.kept, v);
         }
       }
       await hooks.yieldNow?.();
     }
 
     // sensitivity against the end of each zone, then against load
-    const sens = sensitivityVerdicts(scenario, zone.observations(), net.devices, model, project.criteria);
+    const observations = zone.observations();
+    const sens = sensitivityVerdicts(scenario, observations, net.devices, model, project.criteria);
     addVerdicts(sens);
-    const workById = new Map(works.map((w) => [w.result.faultCase.id, w] as const));
-    for (const v of sens) if (v.caseId) workById.get(v.caseId)?.result.verdictIds.push(v.id);
+    // (where case ids can repeat, the case listed under an id is the last one with it)
+    const workById = verdictById
+      ? new Map(works.map((w) => [w.result.faultCase.id, w] as const))
+      : new Map(observations.map((o) => [o.faultCase.id, observed.get(o.faultCase)!] as const));
+    for (const v of sens) {
+      const w = v.caseId ? workById.get(v.caseId) : undefined;
+      if (!w) continue;
+      w.result.verdictIds.push(v.id);
+      count(w, v);
+    }
     const load = solver.loadCurrents(scenario);
     if (load) addVerdicts(loadVerdicts(scenario, load, net.devices, model, project.criteria));
     else warnings.push(`Scenario ${scenario.id} "${scenario.name}": no load flow, pickups were not checked against load current`);
@@ -288,10 +314,7 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
     // clearing timelines: the worst case of the scenario, plus the ones asked for
     const wanted = new Set(options.timelineCases ?? []);
     const chosen = works.filter((w) => wanted.has(w.result.faultCase.id));
-    const worst = pickTimelineCase(
-      works.filter((w) => w.result.faultCase.limit === sensLimit),
-      verdictById,
-    );
+    const worst = pickTimelineCase(works.filter((w) => w.result.faultCase.limit === sensLimit));
     if (worst && !chosen.includes(worst)) chosen.unshift(worst);
     for (const w of chosen) {
       if (hooks.isCancelled?.()) throw new StudyCancelled();
@@ -305,7 +328,7 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
     project: project.meta.name,
     cases,
     verdicts: verdictList,
-    matrix: studyMatrix(scenarios, cases, verdictList, elements, verdictById),
+    matrix: studyMatrix(scenarios, cases, verdictList, elements, { caseCounts }),
     timelines,
     warnings,
     caution: STUDY_CAUTION,

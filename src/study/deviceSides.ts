@@ -3,7 +3,7 @@
 // the other side. A feeder device protects its element side; an incomer looking into its transformer
 // protects its bus side. Where both or neither side reaches a reference source (rings, dead sections)
 // the device counts as protecting both sides.
-import { elementNode, busNode, reachable, type ScenarioNetwork } from "./scenarioNetwork.ts";
+import { elementNode, reachable, type ScenarioNetwork } from "./scenarioNetwork.ts";
 
 export type ProtectedSide = "element" | "bus" | "both";
 
@@ -23,9 +23,9 @@ function sideOf(net: ScenarioNetwork, edgeIndex: number, refNodes: string[], wit
   const cut = new Set([edgeIndex]);
   if (!withSwitches) for (const e of net.edges) if (net.elements.get(e.element)?.kind === "switch") cut.add(e.index);
   if (net.elements.get(edge.element)?.kind === "switch" && !withSwitches) return "neither";
-  const fromElement = reachable(net, elementNode(edge.element), cut);
-  if (fromElement.has(busNode(edge.bus))) return "both";
-  const fromBus = reachable(net, busNode(edge.bus), cut);
+  const fromElement = reachable(net, edge.elementKey, cut);
+  if (fromElement.has(edge.busKey)) return "both";
+  const fromBus = reachable(net, edge.busKey, cut);
   const elementUp = refNodes.some((n) => fromElement.has(n));
   const busUp = refNodes.some((n) => fromBus.has(n));
   if (!elementUp && !busUp) return "neither";

@@ -27,7 +27,7 @@ import {
   type Verdict,
   type VerdictStatus,
 } from "./types.ts";
-import { blindingPairs, blindingVerdict, infeedsByBus, type BlindingPair } from "./verdicts/blinding.ts";
+import { blindingPairs, blindingVerdict, infeedsByBus, type BlindingPair, type ChainRoles } from "./verdicts/blinding.ts";
 import { loadVerdicts, sensitivityVerdicts, ZoneMinimum } from "./verdicts/sensitivity.ts";
 import { selectivityVerdicts } from "./verdicts/selectivity.ts";
 import { speedVerdicts } from "./verdicts/speed.ts";
@@ -59,7 +59,6 @@ export class StudyCancelled extends Error {
 interface CaseWork {
   result: CaseResult;
   responses: Map<string, DeviceResponse>;
-  paths: SourcePath[];
 }
 
 /** One case: device responses, chains, roles and the verdicts that need only this case. */
@@ -72,8 +71,19 @@ export function analyseCase(
   snapshot: Pick<FaultSnapshot, "iFault_A" | "readings">,
   model: DeviceModel,
   withstand: WithstandFn = withstand_s,
-  /** The chains of the location (chainPlan of `paths`), when the caller analyses many cases there. */
-  plan: ChainPlan = chainPlan(net, paths, sides),
+): { work: CaseWork; verdicts: Verdict[] } {
+  return analysePlannedCase(project, net, fc, chainPlan(net, paths, sides), snapshot, model, withstand);
+}
+
+/** analyseCase with the location's chains already planned (a study analyses eight or more cases per location). */
+function analysePlannedCase(
+  project: Project,
+  net: ScenarioNetwork,
+  fc: FaultCase,
+  plan: ChainPlan,
+  snapshot: Pick<FaultSnapshot, "iFault_A" | "readings">,
+  model: DeviceModel,
+  withstand: WithstandFn,
 ): { work: CaseWork; verdicts: Verdict[] } {
   // responses of the devices that see current, and of every device on a source path (zero when it sees none)
   const responses = new Map<string, DeviceResponse>();
@@ -104,7 +114,12 @@ export function analyseCase(
     chains,
     verdictIds: verdicts.map((v) => v.id),
   };
-  return { work: { result, responses, paths }, verdicts };
+  return { work: { result, responses }, verdicts };
+}
+
+/** A plan's chains as links with roles (the first device of a chain is its primary). */
+function chainRoles(plan: ChainPlan): ChainRoles {
+  return { paths: plan.paths.map((p) => ({ links: p.devices.map((device, depth) => ({ device, role: depth === 0 ? ("primary" as const) : ("backup" as const) })) })) };
 }
 
 /** Grid-following inverters cease to energise on their own protection (IEEE 1547-2018 clause 8.1, from memory). */
@@ -190,11 +205,17 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
     }
     const sides = deviceSides(net);
     const infeeds = infeedsByBus(net);
-    // source paths and chains per location index (the same for every limit and fault type)
+    // chains and blinding pairs per location index (the same for every limit and fault type); the source
+    // paths themselves are not kept
     const trees = sourceTrees(net);
-    const pathsAt = locations.map((loc) => findSourcePaths(net, loc, trees));
-    const plans = pathsAt.map((paths) => chainPlan(net, paths, sides));
-    const pairsAt: (BlindingPair[] | undefined)[] = [];
+    const plans: ChainPlan[] = [];
+    const pairsAt: BlindingPair[][] = [];
+    for (const loc of locations) {
+      const paths = findSourcePaths(net, loc, trees);
+      const plan = chainPlan(net, paths, sides);
+      plans.push(plan);
+      pairsAt.push(blindingPairs(net, paths, chainRoles(plan), infeeds));
+    }
     const sensLimit: FaultLimit = limits.includes("min") ? "min" : "max";
     const zone = new ZoneMinimum(net.devices, model);
     const works: KeptCase[] = [];
@@ -218,8 +239,7 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
           };
           const snap = snapAt(i);
           for (const m of snap.messages) if (!warnings.includes(m)) warnings.push(m);
-          const paths = pathsAt[i];
-          const { work, verdicts } = analyseCase(project, net, sides, fc, paths, snap, model, withstand, plans[i]);
+          const { work, verdicts } = analysePlannedCase(project, net, fc, plans[i], snap, model, withstand);
           addVerdicts(verdicts);
           // keep only the result: the per-case response lookup would otherwise live as long as the study
           const kept: KeptCase = { result: work.result, counts: { pass: 0, warn: 0, fail: 0 } };
@@ -239,8 +259,7 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
                 observed.set(fc, kept);
               }
             }
-            // which devices and infeeds pair up depends on the chains' devices only: once per location
-            const pairs = (pairsAt[i] ??= blindingPairs(net, paths, work.result.chains, infeeds));
+            const pairs = pairsAt[i];
             if (pairs.length) blinding.push({ work, kept, pairs, locIndex: i, type });
           }
           done++;

@@ -13,6 +13,9 @@ export interface NetEdge {
   end: EndName;
   /** Devices located at this end, looking into the element. */
   devices: string[];
+  /** Node keys of the two ends (busNode(bus), elementNode(element)), built once so that walks make no strings. */
+  busKey: string;
+  elementKey: string;
 }
 
 export interface ScenarioNetwork {
@@ -75,6 +78,15 @@ export function scenarioNetwork(project: Project, scenario: Scenario): ScenarioN
   const edges: NetEdge[] = [];
   const adjacency = new Map<string, number[]>();
   const endIndex = new Map<string, number>();
+  // one key string per node, shared by its edges and the adjacency (walks compare and hash them often)
+  const busKeys = new Map<string, string>();
+  const elementKeys = new Map<string, string>();
+  const keyOf = (id: string, make: typeof busNode): string => {
+    const cache = make === busNode ? busKeys : elementKeys;
+    let key = cache.get(id);
+    if (key === undefined) cache.set(id, (key = make(id)));
+    return key;
+  };
   const link = (node: string, i: number) => {
     const list = adjacency.get(node);
     if (list) list.push(i);
@@ -83,7 +95,10 @@ export function scenarioNetwork(project: Project, scenario: Scenario): ScenarioN
   const sources: string[] = [];
   for (const e of project.elements) {
     if (e.kind === "bus") {
-      if (!out.has(e.id)) adjacency.set(busNode(e.id), adjacency.get(busNode(e.id)) ?? []);
+      if (!out.has(e.id)) {
+        const key = keyOf(e.id, busNode);
+        adjacency.set(key, adjacency.get(key) ?? []);
+      }
       continue;
     }
     if (out.has(e.id)) continue;
@@ -92,10 +107,12 @@ export function scenarioNetwork(project: Project, scenario: Scenario): ScenarioN
     if (ends.length === 0 || ends.some((x) => out.has(x.bus) || elements.get(x.bus)?.kind !== "bus")) continue;
     for (const x of ends) {
       const index = edges.length;
-      edges.push({ index, bus: x.bus, element: e.id, end: x.end, devices: [] });
+      const busKey = keyOf(x.bus, busNode);
+      const elementKey = keyOf(e.id, elementNode);
+      edges.push({ index, bus: x.bus, element: e.id, end: x.end, devices: [], busKey, elementKey });
       endIndex.set(`${e.id}|${x.end}`, index);
-      link(busNode(x.bus), index);
-      link(elementNode(e.id), index);
+      link(busKey, index);
+      link(elementKey, index);
     }
     if (isSource(e)) sources.push(e.id);
   }
@@ -115,7 +132,7 @@ export function scenarioNetwork(project: Project, scenario: Scenario): ScenarioN
 
 /** The node at the other end of an edge from `node`. */
 export function across(edge: NetEdge, node: string): string {
-  return node === busNode(edge.bus) ? elementNode(edge.element) : busNode(edge.bus);
+  return node === edge.busKey ? edge.elementKey : edge.busKey;
 }
 
 /**

@@ -7,7 +7,7 @@ import type { DeviceModel } from "../deviceModel.ts";
 import { pickupRatio } from "../pickupRatio.ts";
 import { busNode, elementNode, type ScenarioNetwork } from "../scenarioNetwork.ts";
 import type { SourcePath } from "../sourcePaths.ts";
-import type { DeviceResponse, FaultCase, FaultChains, Verdict, VerdictStatus } from "../types.ts";
+import type { ChainLink, DeviceResponse, FaultCase, Verdict, VerdictStatus } from "../types.ts";
 import { deviceTag, fmtA, fmtS, fmtX, round } from "./format.ts";
 
 export interface BlindingPair {
@@ -30,8 +30,13 @@ export function infeedsByBus(net: ScenarioNetwork): Map<string, string[]> {
   return map;
 }
 
+/** The chains' devices and roles, path by path (a case's FaultChains, or a location's chain plan). */
+export interface ChainRoles {
+  paths: { links: Pick<ChainLink, "device" | "role">[] }[];
+}
+
 /** Device/infeed pairs where the infeed connects on the fault side of a chain device. */
-export function blindingPairs(net: ScenarioNetwork, paths: SourcePath[], chains: FaultChains, infeeds: Map<string, string[]>): BlindingPair[] {
+export function blindingPairs(net: ScenarioNetwork, paths: SourcePath[], chains: ChainRoles, infeeds: Map<string, string[]>): BlindingPair[] {
   const pairs: BlindingPair[] = [];
   const seen = new Set<string>();
   chains.paths.forEach((chain, p) => {

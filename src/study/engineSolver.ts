@@ -66,6 +66,14 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   let sweepBroken = false;
   /** Requests (scenario or variant, limit, buses) whose sweep messages were passed on. */
   const sweepsReported = new Set<string>();
+  // A study asks for the same location objects once per limit and fault type: locate each once, so that its
+  // point-bus id is one string (hashed once) rather than a new one per request.
+  const located = new WeakMap<FaultLocation, FaultLocation>();
+  const locate = (l: FaultLocation): FaultLocation => {
+    let at = located.get(l);
+    if (!at) located.set(l, (at = split.locate(l)));
+    return at;
+  };
 
   /**
    * What a compiled network depends on in a scenario of the split project: the elements switched out and the
@@ -232,7 +240,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     const c = compile(v, limit);
     if (!c.network) return (k) => ({ iFault_A: 0, readings: {}, messages: k === 0 ? c.messages : [] });
     const net = c.network;
-    const where = locations.map((l) => split.locate(l));
+    const where = locations.map(locate);
     const buses = [...new Set(where.filter((l) => l.kind === "bus").map((l) => (l as { bus: string }).bus))];
     // the scenario itself, or a variant that is another scenario's network: every bus (shared by content);
     // any other variant: only the buses asked for (each bus's answer does not depend on the others swept)

@@ -24,15 +24,25 @@ export function selectivityVerdicts(
   criteria: Criteria,
 ): Verdict[] {
   const out: Verdict[] = [];
-  const seen = new Set<string>();
+  // pairs already judged, primary and backup side by side (a case has a handful: a scan beats building keys);
+  // ids holding ">" compare as the joined "primary>backup" of the verdict id
+  const seen: string[] = [];
+  const judged = (p: string, b: string): boolean => {
+    for (let j = 0; j < seen.length; j += 2) {
+      const sp = seen[j];
+      const sb = seen[j + 1];
+      if (sp === p && sb === b) return true;
+      if ((sp.includes(">") || sb.includes(">") || p.includes(">") || b.includes(">")) && `${sp}>${sb}` === `${p}>${b}`) return true;
+    }
+    return false;
+  };
   for (const path of chains.paths) {
     for (let k = 0; k + 1 < path.links.length; k++) {
       const p = responses.get(path.links[k].device)!;
       const b = responses.get(path.links[k + 1].device)!;
       if (p.tClear_s === null || b.tClear_s === null) continue;
-      const key = `${p.device}>${b.device}`;
-      if (seen.has(key)) continue;
-      seen.add(key);
+      if (judged(p.device, b.device)) continue;
+      seen.push(p.device, b.device);
       const cti = pairCti_s(criteria, p.device, b.device, devices);
       const pMax = p.tClearMax_s ?? p.tClear_s;
       const bMin = b.tClearMin_s ?? b.tClear_s;

@@ -87,8 +87,11 @@ export class InjectionWork {
   /** The iterate and the targets flattened [x1r, x1i, x2r, x2i] (the arrays above are views of these). */
   readonly x: Float64Array;
   readonly t: Float64Array;
-  /** Anderson acceleration: the residual f = t - x, the previous iterate and residual, the last ANDERSON_DEPTH
-   * differences dF of f and dG of x + f (ring buffers), the inner products of the dF, and the least-squares system. */
+  /** Anderson acceleration over the components that can move (their flat indices in act): the iterate and the
+   * residual f = t - x, the previous ones, the last ANDERSON_DEPTH differences dF of f and dG of x + f (ring
+   * buffers), the inner products of the dF, and the least-squares system. */
+  readonly act: Int32Array;
+  readonly ax: Float64Array;
   readonly af: Float64Array;
   readonly axPrev: Float64Array;
   readonly afPrev: Float64Array;
@@ -120,6 +123,8 @@ export class InjectionWork {
     this.x2i = this.x.subarray(3 * J, 4 * J);
     this.dirR = f();
     this.dirI = f();
+    this.act = new Int32Array(4 * J);
+    this.ax = new Float64Array(4 * J);
     this.af = new Float64Array(4 * J);
     this.axPrev = new Float64Array(4 * J);
     this.afPrev = new Float64Array(4 * J);
@@ -323,8 +328,20 @@ function fixedPoint(units: InverterUnit[], resp: UnitResponse, w: InjectionWork,
  * method remain behind it for what this does not settle.
  */
 function andersonPoint(units: InverterUnit[], resp: UnitResponse, w: InjectionWork, vpre: Float64Array, maxIterations: number): { residual: number; steps: number } {
-  const n4 = 4 * w.J;
-  const { x, t, af, axPrev, afPrev, dG, dF, dots, gram, rhs } = w;
+  const J = w.J;
+  const { x, t, act, ax, af, axPrev, afPrev, dG, dF, dots, gram, rhs } = w;
+  // Only the components that can move take part: a grid-following unit without negative-sequence control never
+  // injects negative sequence (its x2 stays exactly zero), so the vectors are often half as long.
+  let n = 0;
+  for (let j = 0; j < J; j++) {
+    act[n++] = j;
+    act[n++] = J + j;
+  }
+  for (let j = 0; j < J; j++) {
+    if (units[j].control !== "grid-forming" && units[j].negSeq !== "k-factor") continue;
+    act[n++] = 2 * J + j;
+    act[n++] = 3 * J + j;
+  }
   let count = 0;
   let head = 0;
   let previous = Infinity;
@@ -334,36 +351,42 @@ function andersonPoint(units: InverterUnit[], resp: UnitResponse, w: InjectionWo
     step(units, resp, w, vpre, w.x1r, w.x1i, w.x2r, w.x2i);
     residual = residualOf(units, w);
     if (residual < TOLERANCE_PU) return { residual, steps: k };
-    for (let i = 0; i < n4; i++) af[i] = t[i] - x[i];
+    for (let i = 0; i < n; i++) {
+      const q = act[i];
+      ax[i] = x[q];
+      af[i] = t[q] - x[q];
+    }
     if (residual > 10 * previous) {
       count = 0;
       head = 0;
     } else if (k > 0) {
-      const o = head * n4;
-      for (let i = 0; i < n4; i++) {
+      const o = head * n;
+      for (let i = 0; i < n; i++) {
         const df = af[i] - afPrev[i];
         dF[o + i] = df;
-        dG[o + i] = x[i] - axPrev[i] + df;
+        dG[o + i] = ax[i] - axPrev[i] + df;
       }
       if (count < ANDERSON_DEPTH) count++;
       // Only the new difference's inner products change (slots 0..count-1 hold the history, in any order).
       for (let a = 0; a < count; a++) {
         let g = 0;
-        for (let i = 0; i < n4; i++) g += dF[a * n4 + i] * dF[o + i];
+        for (let i = 0; i < n; i++) g += dF[a * n + i] * dF[o + i];
         dots[a * ANDERSON_DEPTH + head] = g;
         dots[head * ANDERSON_DEPTH + a] = g;
       }
       head = (head + 1) % ANDERSON_DEPTH;
     }
     previous = residual;
-    axPrev.set(x);
-    afPrev.set(af);
+    for (let i = 0; i < n; i++) {
+      axPrev[i] = ax[i];
+      afPrev[i] = af[i];
+    }
     // gamma = argmin |f - dF gamma| by the normal equations (count x count, a tiny regularisation keeps it solvable).
     let ok = count > 0;
     if (ok) {
       for (let a = 0; a < count; a++) {
         let r = 0;
-        for (let i = 0; i < n4; i++) r += dF[a * n4 + i] * af[i];
+        for (let i = 0; i < n; i++) r += dF[a * n + i] * af[i];
         rhs[a] = r;
         for (let c = 0; c < count; c++) gram[a * count + c] = dots[a * ANDERSON_DEPTH + c];
       }
@@ -373,10 +396,10 @@ function andersonPoint(units: InverterUnit[], resp: UnitResponse, w: InjectionWo
       count = 0;
       head = 0;
     }
-    for (let i = 0; i < n4; i++) {
-      let v = x[i] + af[i];
-      for (let a = 0; a < count; a++) v -= dG[a * n4 + i] * rhs[a];
-      x[i] = v;
+    for (let i = 0; i < n; i++) {
+      let v = ax[i] + af[i];
+      for (let a = 0; a < count; a++) v -= dG[a * n + i] * rhs[a];
+      x[act[i]] = v;
     }
   }
   return { residual, steps: k };

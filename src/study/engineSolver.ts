@@ -3,7 +3,7 @@
 // and fault type covers every case. Where directional functions need the fault voltages, bus faults are
 // solved one by one instead (the sweep keeps currents only). Opened element ends (clearing timeline) and
 // switched-out infeeds (blinding) become scenario variants.
-import type { Project, Scenario } from "../model/schema.ts";
+import type { Project, ProtectiveDevice, Scenario } from "../model/schema.ts";
 import { isProtectiveDevice } from "../model/schema.ts";
 import {
   compileNetwork,
@@ -42,10 +42,23 @@ const ZERO: Phasor = { re: 0, im: 0 };
  * centred 45 degrees behind the voltage (forward half-plane), as a 45-degree characteristic angle does.
  */
 export function currentDirection(i1: Phasor, vRef_deg: number, minCurrent_A = 1e-6): CurrentDirection {
-  if (Math.hypot(i1.re, i1.im) < minCurrent_A) return "none";
+  return directionOf(i1.re, i1.im, vRef_deg, minCurrent_A);
+}
+
+/** currentDirection of I1 = re + j im. */
+function directionOf(re: number, im: number, vRef_deg: number, minCurrent_A = 1e-6): CurrentDirection {
+  if (Math.hypot(re, im) < minCurrent_A) return "none";
   const a = ((-vRef_deg + 45) * Math.PI) / 180;
-  const torque = i1.re * Math.cos(a) - i1.im * Math.sin(a);
+  const torque = re * Math.cos(a) - im * Math.sin(a);
   return torque > 0 ? "forward" : torque < 0 ? "reverse" : "none";
+}
+
+/**
+ * Relays with a function that reads the sequence quantities: directional (67/67N) or voltage-restrained (51V)
+ * (Measurement.sequence). Other devices' sweep measurements are built without them.
+ */
+function readsSequence(d: ProtectiveDevice): boolean {
+  return d.kind === "relay" && d.functions.some((f) => f.direction !== "non-directional" || f.ansi === "51V" || f.restraint !== undefined);
 }
 
 const busOf = (loc: FaultLocation, project: Project): string => {
@@ -60,6 +73,8 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   const devices = project.elements.filter(isProtectiveDevice);
   const directional = devices.some((d) => d.kind === "relay" && d.functions.some((f) => f.enabled && f.direction !== "non-directional"));
   const singleLimit = opts.singleSolveLimit ?? (directional ? 400 : 0);
+  /** Per device (in `devices` order): 1 when its sweep measurements carry the sequence quantities. */
+  const withSequence = Uint8Array.from(devices, (d) => (readsSequence(d) ? 1 : 0));
   /** Device id -> its location key in the split project. */
   const locKey = new Map(devices.map((d) => [d.id, `${split.endElement(d.at.element, d.at.end)}|${d.at.end}`] as const));
   const compiled = new Map<string, { network: CompiledNetwork | null; messages: string[] }>();
@@ -173,20 +188,25 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
       sweepDeviceCurrentsInto(sweep, di, b, t, cur);
       if (cur[6] + cur[7] + cur[8] < NO_CURRENT_A) continue;
       const vRef = shift_deg[k] - refShift;
-      const a = (vRef * Math.PI) / 180;
-      // no voltages in a sweep: the prefault voltage stands in for V1 (a memory-polarised relay's view)
-      const i1_A: Phasor = { re: cur[2], im: cur[3] };
-      const seq: SequenceQuantities = {
-        i0_A: { re: cur[0], im: cur[1] },
-        i1_A,
-        i2_A: { re: cur[4], im: cur[5] },
-        v0_pu: ZERO,
-        v1_pu: { re: Math.cos(a), im: Math.sin(a) },
-        v2_pu: ZERO,
-      };
       // the sweep's phase magnitudes, and |3 I0| and |I2| as measurementFromSequence computes them
-      const m: Measurement = { phase_A: [cur[6], cur[7], cur[8]], residual_A: 3 * Math.hypot(cur[0], cur[1]), negative_A: Math.hypot(cur[4], cur[5]), sequence: seq };
-      readings[d.id] = { m, direction: currentDirection(i1_A, vRef) };
+      const phase_A: [number, number, number] = [cur[6], cur[7], cur[8]];
+      const residual_A = 3 * Math.hypot(cur[0], cur[1]);
+      const negative_A = Math.hypot(cur[4], cur[5]);
+      let m: Measurement;
+      if (withSequence[k] === 1) {
+        const a = (vRef * Math.PI) / 180;
+        // no voltages in a sweep: the prefault voltage stands in for V1 (a memory-polarised relay's view)
+        const seq: SequenceQuantities = {
+          i0_A: { re: cur[0], im: cur[1] },
+          i1_A: { re: cur[2], im: cur[3] },
+          i2_A: { re: cur[4], im: cur[5] },
+          v0_pu: ZERO,
+          v1_pu: { re: Math.cos(a), im: Math.sin(a) },
+          v2_pu: ZERO,
+        };
+        m = { phase_A, residual_A, negative_A, sequence: seq };
+      } else m = { phase_A, residual_A, negative_A };
+      readings[d.id] = { m, direction: directionOf(cur[2], cur[3], vRef) };
     }
     return { iFault_A: sweep.maxPhase_kA[b * sweep.types.length + t] * 1000, readings, messages: [] };
   };

@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { loadProject } from "../../../src/model/projectFile.ts";
-import type { Scenario } from "../../../src/model/schema.ts";
+import type { Project, Scenario } from "../../../src/model/schema.ts";
 import { compileNetwork, solveFault } from "../../../src/engine/index.ts";
 import { engineSolver } from "../../../src/study/engineSolver.ts";
 import type { FaultLocation } from "../../../src/study/types.ts";
@@ -57,6 +57,28 @@ describe("the engine-bound study solver", () => {
         });
         expect(full.some((s, k) => Object.keys(s.readings).length > Object.keys(some[k].readings).length)).toBe(true);
       }
+  });
+
+  it("gives sweep measurements the sequence quantities only for relays with a directional or 51V function", () => {
+    // R-INC made directional (67): its measurement must carry I1, I2, I0 and the prefault V1
+    const withDirectional: Project = {
+      ...project,
+      elements: project.elements.map((e) => (e.id === "R-INC" && e.kind === "relay" ? { ...e, functions: e.functions.map((f) => ({ ...f, direction: "forward" as const })) } : e)),
+    };
+    const snaps = engineSolver(withDirectional, { singleSolveLimit: 0 }).solveMany(scenario("grid-all"), buses, "3ph", "max");
+    const seen = snaps.filter((s) => s.readings["R-INC"]);
+    expect(seen.length).toBeGreaterThan(0);
+    for (const s of seen) {
+      const m = s.readings["R-INC"].m;
+      const seq = m.sequence!;
+      // a three-phase fault is balanced: I0 = I2 = 0 and |Ia| = |Ib| = |Ic| = |I1| (symmetrical components, Fortescue)
+      expect(Math.hypot(seq.i1_A.re, seq.i1_A.im)).toBeCloseTo(m.phase_A[0], 6);
+      expect(Math.hypot(seq.i2_A.re, seq.i2_A.im)).toBeLessThan(1e-6 * m.phase_A[0]);
+      // no voltages in a sweep: the prefault voltage (1 pu at the bus's angle) stands in for V1
+      expect(Math.hypot(seq.v1_pu.re, seq.v1_pu.im)).toBeCloseTo(1, 12);
+      // Q-T1 has no directional or restrained function: nothing reads its sequence quantities
+      if (s.readings["Q-T1"]) expect(s.readings["Q-T1"].m.sequence).toBeUndefined();
+    }
   });
 
   it("does not share a network between scenarios with different elements in service", () => {

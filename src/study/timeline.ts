@@ -1,6 +1,7 @@
 // Clearing timeline: a sequential simulation of one fault. At each state the network is solved, every
-// device's travel towards operation accumulates as the integral of dt / t(I) (instantaneous reset below
-// pickup), the first device to complete trips, its breaker opens after its breaker time (the element it
+// device's travel towards operation accumulates as the integral of dt / t(I) (below pickup each element resets
+// by its own law: instantly, by the IEEE C37.112 reset characteristic, or not at all for a fuse; see
+// protection/accumulate.ts), the first device to complete trips, its breaker opens after its breaker time (the element it
 // looks into is disconnected at that end) and the network is solved again, until every source path into
 // the fault is open or nothing operates within the horizon.
 import type { Project } from "../model/schema.ts";

@@ -119,13 +119,9 @@ export function solveCompactFault(p: CompactFaultInput, inj1: ComplexVec, inj2: 
   return { v: [z0, v1, v2], i: fp.i, consistent: fp.consistent, zkk: [null, p.z1kk, p.z2kk] };
 }
 
-/**
- * Loads the fault-coupled response (see unitResponse.ts) for the fault in p: Z[u_j, k] from the unit columns, and
- * the fault currents' affine dependence on the open-circuit voltages E1, E2 at the fault from three evaluations of
- * the fault equations. `g` is scratch space (8 numbers).
- */
-export function loadFaultResponse(r: FaultCoupledResponse, p: CompactFaultInput, g: Float64Array = new Float64Array(8)): FaultCoupledResponse {
-  const { colU, k, c } = p;
+/** Loads Z[u_j, k] for the faulted node k into the response: the same for every fault type at that bus. */
+export function loadFaultColumns(r: FaultCoupledResponse, p: CompactFaultInput): FaultCoupledResponse {
+  const { colU, k } = p;
   for (let j = 0; j < r.J; j++) {
     const u = p.unitIdx[j];
     r.z1r[j] = colU[1][u].re[k];
@@ -133,6 +129,16 @@ export function loadFaultResponse(r: FaultCoupledResponse, p: CompactFaultInput,
     r.z2r[j] = colU[2][u].re[k];
     r.z2i[j] = colU[2][u].im[k];
   }
+  return r;
+}
+
+/**
+ * Loads the fault type's part of the fault-coupled response (see unitResponse.ts), its columns being loaded
+ * (loadFaultColumns): the fault currents' affine dependence on the open-circuit voltages E1, E2 at the fault, from
+ * three evaluations of the fault equations. `g` is scratch space (8 numbers).
+ */
+export function loadFaultResponse(r: FaultCoupledResponse, p: CompactFaultInput, g: Float64Array = new Float64Array(8)): FaultCoupledResponse {
+  const c = p.c;
   const f = (e1r: number, e2r: number) => faultEquations(p.type, [p.zeroView, { floating: false, e: { re: e1r, im: 0 }, z: p.z1kk }, { floating: false, e: { re: e2r, im: 0 }, z: p.z2kk }], p.zf).i;
   const i0 = f(c, 0);
   const iE1 = f(c + 1, 0);
@@ -152,5 +158,5 @@ export function loadFaultResponse(r: FaultCoupledResponse, p: CompactFaultInput,
 /** A fresh fault-coupled response for the fault in p (one-off solves; a sweep reuses one with loadFaultResponse). */
 export function compactResponse(p: CompactFaultInput): FaultCoupledResponse {
   const block = p.block ?? unitBlock(p.model, p.unitIdx, p.colU);
-  return loadFaultResponse(new FaultCoupledResponse(p.unitIdx.length, block), p);
+  return loadFaultResponse(loadFaultColumns(new FaultCoupledResponse(p.unitIdx.length, block), p), p);
 }

@@ -9,7 +9,7 @@ import type { CompiledNetwork, EngineMessage, FaultType, SweepOptions, SweepResu
 import { FAULT_TYPES } from "../types.ts";
 import type { Cx } from "../network/model.ts";
 import { sequenceSystem, type SequenceSystem } from "../network/sequenceSystem.ts";
-import { compactUnits, loadFaultResponse, solveCompactFault, unitBlock, unitColumns, type CompactFaultInput } from "./compactFault.ts";
+import { compactUnits, loadFaultColumns, loadFaultResponse, solveCompactFault, unitBlock, unitColumns, type CompactFaultInput } from "./compactFault.ts";
 import { FaultCoupledResponse } from "../inverter/unitResponse.ts";
 import { InjectionWork, iterateInjections } from "../inverter/refinedIteration.ts";
 import { solveLdltBlock } from "../sparse/ldlt.ts";
@@ -145,6 +145,7 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
     const Jl = unitIdx.length;
     const cin: CompactFaultInput = { model, unitIdx, colU, k, type: "3ph", zf, c, zeroView, z1kk: zkk[1], z2kk: zkk[2], block: isl.block };
     isl.vpre.fill(c);
+    if (Jl > 0 && used === "refined") loadFaultColumns(isl.response, cin);
     let ik3 = -1;
     // IEC 60909 converter currents depend on the faulted bus only (arg I_j = -arg Z_kj): once for all fault types.
     if (Jl > 0 && used === "iec") {

@@ -211,12 +211,26 @@ export interface SweepResult {
   messages: EngineMessage[];
 }
 
+/** Device locations per block of SweepDeviceData.transfer. */
+export const TRANSFER_BLOCK = 8;
+
 /** Internal layout of the sweep's device currents; plain typed arrays so it can be transferred. */
 export interface SweepDeviceData {
   /** Primary-ampere base of each device location (node base current at its end). */
   base_A: Float64Array;
-  /** Per [(b * D + d) * 6 + 2 * s + re/im]: device current (pu) per pu fault current of sequence s at bus b (bus-major: one bus's devices are contiguous). */
+  /**
+   * X_s = Z_s C_s, the sequence networks' response to each device location's current combination: the device
+   * current (pu) per pu fault current of sequence s drawn at bus b is -X_s[row(b), slot(d)]. Stored in blocks of
+   * TRANSFER_BLOCK (8) devices: value (row, slot) of sequence s, real (im = 0) or imaginary part (im = 1), at
+   * ((blk * 3 + s) * 2 + im) * transferRows * 8 + row * 8 + slot % 8 with blk = floor(slot / 8).
+   */
   transfer: Float64Array;
+  /** Rows of each part of transfer (every node of the network, or just the swept buses). */
+  transferRows: number;
+  /** Row of each swept bus in transfer; -1 when the bus is out of service. */
+  transferBusRow: Int32Array;
+  /** Slot of each device location in transfer; -1 when it has no current (element out of service). */
+  transferSlot: Int32Array;
   /** Fault sequence currents drawn into the fault, pu, per [(b * T + t) * 6 + 2 * s + re/im]. */
   faultSeq_pu: Float64Array;
   /** Source-injection part (inverters): J = number of inverters; map per [(d * J + j) * 6 + 2 * s + re/im]. */

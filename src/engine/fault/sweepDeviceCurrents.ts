@@ -1,5 +1,5 @@
 // Reads one device location's currents for one fault from a sweep's compact linear form.
-import type { SweepDeviceCurrents, SweepResult, Complex } from "../types.ts";
+import { TRANSFER_BLOCK, type SweepDeviceCurrents, type SweepResult, type Complex } from "../types.ts";
 import { seqToPhase, toPhasor } from "./phasors.ts";
 
 const overrideIndex = new WeakMap<SweepResult, Map<number, Float64Array>>();
@@ -39,7 +39,6 @@ function injReaches(sweep: SweepResult, d: number): boolean {
  * plain square root (equal to Math.hypot's within a unit in the last place).
  */
 export function sweepDeviceCurrentsInto(sweep: SweepResult, d: number, b: number, t: number, out: Float64Array): void {
-  const D = sweep.deviceData.base_A.length;
   const T = sweep.types.length;
   const dd = sweep.deviceData;
   // callers loop over devices for one (bus, type): look the override up once per (sweep, bus, type)
@@ -71,11 +70,16 @@ export function sweepDeviceCurrentsInto(sweep: SweepResult, d: number, b: number
     const rot = (shift * Math.PI) / 180;
     const cr = shift === 0 ? 1 : Math.cos(rot);
     const sr = shift === 0 ? 0 : Math.sin(rot);
+    // -X_s[row(b), slot(d)] (see SweepDeviceData.transfer); zero for a bus or device location out of service
+    const slot = dd.transferSlot[d];
+    const row = dd.transferBusRow[b];
+    const part = dd.transferRows * TRANSFER_BLOCK;
+    const at = slot < 0 || row < 0 ? -1 : (slot - (slot % TRANSFER_BLOCK)) * 6 * dd.transferRows + row * TRANSFER_BLOCK + (slot % TRANSFER_BLOCK);
     for (let s = 0; s < 3; s++) {
-      const o = (b * D + d) * 6 + 2 * s;
+      const o = at + 2 * s * part;
       const f = (b * T + t) * 6 + 2 * s;
-      const tr = dd.transfer[o];
-      const ti = dd.transfer[o + 1];
+      const tr = at < 0 ? 0 : -dd.transfer[o];
+      const ti = at < 0 ? 0 : -dd.transfer[o + part];
       const fr = dd.faultSeq_pu[f];
       const fi = dd.faultSeq_pu[f + 1];
       let re = tr * fr - ti * fi;

@@ -2,11 +2,11 @@
 // driving-point impedance (and the branch-pair entries the radial peak factor needs), one solve per device location
 // (reciprocity: the device current for a fault at every bus is c_d^T Z[:, k] = (Z c_d)[k]) and one per inverter
 // unit. Each fault then costs a few complex operations; device currents are kept in linear form (see types.ts):
-//   I_d,s(b, t) = transfer[b, d, s] * If_s(b, t) + sum_j injMap[d, j, s] * inj_s(b, t, j)
+//   I_d,s(b, t) = -X_s[k_b, d] * If_s(b, t) + sum_j injMap[d, j, s] * inj_s(b, t, j),   X_s = Z_s C_s
 // Buses where a sequence network floats (islands of current sources only) or inside a power station unit are solved
 // one by one (overrides).
 import type { CompiledNetwork, EngineMessage, FaultType, SweepOptions, SweepResult } from "../types.ts";
-import { FAULT_TYPES } from "../types.ts";
+import { FAULT_TYPES, TRANSFER_BLOCK } from "../types.ts";
 import type { Cx } from "../network/model.ts";
 import { sequenceSystem, type SequenceSystem } from "../network/sequenceSystem.ts";
 import { compactUnits, loadFaultColumns, loadFaultResponse, solveCompactFault, unitBlock, unitColumns, type CompactFaultInput } from "./compactFault.ts";
@@ -67,7 +67,6 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
   const devices: SweepResult["devices"] = [];
   const base_A = new Float64Array(D);
   const shift_deg = new Float64Array(D);
-  const transfer = new Float64Array(D * B * 6);
   const injMap = new Float64Array(D * J * 6);
   const busNodes = busIds.map((id) => model.busNode.get(id) ?? -1);
   busIds.forEach((id, b) => {
@@ -88,7 +87,7 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
     base_A[d] = (opts.baseMVA * 1000) / (SQRT3 * nd.un_kV);
     shift_deg[d] = nd.shift_deg;
   }
-  deviceTransfers(model, sys, combos, busNodes, transfer, injMap);
+  const layout = deviceTransfers(model, sys, combos, busNodes, injMap);
   // Columns of Z at the inverter nodes (positive and negative sequence).
   const colU = unitColumns(model, cache, sysVariant);
 
@@ -213,7 +212,7 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
     ip_kA,
     xr: xrOut,
     devices,
-    deviceData: { base_A, transfer, faultSeq_pu, injMap, inj_pu, nInj: J, shift_deg, busShift_deg, overrides },
+    deviceData: { base_A, ...layout, faultSeq_pu, injMap, inj_pu, nInj: J, shift_deg, busShift_deg, overrides },
     messages,
   };
 }
@@ -254,78 +253,103 @@ function islandWork(model: EngineInternal["model"], island: number, colU: Comple
   };
 }
 
-/** Columns solved together per block: one cache line of doubles per row of the block. */
-const BLOCK = 8;
+/** Devices solved together (one cache line of doubles per row); the transfer layout is documented in SweepDeviceData. */
+const BLOCK = TRANSFER_BLOCK;
+
+interface TransferLayout {
+  transfer: Float64Array;
+  transferRows: number;
+  transferBusRow: Int32Array;
+  transferSlot: Int32Array;
+}
 
 /**
- * transfer[b, d, s] = -(Z_s c_d)[k_b] and injMap[d, j, s] = (Z_s c_d)[node_j] for every device d with a combination,
- * solving BLOCK devices at a time in each sequence (see solveLdltBlock), then writing the block's three sequences
- * for every bus in one pass (bus-major: a block's values at a bus are one contiguous run). The unit's own injection
- * enters its terminal current with -1. Values equal those of one solve per device and sequence, bit for bit.
+ * X_s = Z_s C_s for the device combinations, BLOCK devices at a time per sequence (see solveLdltBlock), and
+ * injMap[d, j, s] = (Z_s c_d)[node_j]. When the sweep covers most nodes the block solves run in place in the result
+ * (rows = every node in the factor's order): writing them out again bus by bus would cost more than the solves
+ * themselves, most of it in first touches of fresh memory. A sweep of a few buses copies just their rows. The unit's
+ * own injection enters its terminal current with -1. Values equal those of one solve per device and sequence, bit
+ * for bit.
  */
 function deviceTransfers(
   model: EngineInternal["model"],
   sys: [SequenceSystem, SequenceSystem, SequenceSystem],
   combos: (Combination | null)[],
   busNodes: number[],
-  transfer: Float64Array,
   injMap: Float64Array,
-): void {
+): TransferLayout {
   const n = model.nodes.length;
   const D = combos.length;
   const B = busNodes.length;
   const J = model.inverters.length;
   const inv = sys[1].factor.ordering.inv;
-  // Rows of the block for each faulted bus and each inverter node (the ordering is shared by all sequences).
+  const inPlace = 2 * B >= n;
+  const rows = inPlace ? n : B;
+  // Each bus's row in the layout and in the solve (the ordering is shared by all sequences).
   const busRow = new Int32Array(B);
-  for (let b = 0; b < B; b++) busRow[b] = busNodes[b] < 0 ? -1 : inv[busNodes[b]] * BLOCK;
+  const solveRow = new Int32Array(B);
+  for (let b = 0; b < B; b++) {
+    solveRow[b] = busNodes[b] < 0 ? -1 : inv[busNodes[b]];
+    busRow[b] = busNodes[b] < 0 ? -1 : inPlace ? solveRow[b] : b;
+  }
+  // Slots: device locations that see zero-sequence current first, then those that never do (behind a delta
+  // winding), so that whole blocks of the latter skip the zero-sequence solve and its memory.
+  const slot = new Int32Array(D).fill(-1);
+  const bySlot: number[] = [];
+  const seesZero = (d: number) => (combos[d]?.terms[0]?.nodes.length ?? 0) > 0;
+  for (let d = 0; d < D; d++) if (combos[d] && seesZero(d)) bySlot.push(d);
+  for (let d = 0; d < D; d++) if (combos[d] && !seesZero(d)) bySlot.push(d);
+  bySlot.forEach((d, k) => (slot[d] = k));
+  const used = bySlot.length;
+  const blocks = Math.ceil(used / BLOCK);
+  const part = rows * BLOCK;
+  const transfer = new Float64Array(blocks * 6 * part);
   const unitRow = new Int32Array(J);
   for (let j = 0; j < J; j++) unitRow[j] = inv[model.inverters[j].node] * BLOCK;
-  const xs = [0, 1, 2].map(() => ({ re: new Float64Array(n * BLOCK), im: new Float64Array(n * BLOCK) }));
+  const scratch = inPlace ? null : { re: new Float64Array(n * BLOCK), im: new Float64Array(n * BLOCK) };
   const cols = new Int32Array(BLOCK);
-  for (let d0 = 0; d0 < D; ) {
-    // The next BLOCK devices with a combination.
-    let m = 0;
-    for (; d0 < D && m < BLOCK; d0++) if (combos[d0]) cols[m++] = d0;
-    if (m === 0) break;
+  for (let blk = 0; blk < blocks; blk++) {
+    const m = Math.min(BLOCK, used - blk * BLOCK);
+    for (let c = 0; c < m; c++) cols[c] = bySlot[blk * BLOCK + c];
     for (let s = 0; s < 3; s++) {
-      const { re: xr, im: xi } = xs[s];
+      const o = (blk * 3 + s) * 2 * part;
+      const xr = scratch ? scratch.re : transfer.subarray(o, o + part);
+      const xi = scratch ? scratch.im : transfer.subarray(o + part, o + 2 * part);
+      let any = false;
+      for (let c = 0; c < m && !any; c++) any = (combos[cols[c]]?.terms[s]?.nodes.length ?? 0) > 0;
+      // A sequence no device of the block sees stays untouched (zero). Otherwise touch the fresh memory in order
+      // first: that costs a fraction of what the solve's scattered first touches would.
+      if (!any) continue;
       xr.fill(0);
       xi.fill(0);
-      let any = false;
       for (let c = 0; c < m; c++) {
         const tm = combos[cols[c]]?.terms[s];
         if (!tm) continue;
         for (let q = 0; q < tm.nodes.length; q++) {
-          const o = inv[tm.nodes[q]] * BLOCK + c;
-          xr[o] += tm.re[q];
-          xi[o] += tm.im[q];
-          any = true;
+          const at = inv[tm.nodes[q]] * BLOCK + c;
+          xr[at] += tm.re[q];
+          xi[at] += tm.im[q];
         }
       }
-      if (any) solveLdltBlock(sys[s].factor, xr, xi, BLOCK);
+      solveLdltBlock(sys[s].factor, xr, xi, BLOCK);
       for (let c = 0; c < m; c++) {
-        const o = (cols[c] * J) * 6 + 2 * s;
+        const at = (cols[c] * J) * 6 + 2 * s;
         for (let j = 0; j < J; j++) {
-          injMap[o + j * 6] = xr[unitRow[j] + c];
-          injMap[o + j * 6 + 1] = xi[unitRow[j] + c];
+          injMap[at + j * 6] = xr[unitRow[j] + c];
+          injMap[at + j * 6 + 1] = xi[unitRow[j] + c];
         }
       }
-    }
-    const [x0, x1, x2] = xs;
-    for (let b = 0; b < B; b++) {
-      const r = busRow[b];
-      if (r < 0) continue;
-      const row = b * D;
-      for (let c = 0; c < m; c++) {
-        const o = (row + cols[c]) * 6;
-        const q = r + c;
-        transfer[o] = -x0.re[q];
-        transfer[o + 1] = -x0.im[q];
-        transfer[o + 2] = -x1.re[q];
-        transfer[o + 3] = -x1.im[q];
-        transfer[o + 4] = -x2.re[q];
-        transfer[o + 5] = -x2.im[q];
+      if (scratch) {
+        for (let b = 0; b < B; b++) {
+          const r = solveRow[b];
+          if (r < 0) continue;
+          const to = o + b * BLOCK;
+          const from = r * BLOCK;
+          for (let c = 0; c < m; c++) {
+            transfer[to + c] = xr[from + c];
+            transfer[to + part + c] = xi[from + c];
+          }
+        }
       }
     }
   }
@@ -334,6 +358,7 @@ function deviceTransfers(
     if (!combo || combo.unit < 0) continue;
     for (let s = 1; s < 3; s++) injMap[(d * J + combo.unit) * 6 + 2 * s] -= 1;
   }
+  return { transfer, transferRows: rows, transferBusRow: busRow, transferSlot: slot };
 }
 
 /** kappa at node k from the inverse subset: radial branch sum (entries Z[m,k] of the branches at k) or method B. */

@@ -8,6 +8,7 @@ import type { ComplexVec, LinearFault } from "./solveLinearFault.ts";
 import { sequenceSystem, zColumn, type Variant } from "../network/sequenceSystem.ts";
 import type { EngineCache } from "../network/engineCache.ts";
 import { FaultCoupledResponse, type UnitBlock } from "../inverter/unitResponse.ts";
+import { FaultAffine } from "./faultAffine.ts";
 
 export type { UnitBlock };
 
@@ -134,24 +135,27 @@ export function loadFaultColumns(r: FaultCoupledResponse, p: CompactFaultInput):
 
 /**
  * Loads the fault type's part of the fault-coupled response (see unitResponse.ts), its columns being loaded
- * (loadFaultColumns): the fault currents' affine dependence on the open-circuit voltages E1, E2 at the fault, from
- * three evaluations of the fault equations. `g` is scratch space (8 numbers).
+ * (loadFaultColumns): the fault currents' linear dependence on the open-circuit voltages E1, E2 at the fault (see
+ * faultAffine.ts). `g` is scratch space (8 numbers).
  */
-export function loadFaultResponse(r: FaultCoupledResponse, p: CompactFaultInput, g: Float64Array = new Float64Array(8)): FaultCoupledResponse {
-  const c = p.c;
-  const f = (e1r: number, e2r: number) => faultEquations(p.type, [p.zeroView, { floating: false, e: { re: e1r, im: 0 }, z: p.z1kk }, { floating: false, e: { re: e2r, im: 0 }, z: p.z2kk }], p.zf).i;
-  const i0 = f(c, 0);
-  const iE1 = f(c + 1, 0);
-  const iE2 = f(c, 1);
-  g[0] = iE1[1].re - i0[1].re;
-  g[1] = iE1[1].im - i0[1].im;
-  g[2] = iE1[2].re - i0[2].re;
-  g[3] = iE1[2].im - i0[2].im;
-  g[4] = iE2[1].re - i0[1].re;
-  g[5] = iE2[1].im - i0[1].im;
-  g[6] = iE2[2].re - i0[2].re;
-  g[7] = iE2[2].im - i0[2].im;
-  r.setFault(c, i0[1].re, i0[1].im, i0[2].re, i0[2].im, g);
+export function loadFaultResponse(r: FaultCoupledResponse, p: CompactFaultInput, g: Float64Array = new Float64Array(8), aff: FaultAffine = new FaultAffine()): FaultCoupledResponse {
+  aff.load(p.type, p.zeroView.floating ? null : p.zeroView.z, p.z1kk, p.z2kk, p.zf);
+  return responseFromAffine(r, aff, p.c, g);
+}
+
+/** The response's fault part from a loaded fault map: currents with no injection (E1 = c, E2 = 0) and G = dI/dE. */
+export function responseFromAffine(r: FaultCoupledResponse, aff: FaultAffine, c: number, g: Float64Array): FaultCoupledResponse {
+  const a = aff.a;
+  // a[(s * 2 + q) * 2 + re/im] = dI_s / dE_(q+1); g: column E1 (I1, I2), then column E2 (I1, I2)
+  g[0] = a[4];
+  g[1] = a[5];
+  g[2] = a[8];
+  g[3] = a[9];
+  g[4] = a[6];
+  g[5] = a[7];
+  g[6] = a[10];
+  g[7] = a[11];
+  r.setFault(c, a[4] * c, a[5] * c, a[8] * c, a[9] * c, g);
   return r;
 }
 

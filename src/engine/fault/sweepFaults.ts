@@ -9,18 +9,18 @@ import type { CompiledNetwork, EngineMessage, FaultType, SweepOptions, SweepResu
 import { FAULT_TYPES, TRANSFER_BLOCK } from "../types.ts";
 import type { Cx } from "../network/model.ts";
 import { sequenceSystem, type SequenceSystem } from "../network/sequenceSystem.ts";
-import { compactUnits, loadFaultColumns, loadFaultResponse, solveCompactFault, unitBlock, unitColumns, type CompactFaultInput } from "./compactFault.ts";
+import { compactUnits, loadFaultColumns, responseFromAffine, unitBlock, unitColumns, type CompactFaultInput } from "./compactFault.ts";
+import { FaultAffine, faultMagnitudesOf } from "./faultAffine.ts";
 import { FaultCoupledResponse } from "../inverter/unitResponse.ts";
 import { InjectionWork, iterateInjections } from "../inverter/refinedIteration.ts";
 import { solveLdltBlock } from "../sparse/ldlt.ts";
 import { inverseSubset, type InverseSubset } from "../sparse/takahashi.ts";
 import { deviceCombination, type Combination } from "./deviceCombination.ts";
 import type { SeqView } from "./faultEquations.ts";
-import { faultMagnitudes } from "./faultCurrentMagnitude.ts";
 import { voltageFactor, peakFactor } from "../iec60909/factors.ts";
 import { isRadialIsland } from "./peakCurrent.ts";
 import { solveFault, type EngineInternal } from "./solveFault.ts";
-import type { ComplexVec, LinearFault } from "./solveLinearFault.ts";
+import type { ComplexVec } from "./solveLinearFault.ts";
 
 const SQRT3 = Math.sqrt(3);
 
@@ -108,6 +108,8 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
     if (br.to !== br.from) atNode[br.to].branches.push(i);
   });
   model.shunts.forEach((sh, i) => atNode[sh.node].shunts.push(i));
+  // Per-fault scratch: the fault map, its sequence currents and their magnitudes.
+  const fw = { aff: new FaultAffine(), seq: new Float64Array(6), mags: { ikss: 0, maxPhase: 0 } };
   const progressEvery = Math.max(1, Math.floor(B / 50));
   let cancelled = false;
 
@@ -134,17 +136,19 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
     const zBase = (un * un) / opts.baseMVA;
     const zf: Cx = { re: opts.faultR_ohm / zBase, im: opts.faultX_ohm / zBase };
     const zkk = [0, 1, 2].map((s) => ({ re: tk[s].re[k], im: tk[s].im[k] }));
-    const zeroView: SeqView = sys[0].floating[sys[0].comp[k]] ? { floating: true, j: { re: 0, im: 0 } } : { floating: false, e: { re: 0, im: 0 }, z: zkk[0] };
+    const zeroFloats = sys[0].floating[sys[0].comp[k]];
+    const zeroView: SeqView = zeroFloats ? { floating: true, j: { re: 0, im: 0 } } : { floating: false, e: { re: 0, im: 0 }, z: zkk[0] };
     let isl = islandUnits.get(node.island);
     if (!isl) {
       isl = islandWork(model, node.island, colU);
       islandUnits.set(node.island, isl);
     }
-    const { unitIdx, iecInj, noInj, work } = isl;
+    const { unitIdx, iecInj, noInj, work, response } = isl;
     const Jl = unitIdx.length;
     const cin: CompactFaultInput = { model, unitIdx, colU, k, type: "3ph", zf, c, zeroView, z1kk: zkk[1], z2kk: zkk[2], block: isl.block };
     isl.vpre.fill(c);
-    if (Jl > 0 && used === "refined") loadFaultColumns(isl.response, cin);
+    // Z_s[u_j, k]: for the refined response, and for the open-circuit voltages the injections make at the fault.
+    if (Jl > 0) loadFaultColumns(response, cin);
     let ik3 = -1;
     // IEC 60909 converter currents depend on the faulted bus only (arg I_j = -arg Z_kj): once for all fault types.
     if (Jl > 0 && used === "iec") {
@@ -155,34 +159,42 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
         iecInj.im[l] = u.iMax_pu * u.ir_pu * Math.sin(ang);
       });
     }
+    const { aff, seq, mags } = fw;
     for (let t = 0; t < T; t++) {
       const type = types[t];
-      cin.type = type;
-      let fp: LinearFault;
+      aff.load(type, zeroFloats ? null : zkk[0], zkk[1], zkk[2], zf);
       let inj1: ComplexVec = noInj;
       let inj2: ComplexVec = noInj;
-      if (Jl === 0) fp = solveCompactFault(cin, inj1, inj2, true);
-      else if (used === "iec") {
-        inj1 = iecInj;
-        fp = solveCompactFault(cin, inj1, inj2, true);
-      } else {
-        // Iterate on the closed-form response at the unit nodes; the final solve only makes the fault currents.
-        const report = iterateInjections(isl.units, loadFaultResponse(isl.response, cin, isl.g), isl.vpre, work);
+      if (Jl > 0 && used === "iec") inj1 = iecInj;
+      else if (Jl > 0) {
+        // Iterate on the closed-form response at the unit nodes; then only the fault currents are needed.
+        const report = iterateInjections(isl.units, responseFromAffine(response, aff, c, isl.g), isl.vpre, work);
         // Per-unit injections (grid-forming: the limiting correction; the shunt part is in the transfer).
         inj1 = isl.x1;
         inj2 = isl.x2;
-        fp = solveCompactFault(cin, inj1, inj2, true);
         if (!report.converged) messages.push({ level: "warning", code: "inverter-not-converged", text: `${type} fault at bus ${busIds[b]}: the refined inverter iteration did not converge` });
       }
-      const mags = faultMagnitudes(type, fp.i);
+      // Open-circuit voltages at the fault with the injections: E1 = c + sum Z1[k, u] x1_u, E2 = sum Z2[k, u] x2_u.
+      let e1r = c;
+      let e1i = 0;
+      let e2r = 0;
+      let e2i = 0;
+      for (let l = 0; l < Jl; l++) {
+        const ar = response.z1r[l];
+        const ai = response.z1i[l];
+        const br = response.z2r[l];
+        const bi = response.z2i[l];
+        e1r += ar * inj1.re[l] - ai * inj1.im[l];
+        e1i += ar * inj1.im[l] + ai * inj1.re[l];
+        e2r += br * inj2.re[l] - bi * inj2.im[l];
+        e2i += br * inj2.im[l] + bi * inj2.re[l];
+      }
+      aff.apply(e1r, e1i, e2r, e2i, seq);
+      faultMagnitudesOf(type, seq, mags);
       ikss_kA[b * T + t] = mags.ikss * iBase_kA;
       maxPhase_kA[b * T + t] = mags.maxPhase * iBase_kA;
       if (type === "3ph") ik3 = mags.ikss * iBase_kA;
-      for (let s = 0; s < 3; s++) {
-        const o = (b * T + t) * 6 + 2 * s;
-        faultSeq_pu[o] = fp.i[s].re;
-        faultSeq_pu[o + 1] = fp.i[s].im;
-      }
+      faultSeq_pu.set(seq, (b * T + t) * 6);
       for (let l = 0; l < Jl; l++) {
         const o = ((b * T + t) * J + unitIdx[l]) * 6;
         inj_pu[o + 2] = inj1.re[l];

@@ -17,9 +17,11 @@ export function median(xs: number[]): number {
  * Runs fn `warmup` times untimed, then `runs` times timed with performance.now(); returns the median.
  * A time budget keeps a slow function from stalling the benchmark: warm-up stops after a quarter of the budget,
  * timed runs stop once the budget is spent (at least one timed run), and when a single call takes more than half the
- * budget that first (cold) call is the only sample.
+ * budget that first (cold) call is the only sample. `collect` runs a full garbage collection (untimed, when the
+ * process has --expose-gc) before every call, so that no call pays for the garbage of earlier ones or of what the
+ * benchmark did before.
  */
-export function timeMedian(fn: () => unknown, opts: { warmup?: number; runs?: number; budget_ms?: number } = {}): Timing {
+export function timeMedian(fn: () => unknown, opts: { warmup?: number; runs?: number; budget_ms?: number; collect?: boolean } = {}): Timing {
   const warmup = opts.warmup ?? 2;
   const runs = Math.max(1, opts.runs ?? 7);
   const budget = opts.budget_ms ?? 20000;
@@ -32,7 +34,9 @@ export function timeMedian(fn: () => unknown, opts: { warmup?: number; runs?: nu
     if (i === 0 && dt > budget / 2) return { median_ms: dt, min_ms: dt, runs: 1 };
   }
   const timedStart = performance.now();
+  const gc = opts.collect ? (globalThis as { gc?: () => void }).gc : undefined;
   while (t.length < runs && (t.length === 0 || performance.now() - timedStart < budget)) {
+    gc?.();
     const t0 = performance.now();
     fn();
     t.push(performance.now() - t0);

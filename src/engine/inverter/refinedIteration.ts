@@ -282,15 +282,18 @@ function step(units: InverterUnit[], resp: UnitResponse, w: InjectionWork, vpre:
   targets(units, w, vpre);
 }
 
-/** Largest |T(x) - x| over the units, in units of each one's rated current. */
+/** Largest |T(x) - x| over the units, in units of each one's rated current (one square root, of the largest square). */
 function residualOf(units: InverterUnit[], w: InjectionWork): number {
-  let residual = 0;
+  let worst = 0;
   for (let j = 0; j < units.length; j++) {
-    const r1 = mag(w.t1r[j] - w.x1r[j], w.t1i[j] - w.x1i[j]);
-    const r2 = mag(w.t2r[j] - w.x2r[j], w.t2i[j] - w.x2i[j]);
-    residual = Math.max(residual, r1 / units[j].ir_pu, r2 / units[j].ir_pu);
+    const ar = w.t1r[j] - w.x1r[j];
+    const ai = w.t1i[j] - w.x1i[j];
+    const br = w.t2r[j] - w.x2r[j];
+    const bi = w.t2i[j] - w.x2i[j];
+    const ir = units[j].ir_pu;
+    worst = Math.max(worst, (Math.max(ar * ar + ai * ai, br * br + bi * bi) / ir) / ir);
   }
-  return residual;
+  return Math.sqrt(worst);
 }
 
 /**

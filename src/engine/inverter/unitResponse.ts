@@ -166,25 +166,30 @@ export class FaultCoupledResponse implements UnitResponse {
     const f1i = this.g11r * y1i + this.g11i * y1r + (this.g12r * y2i + this.g12i * y2r);
     const f2r = this.g21r * y1r - this.g21i * y1i + (this.g22r * y2r - this.g22i * y2i);
     const f2i = this.g21r * y1i + this.g21i * y1r + (this.g22r * y2i + this.g22i * y2r);
+    // Z_UU x: Z_UU is symmetric (reciprocity), so row j is contiguous at j * J; positive sequence accumulated in
+    // registers row by row. The negative-sequence injections are mostly zero (only grid-forming units and units
+    // with negative-sequence control make them): column by column, skipping zeros.
+    const b = this.block;
+    const zr1 = b.z1r;
+    const zi1 = b.z1i;
     for (let j = 0; j < J; j++) {
-      v1r[j] = this.a1r[j] - (z1r[j] * f1r - z1i[j] * f1i);
-      v1i[j] = this.a1i[j] - (z1r[j] * f1i + z1i[j] * f1r);
+      let sr = this.a1r[j] - (z1r[j] * f1r - z1i[j] * f1i);
+      let si = this.a1i[j] - (z1r[j] * f1i + z1i[j] * f1r);
+      const o = j * J;
+      for (let q = 0; q < J; q++) {
+        const zr = zr1[o + q];
+        const zi = zi1[o + q];
+        const pr = x1r[q];
+        const pi = x1i[q];
+        sr += zr * pr - zi * pi;
+        si += zr * pi + zi * pr;
+      }
+      v1r[j] = sr;
+      v1i[j] = si;
       v2r[j] = this.a2r[j] - (z2r[j] * f2r - z2i[j] * f2i);
       v2i[j] = this.a2i[j] - (z2r[j] * f2i + z2i[j] * f2r);
     }
-    const b = this.block;
     for (let q = 0; q < J; q++) {
-      const pr = x1r[q];
-      const pi = x1i[q];
-      if (pr !== 0 || pi !== 0) {
-        const o = q * J;
-        for (let j = 0; j < J; j++) {
-          const zr = b.z1r[o + j];
-          const zi = b.z1i[o + j];
-          v1r[j] += zr * pr - zi * pi;
-          v1i[j] += zr * pi + zi * pr;
-        }
-      }
       const nr = x2r[q];
       const ni = x2i[q];
       if (nr !== 0 || ni !== 0) {

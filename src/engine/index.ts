@@ -2,7 +2,7 @@
 export * from "./types.ts";
 export { compileNetwork } from "./network/compileNetwork.ts";
 export { solveFault } from "./fault/solveFault.ts";
-export { sweepFaults, sweepFaultsAsync } from "./fault/sweepFaults.ts";
+export { sweepFaults, sweepFaultsAsync, planSweep, allocateSweep, sweepTransfers, sweepBuses, assembleSweep, counter, SWEEP_CHUNK, type Claim, type SweepPlan, type SweepArrays, type SweepPartOutcome } from "./fault/sweepFaults.ts";
 export { sweepDeviceCurrents, sweepDeviceCurrentsInto } from "./fault/sweepDeviceCurrents.ts";
 export { runLoadFlow } from "./loadflow/runLoadFlow.ts";
 export { loadCurrents } from "./loadflow/loadCurrents.ts";

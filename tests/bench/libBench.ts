@@ -44,6 +44,20 @@ export function timeMedian(fn: () => unknown, opts: { warmup?: number; runs?: nu
   return { median_ms: median(t), min_ms: Math.min(...t), runs: t.length };
 }
 
+/** timeMedian for an asynchronous function (each call awaited before the next). */
+export async function timeMedianAsync(fn: () => Promise<unknown>, opts: { warmup?: number; runs?: number; collect?: boolean } = {}): Promise<Timing> {
+  const gc = opts.collect ? (globalThis as { gc?: () => void }).gc : undefined;
+  for (let i = 0; i < (opts.warmup ?? 2); i++) await fn();
+  const t: number[] = [];
+  for (let i = 0; i < Math.max(1, opts.runs ?? 7); i++) {
+    gc?.();
+    const t0 = performance.now();
+    await fn();
+    t.push(performance.now() - t0);
+  }
+  return { median_ms: median(t), min_ms: Math.min(...t), runs: t.length };
+}
+
 const fmt = (v: number) => (Math.abs(v) >= 100 ? v.toFixed(0) : Math.abs(v) >= 10 ? v.toFixed(1) : v.toPrecision(3));
 
 /** An informational figure. */

@@ -9,14 +9,13 @@ import type { CompiledNetwork, EngineMessage, FaultType, SweepOptions, SweepResu
 import { FAULT_TYPES, TRANSFER_BLOCK } from "../types.ts";
 import type { Cx } from "../network/model.ts";
 import { sequenceSystem, type SequenceSystem } from "../network/sequenceSystem.ts";
-import { compactUnits, loadFaultColumns, responseFromAffine, unitBlock, unitColumns, type CompactFaultInput } from "./compactFault.ts";
+import { compactUnits, responseFromAffine, unitBlock, unitColumns } from "./compactFault.ts";
 import { FaultAffine, faultMagnitudesOf } from "./faultAffine.ts";
 import { FaultCoupledResponse } from "../inverter/unitResponse.ts";
 import { InjectionWork, iterateInjections } from "../inverter/refinedIteration.ts";
 import { solveLdltBlock } from "../sparse/ldlt.ts";
 import { inverseSubset, type InverseSubset } from "../sparse/takahashi.ts";
 import { deviceCombination, type Combination } from "./deviceCombination.ts";
-import type { SeqView } from "./faultEquations.ts";
 import { voltageFactor, peakFactor } from "../iec60909/factors.ts";
 import { isRadialIsland } from "./peakCurrent.ts";
 import { solveFault, type EngineInternal } from "./solveFault.ts";
@@ -48,6 +47,65 @@ export async function sweepFaultsAsync(network: CompiledNetwork, options: SweepO
 
 /** The sweep as steps: yields the fraction done every chunk of buses and receives whether to go on. */
 function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator<number, SweepResult, boolean> {
+  const plan = planSweep(network, options);
+  const arrays = allocateSweep(plan, (n) => new Float64Array(n));
+  sweepTransfers(plan, arrays, counter());
+  const part = yield* sweepBusSteps(network, plan, arrays, counter());
+  if (part.cancelled) part.messages.push({ level: "info", code: "cancelled", text: "Sweep cancelled before it finished" });
+  else options.onProgress?.(1);
+  return assembleSweep(network, plan, arrays, [part]);
+}
+
+/**
+ * Everything the parts of one sweep agree on, worked out from the network and the options alone (so that every
+ * thread taking part derives the same plan): buses, fault types, device locations, sequence systems, the transfer
+ * layout and the sizes of the result's arrays.
+ */
+export interface SweepPlan {
+  busIds: string[];
+  busNodes: number[];
+  types: FaultType[];
+  locs: { element: string; end: "from" | "to" | "terminal" }[];
+  devices: SweepResult["devices"];
+  combos: (Combination | null)[];
+  base_A: Float64Array;
+  shift_deg: Float64Array;
+  used: "iec" | "refined";
+  sysVariant: "iec" | "refined";
+  /** Node of each inverter unit. */
+  unitNodes: number[];
+  sys: [SequenceSystem, SequenceSystem, SequenceSystem];
+  tk: InverseSubset[];
+  /** Warnings about buses and device locations out of service. */
+  messages: EngineMessage[];
+  layout: TransferLayout;
+  /** Device blocks of the transfer (BLOCK locations each). */
+  blocks: number;
+  /** Length of every array of the result that a part writes (see SweepArrays). */
+  sizes: Record<keyof SweepArrays, number>;
+}
+
+/** The result's arrays that the parts fill: transfer and injMap by device block, the rest by bus. */
+export interface SweepArrays {
+  transfer: Float64Array;
+  injMap: Float64Array;
+  ikss_kA: Float64Array;
+  maxPhase_kA: Float64Array;
+  ip_kA: Float64Array;
+  xr: Float64Array;
+  faultSeq_pu: Float64Array;
+  inj_pu: Float64Array;
+  busShift_deg: Float64Array;
+}
+
+/** What a part found besides its arrays. */
+export interface SweepPartOutcome {
+  messages: EngineMessage[];
+  overrides: SweepResult["deviceData"]["overrides"];
+  cancelled: boolean;
+}
+
+export function planSweep(network: CompiledNetwork, options: SweepOptions = {}): SweepPlan {
   const { model, cache } = network.internal as EngineInternal;
   const opts = network.options;
   const types: FaultType[] = options.types ? [...options.types] : [...FAULT_TYPES];
@@ -67,7 +125,6 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
   const devices: SweepResult["devices"] = [];
   const base_A = new Float64Array(D);
   const shift_deg = new Float64Array(D);
-  const injMap = new Float64Array(D * J * 6);
   const busNodes = busIds.map((id) => model.busNode.get(id) ?? -1);
   busIds.forEach((id, b) => {
     if (busNodes[b] < 0) messages.push({ level: "warning", code: "not-in-service", text: `Bus ${id}: not in service in this scenario (or unknown); its faults are zero` });
@@ -87,17 +144,107 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
     base_A[d] = (opts.baseMVA * 1000) / (SQRT3 * nd.un_kV);
     shift_deg[d] = nd.shift_deg;
   }
-  const layout = deviceTransfers(model, sys, combos, busNodes, injMap);
+  const layout = transferLayout(model.nodes.length, sys[1].factor.ordering.inv, combos, busNodes);
+  const blocks = Math.ceil(layout.bySlot.length / BLOCK);
+  const sizes: Record<keyof SweepArrays, number> = {
+    transfer: blocks * 6 * layout.rows * BLOCK,
+    injMap: D * J * 6,
+    ikss_kA: B * T,
+    maxPhase_kA: B * T,
+    ip_kA: B,
+    xr: B,
+    faultSeq_pu: B * T * 6,
+    inj_pu: B * T * J * 6,
+    busShift_deg: B,
+  };
+  return { busIds, busNodes, types, locs, devices, combos, base_A, shift_deg, used, sysVariant, unitNodes: model.inverters.map((u) => u.node), sys, tk, messages, layout, blocks, sizes };
+}
+
+/** The arrays of a plan, each made by `make` (plain or shared memory), all zero. */
+export function allocateSweep(plan: SweepPlan, make: (length: number) => Float64Array): SweepArrays {
+  const z = plan.sizes;
+  return {
+    transfer: make(z.transfer),
+    injMap: make(z.injMap),
+    ikss_kA: make(z.ikss_kA),
+    maxPhase_kA: make(z.maxPhase_kA),
+    ip_kA: make(z.ip_kA),
+    xr: make(z.xr),
+    faultSeq_pu: make(z.faultSeq_pu),
+    inj_pu: make(z.inj_pu),
+    busShift_deg: make(z.busShift_deg),
+  };
+}
+
+/** The result from the plan, its filled arrays and the outcomes of every part. */
+export function assembleSweep(network: CompiledNetwork, plan: SweepPlan, a: SweepArrays, parts: SweepPartOutcome[]): SweepResult {
+  const { model } = network.internal as EngineInternal;
+  const overrides = parts.flatMap((p) => p.overrides).sort((x, y) => x.b - y.b || x.t - y.t);
+  const messages = [...plan.messages, ...parts.flatMap((p) => p.messages)];
+  const { transferRows, transferBusRow, transferSlot } = plan.layout;
+  return {
+    scenario: network.scenario,
+    options: { ...network.options, inverterModel: plan.used },
+    busIds: plan.busIds,
+    types: plan.types,
+    ikss_kA: a.ikss_kA,
+    maxPhase_kA: a.maxPhase_kA,
+    ip_kA: a.ip_kA,
+    xr: a.xr,
+    devices: plan.devices,
+    deviceData: {
+      base_A: plan.base_A,
+      transfer: a.transfer,
+      transferRows,
+      transferBusRow,
+      transferSlot,
+      faultSeq_pu: a.faultSeq_pu,
+      injMap: a.injMap,
+      inj_pu: a.inj_pu,
+      nInj: model.inverters.length,
+      shift_deg: plan.shift_deg,
+      busShift_deg: a.busShift_deg,
+      overrides,
+    },
+    messages,
+  };
+}
+
+/** Hands out work items 0, 1, 2, ... one at a time; threads sharing a sweep share one (see SweepPool in src/cli). */
+export type Claim = () => number;
+
+/** A claim for one thread alone. */
+export function counter(): Claim {
+  let next = 0;
+  return () => next++;
+}
+
+/** Runs of buses a claim hands out at a time (see sweepBuses). */
+export const SWEEP_CHUNK = 64;
+
+/**
+ * The faults of the runs of SWEEP_CHUNK buses that `claim` hands this thread (run c: buses c * SWEEP_CHUNK up to the
+ * next run), synchronously, until it hands out a run past the last bus.
+ */
+export function sweepBuses(network: CompiledNetwork, plan: SweepPlan, arrays: SweepArrays, claim: Claim): SweepPartOutcome {
+  const steps = sweepBusSteps(network, plan, arrays, claim);
+  let r = steps.next();
+  while (!r.done) r = steps.next(true);
+  return r.value;
+}
+
+/** The faults of the claimed runs of buses, as steps that yield the fraction done and receive whether to go on. */
+function* sweepBusSteps(network: CompiledNetwork, plan: SweepPlan, arrays: SweepArrays, claim: Claim): Generator<number, SweepPartOutcome, boolean> {
+  const { model, cache } = network.internal as EngineInternal;
+  const opts = network.options;
+  const { busIds, busNodes, types, locs, devices, used, sysVariant, sys, tk } = plan;
+  const { ikss_kA, maxPhase_kA, ip_kA, xr: xrOut, faultSeq_pu, inj_pu, busShift_deg } = arrays;
+  const T = types.length;
+  const B = busIds.length;
+  const J = model.inverters.length;
+  const messages: EngineMessage[] = [];
   // Columns of Z at the inverter nodes (positive and negative sequence).
   const colU = unitColumns(model, cache, sysVariant);
-
-  const ikss_kA = new Float64Array(B * T);
-  const maxPhase_kA = new Float64Array(B * T);
-  const ip_kA = new Float64Array(B);
-  const xrOut = new Float64Array(B);
-  const faultSeq_pu = new Float64Array(B * T * 6);
-  const inj_pu = new Float64Array(B * T * J * 6);
-  const busShift_deg = new Float64Array(B);
   const overrides: SweepResult["deviceData"]["overrides"] = [];
   const radial = new Map<number, boolean>();
   const islandUnits = new Map<number, IslandUnits>();
@@ -109,124 +256,124 @@ function* sweepSteps(network: CompiledNetwork, options: SweepOptions): Generator
   });
   model.shunts.forEach((sh, i) => atNode[sh.node].shunts.push(i));
   // Per-fault scratch: the fault map, its sequence currents and their magnitudes.
-  const fw = { aff: new FaultAffine(), seq: new Float64Array(6), mags: { ikss: 0, maxPhase: 0 } };
+  const fw = { aff: new FaultAffine(), seq: new Float64Array(6), mags: { ikss: 0, maxPhase: 0 }, zf: { re: 0, im: 0 }, z0: { re: 0, im: 0 }, z1: { re: 0, im: 0 }, z2: { re: 0, im: 0 } };
   const progressEvery = Math.max(1, Math.floor(B / 50));
   let cancelled = false;
-
-  for (let b = 0; b < B; b++) {
-    if (b % progressEvery === 0 && b > 0 && !(yield b / B)) {
-      cancelled = true;
-      break;
-    }
-    const k = busNodes[b];
-    if (k < 0) continue;
-    const node = model.nodes[k];
-    busShift_deg[b] = node.shift_deg;
-    if (!model.islandLive[node.island]) continue;
-    const un = node.un_kV;
-    const iBase_kA = opts.baseMVA / (SQRT3 * un);
-    // Islands of current sources only, and nodes inside a power station unit (their own corrections, see
-    // locateFault), are solved one fault at a time.
-    if (sys[1].floating[sys[1].comp[k]] || sys[2].floating[sys[2].comp[k]] || model.inUnit?.has(k)) {
-      overrideBus(network, busIds[b], b, types, locs, devices, { ikss_kA, maxPhase_kA, ip_kA, xr: xrOut, overrides }, used);
-      continue;
-    }
-    const iec = opts.method === "iec60909";
-    const c = iec ? voltageFactor(un, opts.limit, opts.lvTolerance_pct) : opts.prefault_pu;
-    const zBase = (un * un) / opts.baseMVA;
-    const zf: Cx = { re: opts.faultR_ohm / zBase, im: opts.faultX_ohm / zBase };
-    const zkk = [0, 1, 2].map((s) => ({ re: tk[s].re[k], im: tk[s].im[k] }));
-    const zeroFloats = sys[0].floating[sys[0].comp[k]];
-    const zeroView: SeqView = zeroFloats ? { floating: true, j: { re: 0, im: 0 } } : { floating: false, e: { re: 0, im: 0 }, z: zkk[0] };
-    let isl = islandUnits.get(node.island);
-    if (!isl) {
-      isl = islandWork(model, node.island, colU);
-      islandUnits.set(node.island, isl);
-    }
-    const { unitIdx, iecInj, noInj, work, response } = isl;
-    const Jl = unitIdx.length;
-    const cin: CompactFaultInput = { model, unitIdx, colU, k, type: "3ph", zf, c, zeroView, z1kk: zkk[1], z2kk: zkk[2], block: isl.block };
-    isl.vpre.fill(c);
-    // Z_s[u_j, k]: for the refined response, and for the open-circuit voltages the injections make at the fault.
-    if (Jl > 0) loadFaultColumns(response, cin);
-    let ik3 = -1;
-    // IEC 60909 converter currents depend on the faulted bus only (arg I_j = -arg Z_kj): once for all fault types.
-    if (Jl > 0 && used === "iec") {
-      unitIdx.forEach((g, l) => {
-        const u = model.inverters[g];
-        const ang = -Math.atan2(colU[1][g].im[k], colU[1][g].re[k]);
-        iecInj.re[l] = u.iMax_pu * u.ir_pu * Math.cos(ang);
-        iecInj.im[l] = u.iMax_pu * u.ir_pu * Math.sin(ang);
-      });
-    }
-    const { aff, seq, mags } = fw;
-    for (let t = 0; t < T; t++) {
-      const type = types[t];
-      aff.load(type, zeroFloats ? null : zkk[0], zkk[1], zkk[2], zf);
-      let inj1: ComplexVec = noInj;
-      let inj2: ComplexVec = noInj;
-      if (Jl > 0 && used === "iec") inj1 = iecInj;
-      else if (Jl > 0) {
-        // Iterate on the closed-form response at the unit nodes; then only the fault currents are needed.
-        const report = iterateInjections(isl.units, responseFromAffine(response, aff, c, isl.g), isl.vpre, work);
-        // Per-unit injections (grid-forming: the limiting correction; the shunt part is in the transfer).
-        inj1 = isl.x1;
-        inj2 = isl.x2;
-        if (!report.converged) messages.push({ level: "warning", code: "inverter-not-converged", text: `${type} fault at bus ${busIds[b]}: the refined inverter iteration did not converge` });
+  let done = 0;
+  runs: for (let run = claim(); run * SWEEP_CHUNK < B; run = claim())
+    for (let b = run * SWEEP_CHUNK, end = Math.min(B, b + SWEEP_CHUNK); b < end; b++, done++) {
+      if (done > 0 && done % progressEvery === 0 && !(yield done / B)) {
+        cancelled = true;
+        break runs;
       }
-      // Open-circuit voltages at the fault with the injections: E1 = c + sum Z1[k, u] x1_u, E2 = sum Z2[k, u] x2_u.
-      let e1r = c;
-      let e1i = 0;
-      let e2r = 0;
-      let e2i = 0;
+      const k = busNodes[b];
+      if (k < 0) continue;
+      const node = model.nodes[k];
+      busShift_deg[b] = node.shift_deg;
+      if (!model.islandLive[node.island]) continue;
+      const un = node.un_kV;
+      const iBase_kA = opts.baseMVA / (SQRT3 * un);
+      // Islands of current sources only, and nodes inside a power station unit (their own corrections, see
+      // locateFault), are solved one fault at a time.
+      if (sys[1].floating[sys[1].comp[k]] || sys[2].floating[sys[2].comp[k]] || model.inUnit?.has(k)) {
+        overrideBus(network, busIds[b], b, types, locs, devices, { ikss_kA, maxPhase_kA, ip_kA, xr: xrOut, overrides }, used);
+        continue;
+      }
+      const iec = opts.method === "iec60909";
+      const c = iec ? voltageFactor(un, opts.limit, opts.lvTolerance_pct) : opts.prefault_pu;
+      const zBase = (un * un) / opts.baseMVA;
+      // Per-bus values in reused records (the sweep allocates nothing per fault).
+      const { zf, z0, z1, z2 } = fw;
+      zf.re = opts.faultR_ohm / zBase;
+      zf.im = opts.faultX_ohm / zBase;
+      z0.re = tk[0].re[k];
+      z0.im = tk[0].im[k];
+      z1.re = tk[1].re[k];
+      z1.im = tk[1].im[k];
+      z2.re = tk[2].re[k];
+      z2.im = tk[2].im[k];
+      const zeroFloats = sys[0].floating[sys[0].comp[k]];
+      let isl = islandUnits.get(node.island);
+      if (!isl) {
+        isl = islandWork(model, node.island, colU);
+        islandUnits.set(node.island, isl);
+      }
+      const { unitIdx, iecInj, noInj, work, response } = isl;
+      const Jl = unitIdx.length;
+      isl.vpre.fill(c);
+      // Z_s[u_j, k] (reciprocity): for the refined response, and for the open-circuit voltages the injections make
+      // at the fault.
       for (let l = 0; l < Jl; l++) {
-        const ar = response.z1r[l];
-        const ai = response.z1i[l];
-        const br = response.z2r[l];
-        const bi = response.z2i[l];
-        e1r += ar * inj1.re[l] - ai * inj1.im[l];
-        e1i += ar * inj1.im[l] + ai * inj1.re[l];
-        e2r += br * inj2.re[l] - bi * inj2.im[l];
-        e2i += br * inj2.im[l] + bi * inj2.re[l];
+        const u = unitIdx[l];
+        response.z1r[l] = colU[1][u].re[k];
+        response.z1i[l] = colU[1][u].im[k];
+        response.z2r[l] = colU[2][u].re[k];
+        response.z2i[l] = colU[2][u].im[k];
       }
-      aff.apply(e1r, e1i, e2r, e2i, seq);
-      faultMagnitudesOf(type, seq, mags);
-      ikss_kA[b * T + t] = mags.ikss * iBase_kA;
-      maxPhase_kA[b * T + t] = mags.maxPhase * iBase_kA;
-      if (type === "3ph") ik3 = mags.ikss * iBase_kA;
-      faultSeq_pu.set(seq, (b * T + t) * 6);
-      for (let l = 0; l < Jl; l++) {
-        const o = ((b * T + t) * J + unitIdx[l]) * 6;
-        inj_pu[o + 2] = inj1.re[l];
-        inj_pu[o + 3] = inj1.im[l];
-        inj_pu[o + 4] = inj2.re[l];
-        inj_pu[o + 5] = inj2.im[l];
+      let ik3 = -1;
+      // IEC 60909 converter currents depend on the faulted bus only (arg I_j = -arg Z_kj): once for all fault types.
+      if (Jl > 0 && used === "iec") {
+        for (let l = 0; l < Jl; l++) {
+          const u = model.inverters[unitIdx[l]];
+          const ang = -Math.atan2(response.z1i[l], response.z1r[l]);
+          iecInj.re[l] = u.iMax_pu * u.ir_pu * Math.cos(ang);
+          iecInj.im[l] = u.iMax_pu * u.ir_pu * Math.sin(ang);
+        }
       }
+      const { aff, seq, mags } = fw;
+      for (let t = 0; t < T; t++) {
+        const type = types[t];
+        aff.load(type, zeroFloats ? null : z0, z1, z2, zf);
+        let inj1: ComplexVec = noInj;
+        let inj2: ComplexVec = noInj;
+        if (Jl > 0 && used === "iec") inj1 = iecInj;
+        else if (Jl > 0) {
+          // Iterate on the closed-form response at the unit nodes; then only the fault currents are needed.
+          const report = iterateInjections(isl.units, responseFromAffine(response, aff, c, isl.g), isl.vpre, work);
+          // Per-unit injections (grid-forming: the limiting correction; the shunt part is in the transfer).
+          inj1 = isl.x1;
+          inj2 = isl.x2;
+          if (!report.converged) messages.push({ level: "warning", code: "inverter-not-converged", text: `${type} fault at bus ${busIds[b]}: the refined inverter iteration did not converge` });
+        }
+        // Open-circuit voltages at the fault with the injections: E1 = c + sum Z1[k, u] x1_u, E2 = sum Z2[k, u] x2_u.
+        let e1r = c;
+        let e1i = 0;
+        let e2r = 0;
+        let e2i = 0;
+        for (let l = 0; l < Jl; l++) {
+          const ar = response.z1r[l];
+          const ai = response.z1i[l];
+          const br = response.z2r[l];
+          const bi = response.z2i[l];
+          e1r += ar * inj1.re[l] - ai * inj1.im[l];
+          e1i += ar * inj1.im[l] + ai * inj1.re[l];
+          e2r += br * inj2.re[l] - bi * inj2.im[l];
+          e2i += br * inj2.im[l] + bi * inj2.re[l];
+        }
+        aff.apply(e1r, e1i, e2r, e2i, seq);
+        faultMagnitudesOf(type, seq, mags);
+        ikss_kA[b * T + t] = mags.ikss * iBase_kA;
+        maxPhase_kA[b * T + t] = mags.maxPhase * iBase_kA;
+        if (type === "3ph") ik3 = mags.ikss * iBase_kA;
+        faultSeq_pu.set(seq, (b * T + t) * 6);
+        for (let l = 0; l < Jl; l++) {
+          const o = ((b * T + t) * J + unitIdx[l]) * 6;
+          inj_pu[o + 2] = inj1.re[l];
+          inj_pu[o + 3] = inj1.im[l];
+          inj_pu[o + 4] = inj2.re[l];
+          inj_pu[o + 5] = inj2.im[l];
+        }
+      }
+      if (ik3 < 0) ik3 = (c / Math.hypot(z1.re, z1.im)) * iBase_kA;
+      let isRadial = radial.get(node.island);
+      if (isRadial === undefined) {
+        isRadial = isRadialIsland(model, node.island);
+        radial.set(node.island, isRadial);
+      }
+      ip_kA[b] = sweepKappa(model, atNode[k], tk[1], k, z1, c, un, isRadial) * Math.SQRT2 * ik3;
+      xrOut[b] = z1.re > 0 ? z1.im / z1.re : 1e9;
     }
-    if (ik3 < 0) ik3 = (c / Math.hypot(zkk[1].re, zkk[1].im)) * iBase_kA;
-    let isRadial = radial.get(node.island);
-    if (isRadial === undefined) {
-      isRadial = isRadialIsland(model, node.island);
-      radial.set(node.island, isRadial);
-    }
-    ip_kA[b] = sweepKappa(model, atNode[k], tk[1], k, zkk[1], c, un, isRadial) * Math.SQRT2 * ik3;
-    xrOut[b] = zkk[1].re > 0 ? zkk[1].im / zkk[1].re : 1e9;
-  }
-  if (cancelled) messages.push({ level: "info", code: "cancelled", text: "Sweep cancelled before it finished" });
-  else options.onProgress?.(1);
-  return {
-    scenario: network.scenario,
-    options: { ...opts, inverterModel: used },
-    busIds,
-    types,
-    ikss_kA,
-    maxPhase_kA,
-    ip_kA,
-    xr: xrOut,
-    devices,
-    deviceData: { base_A, ...layout, faultSeq_pu, injMap, inj_pu, nInj: J, shift_deg, busShift_deg, overrides },
-    messages,
-  };
+  return { messages, overrides, cancelled };
 }
 
 /** Per island: its units and the workspace their iteration reuses for every bus and fault type. */
@@ -269,35 +416,26 @@ function islandWork(model: EngineInternal["model"], island: number, colU: Comple
 const BLOCK = TRANSFER_BLOCK;
 
 interface TransferLayout {
-  transfer: Float64Array;
+  /** Rows of each part: every node of the network when the sweep covers most of them, else just its buses. */
+  rows: number;
+  /** Whether the block solves run in the result (rows = nodes in the factor's order) or are copied out by bus. */
+  inPlace: boolean;
   transferRows: number;
   transferBusRow: Int32Array;
   transferSlot: Int32Array;
+  /** Row of each swept bus in the solve's order, -1 out of service. */
+  solveRow: Int32Array;
+  /** Device location of each slot. */
+  bySlot: number[];
 }
 
-/**
- * X_s = Z_s C_s for the device combinations, BLOCK devices at a time per sequence (see solveLdltBlock), and
- * injMap[d, j, s] = (Z_s c_d)[node_j]. When the sweep covers most nodes the block solves run in place in the result
- * (rows = every node in the factor's order): writing them out again bus by bus would cost more than the solves
- * themselves, most of it in first touches of fresh memory. A sweep of a few buses copies just their rows. The unit's
- * own injection enters its terminal current with -1. Values equal those of one solve per device and sequence, bit
- * for bit.
- */
-function deviceTransfers(
-  model: EngineInternal["model"],
-  sys: [SequenceSystem, SequenceSystem, SequenceSystem],
-  combos: (Combination | null)[],
-  busNodes: number[],
-  injMap: Float64Array,
-): TransferLayout {
-  const n = model.nodes.length;
+function transferLayout(n: number, inv: Int32Array, combos: (Combination | null)[], busNodes: number[]): TransferLayout {
   const D = combos.length;
   const B = busNodes.length;
-  const J = model.inverters.length;
-  const inv = sys[1].factor.ordering.inv;
+  // In place: when the sweep covers most nodes the block solves run in the result itself (rows = every node in the
+  // factor's order). A sweep of a few buses copies just their rows.
   const inPlace = 2 * B >= n;
   const rows = inPlace ? n : B;
-  // Each bus's row in the layout and in the solve (the ordering is shared by all sequences).
   const busRow = new Int32Array(B);
   const solveRow = new Int32Array(B);
   for (let b = 0; b < B; b++) {
@@ -312,15 +450,30 @@ function deviceTransfers(
   for (let d = 0; d < D; d++) if (combos[d] && seesZero(d)) bySlot.push(d);
   for (let d = 0; d < D; d++) if (combos[d] && !seesZero(d)) bySlot.push(d);
   bySlot.forEach((d, k) => (slot[d] = k));
+  return { rows, inPlace, transferRows: rows, transferBusRow: busRow, transferSlot: slot, solveRow, bySlot };
+}
+
+/**
+ * The device blocks `claim` hands this thread, until it hands out one past the last: X_s = Z_s C_s for BLOCK devices
+ * at a time per sequence (see solveLdltBlock), and their rows injMap[d, j, s] = (Z_s c_d)[node_j], the unit's own
+ * injection entering its terminal current with -1. Values equal those of one solve per device and sequence, bit for
+ * bit.
+ */
+export function sweepTransfers(plan: SweepPlan, arrays: SweepArrays, claim: Claim): void {
+  const { sys, combos, layout } = plan;
+  const { transfer, injMap } = arrays;
+  const n = sys[1].factor.n;
+  const B = plan.busIds.length;
+  const J = plan.unitNodes.length;
+  const inv = sys[1].factor.ordering.inv;
+  const { rows, solveRow, bySlot, inPlace } = layout;
   const used = bySlot.length;
-  const blocks = Math.ceil(used / BLOCK);
   const part = rows * BLOCK;
-  const transfer = new Float64Array(blocks * 6 * part);
   const unitRow = new Int32Array(J);
-  for (let j = 0; j < J; j++) unitRow[j] = inv[model.inverters[j].node] * BLOCK;
+  for (let j = 0; j < J; j++) unitRow[j] = inv[plan.unitNodes[j]] * BLOCK;
   const scratch = inPlace ? null : { re: new Float64Array(n * BLOCK), im: new Float64Array(n * BLOCK) };
   const cols = new Int32Array(BLOCK);
-  for (let blk = 0; blk < blocks; blk++) {
+  for (let blk = claim(); blk < plan.blocks; blk = claim()) {
     const m = Math.min(BLOCK, used - blk * BLOCK);
     for (let c = 0; c < m; c++) cols[c] = bySlot[blk * BLOCK + c];
     for (let s = 0; s < 3; s++) {
@@ -364,13 +517,13 @@ function deviceTransfers(
         }
       }
     }
+    for (let c = 0; c < m; c++) {
+      const d = cols[c];
+      const unit = combos[d]?.unit ?? -1;
+      if (unit < 0) continue;
+      for (let s = 1; s < 3; s++) injMap[(d * J + unit) * 6 + 2 * s] -= 1;
+    }
   }
-  for (let d = 0; d < D; d++) {
-    const combo = combos[d];
-    if (!combo || combo.unit < 0) continue;
-    for (let s = 1; s < 3; s++) injMap[(d * J + combo.unit) * 6 + 2 * s] -= 1;
-  }
-  return { transfer, transferRows: rows, transferBusRow: busRow, transferSlot: slot };
 }
 
 /** kappa at node k from the inverse subset: radial branch sum (entries Z[m,k] of the branches at k) or method B. */
@@ -387,38 +540,40 @@ function sweepKappa(
   const m2 = zkk.re * zkk.re + zkk.im * zkk.im;
   if (!(m2 > 0)) return 1;
   if (!isRadial) return Math.min(1.15 * peakFactor(zkk.im > 0 ? zkk.re / zkk.im : 10), un_kV <= 1 ? 1.8 : 2.0);
-  // dV_j = -c Z[j,k] / Zkk
-  const dv = (j: number): Cx => {
-    const z = j === k ? zkk : (tk.entry(j, k) ?? { re: 0, im: 0 });
-    return { re: (-c * (z.re * zkk.re + z.im * zkk.im)) / m2, im: (-c * (z.im * zkk.re - z.re * zkk.im)) / m2 };
-  };
+  // dV_j = -c Z[j,k] / Zkk; I = y (a dV_k - dV_o / t) for each branch at k, y dV_k for each shunt; each current's
+  // peak factor from its own R/X (the branch-sum method).
+  const dkr = (-c * (zkk.re * zkk.re + zkk.im * zkk.im)) / m2;
+  const dki = (-c * (zkk.im * zkk.re - zkk.re * zkk.im)) / m2;
   let sumPeak = 0;
-  const dk = dv(k);
-  const add = (ir: number, ii: number) => {
-    const mag = Math.hypot(ir, ii);
-    if (!(mag > 1e-12)) return;
+  const add = (ir: number, ii: number): void => {
     const f2 = ir * ir + ii * ii;
+    if (!(Math.sqrt(f2) > 1e-12)) return;
     const zr = (c * -ir) / f2;
     const zi = (-c * -ii) / f2;
-    sumPeak += peakFactor(Math.max(0, zi > 0 ? zr / zi : 10)) * mag;
+    sumPeak += peakFactor(Math.max(0, zi > 0 ? zr / zi : 10)) * Math.sqrt(f2);
   };
   for (const bi of here.branches) {
     const br = model.branches[bi];
     const y = br.y[1];
     if (!y) continue;
-    const other = dv(br.from === k ? br.to : br.from);
+    const o = br.from === k ? br.to : br.from;
+    const z = o === k ? zkk : tk.entry(o, k);
+    const zr = z ? z.re : 0;
+    const zi = z ? z.im : 0;
+    const dor = (-c * (zr * zkk.re + zi * zkk.im)) / m2;
+    const doi = (-c * (zi * zkk.re - zr * zkk.im)) / m2;
     const t = br.t;
     // current at k's end: from end y/t^2 dVk - y/t dVo; to end y dVk - y/t dVo
     const a = br.from === k ? 1 / (t * t) : 1;
-    const ur = a * dk.re - other.re / t;
-    const ui = a * dk.im - other.im / t;
+    const ur = a * dkr - dor / t;
+    const ui = a * dki - doi / t;
     add(y.re * ur - y.im * ui, y.re * ui + y.im * ur);
   }
   for (const si of here.shunts) {
-    const s = model.shunts[si];
-    if (s.refinedOnly || !s.y[1]) continue;
-    const y = s.y[1];
-    add(y.re * dk.re - y.im * dk.im, y.re * dk.im + y.im * dk.re);
+    const sh = model.shunts[si];
+    if (sh.refinedOnly || !sh.y[1]) continue;
+    const y = sh.y[1];
+    add(y.re * dkr - y.im * dki, y.re * dki + y.im * dkr);
   }
   return sumPeak > 0 ? sumPeak / (c / Math.sqrt(m2)) : 1;
 }

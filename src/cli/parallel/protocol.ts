@@ -19,6 +19,8 @@ export interface ShareCall {
   arrays: SweepArrays;
   /** Shared work counters (see sweepParts.ts). */
   counters: Int32Array;
+  /** Start with the faults rather than the block solves. */
+  faultsFirst: boolean;
 }
 
 export type PoolCall = LoadCall | ShareCall;

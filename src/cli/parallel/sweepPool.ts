@@ -81,14 +81,15 @@ export class SweepPool {
     const plan = planSweep(net.network, plain);
     const arrays = allocateSweep(plan, (n) => new Float64Array(new SharedArrayBuffer(n * 8)));
     const counters = new Int32Array(new SharedArrayBuffer(8));
-    const replies = this.workers.map((w) => {
+    // The caller starts with the block solves, the first worker with the faults, and so on alternately.
+    const replies = this.workers.map((w, i) => {
       const id = this.nextId++;
       const done = new Promise<PoolReply>((resolve) => this.pending.set(id, resolve));
-      const call: PoolCall = { kind: "share", id, key: net.key, options: plain, arrays, counters };
+      const call: PoolCall = { kind: "share", id, key: net.key, options: plain, arrays, counters, faultsFirst: i % 2 === 0 };
       w.postMessage(call);
       return done;
     });
-    const outcomes = this.callerWorks ? [runSweepShare(net.network, plan, arrays, counters)] : [];
+    const outcomes = this.callerWorks ? [runSweepShare(net.network, plan, arrays, counters, false)] : [];
     for (const reply of await Promise.all(replies)) {
       if (reply.kind === "failed") throw new Error(`SweepPool: a worker failed: ${reply.message}`);
       outcomes.push(reply.outcome);

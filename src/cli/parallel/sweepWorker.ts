@@ -22,7 +22,7 @@ port.on("message", (call: PoolCall) => {
     if (!network) throw new Error(`network ${call.key} is not loaded or did not compile`);
     // The same network and options give every thread the same plan (planSweep is deterministic).
     const plan = planSweep(network, call.options);
-    reply = { kind: "done", id: call.id, outcome: runSweepShare(network, plan, call.arrays, call.counters) };
+    reply = { kind: "done", id: call.id, outcome: runSweepShare(network, plan, call.arrays, call.counters, call.faultsFirst) };
   } catch (err) {
     reply = { kind: "failed", id: call.id, message: err instanceof Error ? err.message : String(err) };
   }

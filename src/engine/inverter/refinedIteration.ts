@@ -158,8 +158,11 @@ function referenceDirections(a1r: Float64Array, a1i: Float64Array, dirR: Float64
   }
 }
 
-/** Targets for the voltages in w (v1, v2), grid-following currents aligned with the reference directions. */
-function targets(units: InverterUnit[], w: InjectionWork, vpre: Float64Array): void {
+/**
+ * Targets for the voltages in w (v1, v2), grid-following currents aligned with the reference directions. `full`
+ * also writes the units' output currents and whether each is at its limit (the iteration itself needs neither).
+ */
+function targets(units: InverterUnit[], w: InjectionWork, vpre: Float64Array, full: boolean): void {
   const { dirR, dirI } = w;
   for (let j = 0; j < units.length; j++) {
     const u = units[j];
@@ -192,11 +195,13 @@ function targets(units: InverterUnit[], w: InjectionWork, vpre: Float64Array): v
       w.t1i[j] = g1i - i1ui;
       w.t2r[j] = g2r - i2ur;
       w.t2i[j] = g2i - i2ui;
-      w.o1r[j] = g1r;
-      w.o1i[j] = g1i;
-      w.o2r[j] = g2r;
-      w.o2i[j] = g2i;
-      w.limited[j] = k < 1 ? 1 : 0;
+      if (full) {
+        w.o1r[j] = g1r;
+        w.o1i[j] = g1i;
+        w.o2r[j] = g2r;
+        w.o2i[j] = g2i;
+        w.limited[j] = k < 1 ? 1 : 0;
+      }
       continue;
     }
     const vm = mag(v1r, v1i) * u.vScale;
@@ -227,11 +232,13 @@ function targets(units: InverterUnit[], w: InjectionWork, vpre: Float64Array): v
     w.t1i[j] = i1i;
     w.t2r[j] = i2r;
     w.t2i[j] = i2i;
-    w.o1r[j] = i1r;
-    w.o1i[j] = i1i;
-    w.o2r[j] = i2r;
-    w.o2i[j] = i2i;
-    w.limited[j] = mag(ip, iq) + mag(i2r, i2i) / u.ir_pu >= u.iMax_pu * (1 - 1e-9) ? 1 : 0;
+    if (full) {
+      w.o1r[j] = i1r;
+      w.o1i[j] = i1i;
+      w.o2r[j] = i2r;
+      w.o2i[j] = i2i;
+      w.limited[j] = mag(ip, iq) + mag(i2r, i2i) / u.ir_pu >= u.iMax_pu * (1 - 1e-9) ? 1 : 0;
+    }
   }
 }
 
@@ -276,10 +283,10 @@ export interface IterationReport {
   converged: boolean;
 }
 
-/** V for the injections x, then the targets for that V, into w. */
-function step(units: InverterUnit[], resp: UnitResponse, w: InjectionWork, vpre: Float64Array, x1r: Float64Array, x1i: Float64Array, x2r: Float64Array, x2i: Float64Array): void {
+/** V for the injections x, then the targets for that V, into w (`full`: see targets). */
+function step(units: InverterUnit[], resp: UnitResponse, w: InjectionWork, vpre: Float64Array, x1r: Float64Array, x1i: Float64Array, x2r: Float64Array, x2i: Float64Array, full = false): void {
   resp.evaluate(w, x1r, x1i, x2r, x2i);
-  targets(units, w, vpre);
+  targets(units, w, vpre, full);
 }
 
 /** Largest |T(x) - x| over the units, in units of each one's rated current (one square root, of the largest square). */
@@ -533,8 +540,8 @@ export function iterateInjections(units: InverterUnit[], resp: UnitResponse, vpr
     residual = nf.residual;
     it += nf.steps;
   }
-  // Report the state actually injected (after the last update or Newton step).
-  step(units, resp, w, vpre, w.x1r, w.x1i, w.x2r, w.x2i);
+  // Report the state actually injected (after the last update or Newton step), with the outputs and limits.
+  step(units, resp, w, vpre, w.x1r, w.x1i, w.x2r, w.x2i, true);
   return { iterations: it + 1, residual_pu: residual, converged: residual < TOLERANCE_PU };
 }
 

@@ -231,6 +231,12 @@ export interface SweepDeviceData {
   transferBusRow: Int32Array;
   /** Slot of each device location in transfer; -1 when it has no current (element out of service). */
   transferSlot: Int32Array;
+  /**
+   * When the negative-sequence network differs from the positive one in the diagonal at a few nodes only, transfer
+   * holds no negative sequence: X2[row, slot] = X1[row, slot] - sum_h w[row, h] alpha[slot, h] (complex; w per
+   * [(row * rank + h) * 2 + re/im], alpha per [(slot * rank + h) * 2 + re/im]). Null: transfer holds it.
+   */
+  negative: { rank: number; w: Float64Array; alpha: Float64Array } | null;
   /** Fault sequence currents drawn into the fault, pu, per [(b * T + t) * 6 + 2 * s + re/im]. */
   faultSeq_pu: Float64Array;
   /** Source-injection part (inverters): J = number of inverters; map per [(d * J + j) * 6 + 2 * s + re/im]. */

@@ -75,11 +75,31 @@ export function sweepDeviceCurrentsInto(sweep: SweepResult, d: number, b: number
     const row = dd.transferBusRow[b];
     const part = dd.transferRows * TRANSFER_BLOCK;
     const at = slot < 0 || row < 0 ? -1 : (slot - (slot % TRANSFER_BLOCK)) * 6 * dd.transferRows + row * TRANSFER_BLOCK + (slot % TRANSFER_BLOCK);
+    const neg = dd.negative;
     for (let s = 0; s < 3; s++) {
-      const o = at + 2 * s * part;
       const f = (b * T + t) * 6 + 2 * s;
-      const tr = at < 0 ? 0 : -dd.transfer[o];
-      const ti = at < 0 ? 0 : -dd.transfer[o + part];
+      let tr = 0;
+      let ti = 0;
+      if (at >= 0 && s === 2 && neg) {
+        // X2 = X1 - W alpha (see SweepDeviceData.negative)
+        let xr = dd.transfer[at + 2 * part];
+        let xi = dd.transfer[at + 3 * part];
+        const k = neg.rank;
+        for (let h = 0; h < k; h++) {
+          const wr = neg.w[(row * k + h) * 2];
+          const wi = neg.w[(row * k + h) * 2 + 1];
+          const ar = neg.alpha[(slot * k + h) * 2];
+          const ai = neg.alpha[(slot * k + h) * 2 + 1];
+          xr -= wr * ar - wi * ai;
+          xi -= wr * ai + wi * ar;
+        }
+        tr = -xr;
+        ti = -xi;
+      } else if (at >= 0) {
+        const o = at + 2 * s * part;
+        tr = -dd.transfer[o];
+        ti = -dd.transfer[o + part];
+      }
       const fr = dd.faultSeq_pu[f];
       const fi = dd.faultSeq_pu[f + 1];
       let re = tr * fr - ti * fi;

@@ -16,6 +16,7 @@ import { InjectionWork, iterateInjections } from "../inverter/refinedIteration.t
 import { solveLdltBlock } from "../sparse/ldlt.ts";
 import { inverseSubset, type InverseSubset } from "../sparse/takahashi.ts";
 import { deviceCombination, type Combination } from "./deviceCombination.ts";
+import { negativeAlpha, negativeCorrection, type NegativeCorrection } from "./negativeFromPositive.ts";
 import { voltageFactor, peakFactor } from "../iec60909/factors.ts";
 import { isRadialIsland } from "./peakCurrent.ts";
 import { solveFault, type EngineInternal } from "./solveFault.ts";
@@ -79,6 +80,10 @@ export interface SweepPlan {
   /** Warnings about buses and device locations out of service. */
   messages: EngineMessage[];
   layout: TransferLayout;
+  /** The negative sequence from the positive one (see negativeFromPositive.ts), or null: solved as well. */
+  negative: NegativeCorrection | null;
+  /** W of the negative correction in the layout's rows (the result keeps it). */
+  negativeW: Float64Array;
   /** Device blocks of the transfer (BLOCK locations each). */
   blocks: number;
   /** Length of every array of the result that a part writes (see SweepArrays). */
@@ -89,6 +94,8 @@ export interface SweepPlan {
 export interface SweepArrays {
   transfer: Float64Array;
   injMap: Float64Array;
+  /** alpha of the negative correction per slot (see negativeFromPositive.ts), [(slot * k + h) * 2 + re/im]. */
+  negativeAlpha: Float64Array;
   ikss_kA: Float64Array;
   maxPhase_kA: Float64Array;
   ip_kA: Float64Array;
@@ -146,9 +153,23 @@ export function planSweep(network: CompiledNetwork, options: SweepOptions = {}):
   }
   const layout = transferLayout(model.nodes.length, sys[1].factor.ordering.inv, combos, busNodes);
   const blocks = Math.ceil(layout.bySlot.length / BLOCK);
+  const negative = negativeCorrection(sys[1].factor, sys[2].factor, combos);
+  const k = negative?.rank ?? 0;
+  const negativeW = new Float64Array(negative ? layout.rows * k * 2 : 0);
+  if (negative) {
+    // W in the layout's rows: the factor's order in place, the swept buses' rows otherwise.
+    for (let r = 0; r < layout.rows; r++) {
+      const from = layout.inPlace ? r : layout.solveRow[r];
+      if (from < 0) continue;
+      for (let q = 0; q < 2 * k; q++) negativeW[r * 2 * k + q] = negative.w[from * 2 * k + q];
+    }
+  }
   const sizes: Record<keyof SweepArrays, number> = {
+    // Blocks keep room for all three sequences; with the negative correction the third is never written (no memory
+    // is touched for it).
     transfer: blocks * 6 * layout.rows * BLOCK,
     injMap: D * J * 6,
+    negativeAlpha: negative ? layout.bySlot.length * k * 2 : 0,
     ikss_kA: B * T,
     maxPhase_kA: B * T,
     ip_kA: B,
@@ -157,7 +178,7 @@ export function planSweep(network: CompiledNetwork, options: SweepOptions = {}):
     inj_pu: B * T * J * 6,
     busShift_deg: B,
   };
-  return { busIds, busNodes, types, locs, devices, combos, base_A, shift_deg, used, sysVariant, unitNodes: model.inverters.map((u) => u.node), sys, tk, messages, layout, blocks, sizes };
+  return { busIds, busNodes, types, locs, devices, combos, base_A, shift_deg, used, sysVariant, unitNodes: model.inverters.map((u) => u.node), sys, tk, messages, layout, negative, negativeW, blocks, sizes };
 }
 
 /** The arrays of a plan, each made by `make` (plain or shared memory), all zero. */
@@ -166,6 +187,7 @@ export function allocateSweep(plan: SweepPlan, make: (length: number) => Float64
   return {
     transfer: make(z.transfer),
     injMap: make(z.injMap),
+    negativeAlpha: make(z.negativeAlpha),
     ikss_kA: make(z.ikss_kA),
     maxPhase_kA: make(z.maxPhase_kA),
     ip_kA: make(z.ip_kA),
@@ -198,6 +220,7 @@ export function assembleSweep(network: CompiledNetwork, plan: SweepPlan, a: Swee
       transferRows,
       transferBusRow,
       transferSlot,
+      negative: plan.negative ? { rank: plan.negative.rank, w: plan.negativeW, alpha: a.negativeAlpha } : null,
       faultSeq_pu: a.faultSeq_pu,
       injMap: a.injMap,
       inj_pu: a.inj_pu,
@@ -460,8 +483,9 @@ function transferLayout(n: number, inv: Int32Array, combos: (Combination | null)
  * bit.
  */
 export function sweepTransfers(plan: SweepPlan, arrays: SweepArrays, claim: Claim): void {
-  const { sys, combos, layout } = plan;
-  const { transfer, injMap } = arrays;
+  const { sys, combos, layout, negative } = plan;
+  const { transfer, injMap, negativeAlpha: alpha } = arrays;
+  const k = negative?.rank ?? 0;
   const n = sys[1].factor.n;
   const B = plan.busIds.length;
   const J = plan.unitNodes.length;
@@ -476,7 +500,7 @@ export function sweepTransfers(plan: SweepPlan, arrays: SweepArrays, claim: Clai
   for (let blk = claim(); blk < plan.blocks; blk = claim()) {
     const m = Math.min(BLOCK, used - blk * BLOCK);
     for (let c = 0; c < m; c++) cols[c] = bySlot[blk * BLOCK + c];
-    for (let s = 0; s < 3; s++) {
+    for (let s = 0; s < (negative ? 2 : 3); s++) {
       const o = (blk * 3 + s) * 2 * part;
       const xr = scratch ? scratch.re : transfer.subarray(o, o + part);
       const xi = scratch ? scratch.im : transfer.subarray(o + part, o + 2 * part);
@@ -502,6 +526,30 @@ export function sweepTransfers(plan: SweepPlan, arrays: SweepArrays, claim: Clai
         for (let j = 0; j < J; j++) {
           injMap[at + j * 6] = xr[unitRow[j] + c];
           injMap[at + j * 6 + 1] = xi[unitRow[j] + c];
+        }
+      }
+      if (negative && s === 1) {
+        // The negative sequence from the positive: alpha per device, and the unit rows X2 = X1 - W alpha.
+        for (let c = 0; c < m; c++) {
+          const d = cols[c];
+          const slot = blk * BLOCK + c;
+          negativeAlpha(negative, xr, xi, BLOCK, c, negative.dc[d], alpha, slot * 2 * k);
+          const at = (d * J) * 6 + 4;
+          for (let j = 0; j < J; j++) {
+            const row = unitRow[j] / BLOCK;
+            let vr = xr[unitRow[j] + c];
+            let vi = xi[unitRow[j] + c];
+            for (let h = 0; h < k; h++) {
+              const wr = negative.w[(row * k + h) * 2];
+              const wi = negative.w[(row * k + h) * 2 + 1];
+              const ar = alpha[(slot * k + h) * 2];
+              const ai = alpha[(slot * k + h) * 2 + 1];
+              vr -= wr * ar - wi * ai;
+              vi -= wr * ai + wi * ar;
+            }
+            injMap[at + j * 6] = vr;
+            injMap[at + j * 6 + 1] = vi;
+          }
         }
       }
       if (scratch) {

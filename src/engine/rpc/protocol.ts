@@ -50,6 +50,7 @@ export function transferables(response: EngineResponse): ArrayBuffer[] {
     const d = r.deviceData;
     const arrays = [r.ikss_kA, r.maxPhase_kA, r.ip_kA, r.xr, d.base_A, d.transfer, d.transferBusRow, d.transferSlot, d.faultSeq_pu, d.injMap, d.inj_pu, d.shift_deg, d.busShift_deg];
     for (const o of d.overrides) arrays.push(o.seq_A);
+    if (d.negative) arrays.push(d.negative.w, d.negative.alpha);
     const seen = new Set<ArrayBuffer>();
     for (const a of arrays as ArrayBufferView[]) if (a.buffer instanceof ArrayBuffer) seen.add(a.buffer);
     return [...seen];

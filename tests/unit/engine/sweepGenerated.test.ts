@@ -91,3 +91,42 @@ describe("sweep of a few buses", () => {
     expect(nonZero).toBeGreaterThan(20);
   });
 });
+
+describe("sweep with the negative sequence derived from the positive", () => {
+  it("gives a relay at the generator's terminal, and every other device, the one-by-one currents to 1e-9", () => {
+    // The generated generator has X(2) != X"d: the two networks differ at its node only, so the sweep derives the
+    // negative-sequence responses (negativeFromPositive.ts); a relay at the generator terminal also changes its own
+    // combination between the sequences. Reference: the one-fault solver, which solves each sequence directly.
+    const project = generateRadialNetwork({ buses: 90, devices: 30, seed: 29 });
+    const relay = project.elements.find((e) => e.kind === "relay");
+    if (!relay || relay.kind !== "relay") throw new Error("the generated network has no relay");
+    project.elements.push({ ...relay, id: "rly-gen", name: "Generator relay", at: { element: "gen-1", end: "terminal" } });
+    const r = compileNetwork(project, { scenario: GENERATED_SCENARIOS.gridTied, limit: "max" });
+    if (!r.ok) throw new Error(r.errors.map((e) => e.text).join("; "));
+    for (const inverterModel of ["iec", "refined"] as const) {
+      const sweep = sweepFaults(r.network, { inverterModel });
+      expect(sweep.deviceData.negative?.rank).toBe(1);
+      const gen = sweep.devices.findIndex((d) => d.element === "gen-1");
+      expect(gen).toBeGreaterThanOrEqual(0);
+      let checked = 0;
+      for (let b = 0; b < sweep.busIds.length; b += 5)
+        for (let t = 0; t < sweep.types.length; t++) {
+          const one = solveFault(r.network, { kind: "bus", bus: sweep.busIds[b] }, sweep.types[t], { inverterModel, detail: "devices" });
+          const ends = new Map([...one.branchEnds, ...one.shunts].map((e) => [`${e.element}|${e.end}`, e]));
+          sweep.devices.forEach((dev, d) => {
+            const ref = ends.get(`${dev.element}|${dev.end}`);
+            if (!ref) return;
+            const got = sweepDeviceCurrents(sweep, d, b, t);
+            for (let s = 0; s < 3; s++) {
+              const scale = 1 + ref.seq_A[s].mag;
+              expect(Math.abs(got.seq_A[s].re - ref.seq_A[s].mag * Math.cos((ref.seq_A[s].ang_deg * Math.PI) / 180)) / scale).toBeLessThan(1e-9);
+              expect(Math.abs(got.seq_A[s].im - ref.seq_A[s].mag * Math.sin((ref.seq_A[s].ang_deg * Math.PI) / 180)) / scale).toBeLessThan(1e-9);
+            }
+            if (d === gen && ref.seq_A[2].mag > 1) checked++;
+          });
+        }
+      // the generator relay sees negative-sequence current in the unbalanced faults
+      expect(checked).toBeGreaterThan(20);
+    }
+  });
+});

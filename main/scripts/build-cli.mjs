@@ -27,11 +27,24 @@ export function cliBuildOptions(root = repoRoot) {
   };
 }
 
+/** The sweep worker thread of `islet study --threads`, beside the command (see src/cli/parallel/sweepPool.ts). */
+export function cliWorkerBuildOptions(root = repoRoot) {
+  const options = cliBuildOptions(root);
+  return {
+    ...options,
+    stdin: undefined,
+    entryPoints: [join(root, "src", "cli", "parallel", "sweepWorker.ts")],
+    outfile: join(root, "out", "cli", "sweepWorker.mjs"),
+    banner: { js: options.banner.js.replace("#!/usr/bin/env node\n", "") },
+  };
+}
+
 export async function buildCli(root = repoRoot) {
   await build(cliBuildOptions(root));
+  await build(cliWorkerBuildOptions(root));
 }
 
 if (process.argv[1] && import.meta.url === pathToFileURL(resolve(process.argv[1])).href) {
   await buildCli();
-  console.log("build-cli: out/cli/islet.mjs");
+  console.log("build-cli: out/cli/islet.mjs, out/cli/sweepWorker.mjs");
 }

@@ -10,4 +10,4 @@ export { voltageFactor, transformerKT, generatorKG, peakFactor, breakingFactorMu
 export { handleRequest, createHandlerState, type HandlerState } from "./rpc/handleRequest.ts";
 export { transferables } from "./rpc/protocol.ts";
 export type { EngineRequest, EngineResponse, EngineEvent } from "./rpc/protocol.ts";
-export { busFaultTable, formatBusFaultTable, type BusFaultTable, type BusFaultRun, type BusFaultRow } from "./table/busFaultTable.ts";
+export { busFaultTable, busFaultTableWith, BUS_TABLE_SWEEP, formatBusFaultTable, type BusFaultTable, type BusFaultRun, type BusFaultRow, type BusFaultTask } from "./table/busFaultTable.ts";

@@ -1,21 +1,28 @@
-// `islet study FILE [--scenario ID] [--json]`: every bus's initial short-circuit currents for the four fault types,
-// peak current and X/R, per scenario and per limit (max/min, as each scenario asks). With --json stdout holds only
-// JSON (shape in README.md). Exit 0 on success, 1 when the project is invalid or a network cannot be built, 2 on
-// usage errors.
+// `islet study FILE [--scenario ID] [--json] [--threads N]`: every bus's initial short-circuit currents for the four
+// fault types, peak current and X/R, per scenario and per limit (max/min, as each scenario asks). With --json stdout
+// holds only JSON (shape in README.md). --threads shares each sweep among N threads (same figures, bit for bit).
+// Exit 0 on success, 1 when the project is invalid or a network cannot be built, 2 on usage errors.
 import type { CliCommand } from "../command.ts";
 import { readTextFile } from "../fileIo.ts";
 import { loadProject } from "../../model/projectFile.ts";
-import { busFaultTable, formatBusFaultTable } from "../../engine/index.ts";
+import { busFaultTable, busFaultTableWith, formatBusFaultTable, BUS_TABLE_SWEEP } from "../../engine/index.ts";
+import { SweepPool } from "../parallel/sweepPool.ts";
 
-const USAGE = "Usage: islet study FILE [--scenario ID] [--json]";
+const USAGE = "Usage: islet study FILE [--scenario ID] [--json] [--threads N]";
 
-function parseArgs(args: string[]): { ok: true; file: string; scenario?: string; json: boolean } | { ok: false; message: string } {
+function parseArgs(args: string[]): { ok: true; file: string; scenario?: string; json: boolean; threads: number } | { ok: false; message: string } {
   let file: string | undefined;
   let scenario: string | undefined;
   let json = false;
+  let threads = 1;
   for (let i = 0; i < args.length; i++) {
     const a = args[i];
     if (a === "--json") json = true;
+    else if (a === "--threads" || a.startsWith("--threads=")) {
+      const v = a === "--threads" ? args[++i] : a.slice("--threads=".length);
+      if (v === undefined || !/^[1-9][0-9]*$/.test(v) || Number(v) > 64) return { ok: false, message: `--threads needs a whole number from 1 to 64 (got ${v ?? "nothing"})` };
+      threads = Number(v);
+    }
     else if (a === "--scenario") {
       if (i + 1 >= args.length) return { ok: false, message: "--scenario needs an ID" };
       scenario = args[++i];
@@ -25,7 +32,7 @@ function parseArgs(args: string[]): { ok: true; file: string; scenario?: string;
     else return { ok: false, message: "expected one FILE" };
   }
   if (file === undefined) return { ok: false, message: "missing FILE" };
-  return { ok: true, file, scenario, json };
+  return { ok: true, file, scenario, json, threads };
 }
 
 export const studyCommand: CliCommand = {
@@ -53,7 +60,15 @@ export const studyCommand: CliCommand = {
     }
     let report;
     try {
-      report = busFaultTable(loaded.project, parsed.scenario);
+      if (parsed.threads > 1) {
+        const project = loaded.project;
+        const pool = new SweepPool(parsed.threads);
+        try {
+          report = await busFaultTableWith(project, parsed.scenario, (task) => pool.sweep(pool.load(`${task.scenarioId ?? ""}|${task.limit}`, project, task.compile, task.result.network), BUS_TABLE_SWEEP));
+        } finally {
+          await pool.close();
+        }
+      } else report = busFaultTable(loaded.project, parsed.scenario);
     } catch (err) {
       const message = err instanceof Error ? err.message : String(err);
       if (parsed.json) console.log(JSON.stringify({ ok: false, file: parsed.file, error: { kind: "usage", messages: [message] } }, null, 2));

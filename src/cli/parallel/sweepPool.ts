@@ -8,7 +8,8 @@ import type { Project } from "../../model/schema.ts";
 import type { PoolCall, PoolReply } from "./protocol.ts";
 import { runSweepShare } from "./sweepParts.ts";
 
-const workerUrl = new URL(`./sweepWorker${import.meta.url.endsWith(".ts") ? ".ts" : ".js"}`, import.meta.url);
+// Beside this module: the TypeScript source in development, sweepWorker.mjs beside the bundled command (build-cli).
+const workerUrl = new URL(import.meta.url.endsWith(".ts") ? "./sweepWorker.ts" : "./sweepWorker.mjs", import.meta.url);
 
 /** Workers reject process-wide flags such as --expose-gc: keep only the parent's module loader flags. */
 function workerExecArgv(): string[] {
@@ -66,13 +67,20 @@ export class SweepPool {
     });
   }
 
-  /** Compiles the project's network here and in every worker; the key names it in later sweeps. */
-  load(key: string, project: Project, compile: CompileOptions): PoolNetwork {
-    const r = compileNetwork(project, compile);
-    if (!r.ok) throw new Error(`SweepPool: the network does not compile: ${r.errors.map((e) => e.text).join("; ")}`);
+  /**
+   * Compiles the project's network in every worker, and here unless `network` is that network already compiled
+   * with the same options; the key names it in later sweeps.
+   */
+  load(key: string, project: Project, compile: CompileOptions, network?: CompiledNetwork): PoolNetwork {
+    let net = network;
+    if (!net) {
+      const r = compileNetwork(project, compile);
+      if (!r.ok) throw new Error(`SweepPool: the network does not compile: ${r.errors.map((e) => e.text).join("; ")}`);
+      net = r.network;
+    }
     const call: PoolCall = { kind: "load", key, project, compile };
     for (const w of this.workers) w.postMessage(call);
-    return { key, network: r.network };
+    return { key, network: net };
   }
 
   /** The sweep of a loaded network, shared among the threads. Progress callbacks are not called. */

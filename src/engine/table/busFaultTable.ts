@@ -1,7 +1,7 @@
 // The data behind `islet study`: every bus's I"k for the four fault types, ip and X/R, per scenario and limit.
 // Pure: the CLI command does the file and console work. The JSON shape is documented in README.md.
 import type { Project } from "../../model/schema.ts";
-import { FAULT_TYPES, CAUTION, type EngineMessage, type Limit, type ResolvedOptions, type FaultType } from "../types.ts";
+import { FAULT_TYPES, CAUTION, type CompileOptions, type CompileResult, type CompiledNetwork, type EngineMessage, type Limit, type ResolvedOptions, type FaultType, type SweepOptions, type SweepResult } from "../types.ts";
 import { compileNetwork } from "../network/compileNetwork.ts";
 import { sweepFaults } from "../fault/sweepFaults.ts";
 
@@ -28,31 +28,59 @@ export interface BusFaultTable {
   runs: BusFaultRun[];
 }
 
-/** Runs every (scenario, limit) pair, or the one scenario asked for. Throws only on an unknown scenario id. */
-export function busFaultTable(project: Project, scenarioId?: string): BusFaultTable {
+/** One (scenario, limit) pair of the table: its network, or why it could not be built. */
+export interface BusFaultTask {
+  scenarioId: string | undefined;
+  scenarioName: string;
+  limit: Limit;
+  compile: CompileOptions;
+  result: CompileResult;
+}
+
+/** The (scenario, limit) pairs: every scenario's, or the one scenario asked for. Throws only on an unknown scenario id. */
+export function busFaultTasks(project: Project, scenarioId?: string): BusFaultTask[] {
   const scenarios = scenarioId !== undefined ? project.scenarios.filter((s) => s.id === scenarioId) : project.scenarios;
   if (scenarioId !== undefined && scenarios.length === 0) throw new Error(`scenario "${scenarioId}" not found; the project has: ${project.scenarios.map((s) => s.id).join(", ") || "none"}`);
   const plan: { id: string | undefined; name: string; limits: Limit[] }[] = scenarios.length
     ? scenarios.map((s) => ({ id: s.id, name: s.name, limits: s.limits }))
     : [{ id: undefined, name: "(as drawn)", limits: ["max", "min"] }];
-  const runs: BusFaultRun[] = [];
+  return plan.flatMap((sc) =>
+    sc.limits.map((limit) => {
+      const compile: CompileOptions = { scenario: sc.id, limit };
+      return { scenarioId: sc.id, scenarioName: sc.name, limit, compile, result: compileNetwork(project, compile) };
+    }),
+  );
+}
+
+/** The sweep options of the table: the four fault types, no device currents. */
+export const BUS_TABLE_SWEEP: SweepOptions = { types: [...FAULT_TYPES], devices: [] };
+
+/** One run of the table from its task and, when the network was built, its sweep (BUS_TABLE_SWEEP). */
+export function busFaultRun(project: Project, task: BusFaultTask, sw: SweepResult | null): BusFaultRun {
+  const c = task.result;
+  if (!c.ok || !sw) return { scenario: task.scenarioId ?? "", scenarioName: task.scenarioName, limit: task.limit, ok: false, options: null, buses: [], messages: c.ok ? [] : c.errors };
   const unOf = new Map(project.elements.filter((e) => e.kind === "bus").map((e) => [e.id, (e as { un_kV: number }).un_kV]));
-  for (const sc of plan) {
-    for (const limit of sc.limits) {
-      const c = compileNetwork(project, { scenario: sc.id, limit });
-      if (!c.ok) {
-        runs.push({ scenario: sc.id ?? "", scenarioName: sc.name, limit, ok: false, options: null, buses: [], messages: c.errors });
-        continue;
-      }
-      const sw = sweepFaults(c.network, { types: [...FAULT_TYPES], devices: [] });
-      const T = sw.types.length;
-      const buses: BusFaultRow[] = sw.busIds.map((bus, b) => {
-        const ikss = {} as Record<FaultType, number>;
-        sw.types.forEach((t, ti) => (ikss[t] = sw.ikss_kA[b * T + ti]));
-        return { bus, un_kV: unOf.get(bus) ?? 0, ikss_kA: ikss, ip_kA: sw.ip_kA[b], xr: sw.xr[b] };
-      });
-      runs.push({ scenario: c.network.scenario, scenarioName: sc.name, limit, ok: true, options: sw.options, buses, messages: [...c.network.messages, ...sw.messages] });
-    }
+  const T = sw.types.length;
+  const buses: BusFaultRow[] = sw.busIds.map((bus, b) => {
+    const ikss = {} as Record<FaultType, number>;
+    sw.types.forEach((t, ti) => (ikss[t] = sw.ikss_kA[b * T + ti]));
+    return { bus, un_kV: unOf.get(bus) ?? 0, ikss_kA: ikss, ip_kA: sw.ip_kA[b], xr: sw.xr[b] };
+  });
+  return { scenario: c.network.scenario, scenarioName: task.scenarioName, limit: task.limit, ok: true, options: sw.options, buses, messages: [...c.network.messages, ...sw.messages] };
+}
+
+/** Runs every (scenario, limit) pair, or the one scenario asked for. Throws only on an unknown scenario id. */
+export function busFaultTable(project: Project, scenarioId?: string): BusFaultTable {
+  const runs = busFaultTasks(project, scenarioId).map((task) => busFaultRun(project, task, task.result.ok ? sweepFaults(task.result.network, BUS_TABLE_SWEEP) : null));
+  return { caution: CAUTION, runs };
+}
+
+/** The same table with the sweeps done by `sweep` (for example shared among threads, see SweepPool in src/cli). */
+export async function busFaultTableWith(project: Project, scenarioId: string | undefined, sweep: (task: BusFaultTask & { result: { ok: true; network: CompiledNetwork } }) => Promise<SweepResult>): Promise<BusFaultTable> {
+  const runs: BusFaultRun[] = [];
+  for (const task of busFaultTasks(project, scenarioId)) {
+    const r = task.result;
+    runs.push(busFaultRun(project, task, r.ok ? await sweep({ ...task, result: r }) : null));
   }
   return { caution: CAUTION, runs };
 }

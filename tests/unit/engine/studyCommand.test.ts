@@ -52,5 +52,16 @@ describe("islet study", () => {
     expect(await studyCommand.run([demo, "--scenario", "nope"])).toBe(2);
     expect(io.err.join("\n")).toMatch(/scenario "nope" not found/);
     expect(await studyCommand.run([demo, "--fast"])).toBe(2);
+    expect(await studyCommand.run([demo, "--threads", "0"])).toBe(2);
+    expect(io.err.join("\n")).toMatch(/--threads needs a whole number/);
+  });
+  it("gives the same JSON, figure for figure, with the sweeps shared among threads", async () => {
+    const io = capture();
+    expect(await studyCommand.run([demo, "--json"])).toBe(0);
+    const one = io.out.join("\n");
+    io.out.length = 0;
+    expect(await studyCommand.run([demo, "--json", "--threads", "2"])).toBe(0);
+    expect(io.out.join("\n")).toBe(one);
+    expect(JSON.parse(one).runs.length).toBeGreaterThan(3);
   });
 });

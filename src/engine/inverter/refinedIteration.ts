@@ -100,6 +100,9 @@ export class InjectionWork {
   readonly dots: Float64Array;
   readonly gram: Float64Array;
   readonly rhs: Float64Array;
+  /** The units' figures as a typed array (see unitFigures), and the units they belong to. */
+  figures = new Float64Array(0);
+  figuresOf: InverterUnit[] | null = null;
   constructor(readonly J: number) {
     const f = () => new Float64Array(J);
     this.v1r = f();
@@ -158,12 +161,28 @@ function referenceDirections(a1r: Float64Array, a1i: Float64Array, dirR: Float64
   }
 }
 
+/** Figures per unit in UnitFigures order: iMax, ir, vScale, kFactor, activePower, k2 (0 without negative-sequence control). */
+const UNIT_FIGURES = 6;
+
+/** The grid-following figures of the units as one typed array, kept in the workspace while the units stay the same. */
+function unitFigures(units: InverterUnit[], w: InjectionWork): Float64Array {
+  if (w.figuresOf === units) return w.figures;
+  const fig = new Float64Array(UNIT_FIGURES * units.length);
+  units.forEach((u, j) => {
+    fig.set([u.iMax_pu, u.ir_pu, u.vScale, u.kFactor, u.activePower_pu, u.negSeq === "k-factor" ? u.k2 : 0], UNIT_FIGURES * j);
+  });
+  w.figures = fig;
+  w.figuresOf = units;
+  return fig;
+}
+
 /**
  * Targets for the voltages in w (v1, v2), grid-following currents aligned with the reference directions. `full`
  * also writes the units' output currents and whether each is at its limit (the iteration itself needs neither).
  */
 function targets(units: InverterUnit[], w: InjectionWork, vpre: Float64Array, full: boolean): void {
   const { dirR, dirI } = w;
+  const fig = unitFigures(units, w);
   for (let j = 0; j < units.length; j++) {
     const u = units[j];
     const v1r = w.v1r[j];
@@ -204,26 +223,31 @@ function targets(units: InverterUnit[], w: InjectionWork, vpre: Float64Array, fu
       }
       continue;
     }
-    const vm = mag(v1r, v1i) * u.vScale;
+    // The unit's figures from the workspace's typed copy (see unitFigures): no object reads in the hot loop.
+    const f = UNIT_FIGURES * j;
+    const iMax = fig[f];
+    const ir = fig[f + 1];
+    const vm = Math.sqrt(v1r * v1r + v1i * v1i) * fig[f + 2];
     const dip = Math.max(0, 1 - vm);
-    const iq = Math.min(u.kFactor * dip, u.iMax_pu);
-    const pmax = Math.sqrt(Math.max(0, u.iMax_pu * u.iMax_pu - iq * iq));
-    const ip = Math.max(-pmax, Math.min(pmax, u.activePower_pu));
-    const ar = ip * u.ir_pu;
-    const ai = -iq * u.ir_pu;
+    const iq = Math.min(fig[f + 3] * dip, iMax);
+    const pmax = Math.sqrt(Math.max(0, iMax * iMax - iq * iq));
+    const ip = Math.max(-pmax, Math.min(pmax, fig[f + 4]));
+    const ar = ip * ir;
+    const ai = -iq * ir;
     const br = dirR[j];
     const bi = dirI[j];
     const i1r = ar * br - ai * bi;
     const i1i = ar * bi + ai * br;
     let i2r = 0;
     let i2i = 0;
-    if (u.negSeq === "k-factor") {
+    if (fig[f + 5] > 0) {
+      // negative-sequence control: k2 |V2| within what the limit leaves, leading V2 by 90 degrees
       const v2abs = mag(v2r, v2i);
-      const v2m = v2abs * u.vScale;
-      const room = Math.max(0, u.iMax_pu - mag(ip, iq));
-      const m2 = Math.min(u.k2 * v2m, room);
+      const v2m = v2abs * fig[f + 2];
+      const room = Math.max(0, iMax - mag(ip, iq));
+      const m2 = Math.min(fig[f + 5] * v2m, room);
       if (v2m > 1e-12) {
-        const ci = (m2 * u.ir_pu) / v2abs;
+        const ci = (m2 * ir) / v2abs;
         i2r = 0 * v2r - ci * v2i;
         i2i = 0 * v2i + ci * v2r;
       }

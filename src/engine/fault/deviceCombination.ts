@@ -13,11 +13,25 @@ export interface Combination {
   unit: number;
 }
 
+/** Branches by element id, per model (a sweep looks up hundreds of device locations among thousands of branches). */
+const branchIndex = new WeakMap<Model, Map<string, Model["branches"][number]>>();
+
+function branchOf(model: Model, element: string): Model["branches"][number] | undefined {
+  let index = branchIndex.get(model);
+  if (!index) {
+    index = new Map();
+    // the first branch of an element, as a search from the start would find
+    for (let i = model.branches.length - 1; i >= 0; i--) index.set(model.branches[i].element, model.branches[i]);
+    branchIndex.set(model, index);
+  }
+  return index.get(element);
+}
+
 export function deviceCombination(model: Model, variant: Variant, element: string, end: "from" | "to" | "terminal"): Combination | null {
   const empty = () => ({ nodes: [] as number[], re: [] as number[], im: [] as number[] });
   const terms = [empty(), empty(), empty()];
   if (end !== "terminal") {
-    const b = model.branches.find((x) => x.element === element);
+    const b = branchOf(model, element);
     if (!b) return null;
     for (let s = 0; s < 3; s++) {
       const y = b.y[s];

@@ -124,7 +124,15 @@ export function planSweep(network: CompiledNetwork, options: SweepOptions = {}):
   const hasGfm = model.shunts.some((s) => s.refinedOnly);
   const sysVariant = used === "refined" && hasGfm ? "refined" : "iec";
   const sys = [0, 1, 2].map((s) => sequenceSystem(model, cache, s as 0 | 1 | 2, sysVariant)) as [SequenceSystem, SequenceSystem, SequenceSystem];
-  const tk: InverseSubset[] = sys.map((s) => inverseSubset(s.factor));
+  // Per factor, kept with the network: every sweep of it (and every thread's plan) reads the same subsets.
+  const tk: InverseSubset[] = sys.map((s) => {
+    let t = cache.inverses.get(s.factor);
+    if (!t) {
+      t = inverseSubset(s.factor);
+      cache.inverses.set(s.factor, t);
+    }
+    return t;
+  });
 
   const locs = options.devices ? [...options.devices] : [...model.devices];
   const D = locs.length;
@@ -271,13 +279,18 @@ function* sweepBusSteps(network: CompiledNetwork, plan: SweepPlan, arrays: Sweep
   const overrides: SweepResult["deviceData"]["overrides"] = [];
   const radial = new Map<number, boolean>();
   const islandUnits = new Map<number, IslandUnits>();
-  // Branches and shunts meeting at each node (the radial peak factor looks at them for every faulted bus).
-  const atNode: { branches: number[]; shunts: number[] }[] = model.nodes.map(() => ({ branches: [], shunts: [] }));
-  model.branches.forEach((br, i) => {
-    atNode[br.from].branches.push(i);
-    if (br.to !== br.from) atNode[br.to].branches.push(i);
-  });
-  model.shunts.forEach((sh, i) => atNode[sh.node].shunts.push(i));
+  // Branches and shunts meeting at each node (the radial peak factor looks at them for every faulted bus), built once
+  // per network.
+  let atNode = cache.atNode;
+  if (!atNode) {
+    const lists: { branches: number[]; shunts: number[] }[] = model.nodes.map(() => ({ branches: [], shunts: [] }));
+    model.branches.forEach((br, i) => {
+      lists[br.from].branches.push(i);
+      if (br.to !== br.from) lists[br.to].branches.push(i);
+    });
+    model.shunts.forEach((sh, i) => lists[sh.node].shunts.push(i));
+    atNode = cache.atNode = lists;
+  }
   // Per-fault scratch: the fault map, its sequence currents and their magnitudes.
   const fw = { aff: new FaultAffine(), seq: new Float64Array(6), mags: { ikss: 0, maxPhase: 0 }, zf: { re: 0, im: 0 }, z0: { re: 0, im: 0 }, z1: { re: 0, im: 0 }, z2: { re: 0, im: 0 } };
   const progressEvery = Math.max(1, Math.floor(B / 50));

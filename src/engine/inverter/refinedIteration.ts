@@ -42,20 +42,6 @@ const mag = (x: number, y: number) => Math.sqrt(x * x + y * y);
 
 const A: C = { re: -0.5, im: Math.sqrt(3) / 2 };
 const A2: C = { re: -0.5, im: -Math.sqrt(3) / 2 };
-/** Largest phase-current magnitude of positive and negative-sequence currents (no zero sequence in a converter). */
-function maxPhase(i1r: number, i1i: number, i2r: number, i2i: number): number {
-  // b1 = a^2 i1, b2 = a i2, c1 = a i1, c2 = a^2 i2 (written out as cm(x, y) = (x.re y.re - x.im y.im, x.re y.im + x.im y.re))
-  const b1r = A2.re * i1r - A2.im * i1i;
-  const b1i = A2.re * i1i + A2.im * i1r;
-  const b2r = A.re * i2r - A.im * i2i;
-  const b2i = A.re * i2i + A.im * i2r;
-  const c1r = A.re * i1r - A.im * i1i;
-  const c1i = A.re * i1i + A.im * i1r;
-  const c2r = A2.re * i2r - A2.im * i2i;
-  const c2i = A2.re * i2i + A2.im * i2r;
-  return Math.max(mag(i1r + i2r, i1i + i2i), mag(b1r + b2r, b1i + b2i), mag(c1r + c2r, c1i + c2i));
-}
-
 /**
  * Workspace of the iteration: every per-unit quantity in typed arrays, so that an iteration step allocates nothing.
  * Create one per number of units and reuse it (see iterateInjections).
@@ -189,13 +175,13 @@ function targets(units: InverterUnit[], w: InjectionWork, vpre: Float64Array, fu
     const v1i = w.v1i[j];
     const v2r = w.v2r[j];
     const v2i = w.v2i[j];
-    const lim = u.iMax_pu * u.ir_pu;
     if (u.control === "grid-forming") {
+      const lim = u.iMax_pu * u.ir_pu;
       // Unlimited currents out of the source behind zForming (positive: E - V1; negative: -V2), then one common
       // scale so that the largest phase current stays within iMax Ir.
       const zr = u.zForming.re;
       const zi = u.zForming.im;
-      const z2 = zr ** 2 + zi ** 2;
+      const z2 = zr * zr + zi * zi;
       const e1r = vpre[u.node] - v1r;
       const e1i = -v1i;
       const i1ur = (e1r * zr + e1i * zi) / z2;
@@ -204,7 +190,15 @@ function targets(units: InverterUnit[], w: InjectionWork, vpre: Float64Array, fu
       const e2i = -v2i;
       const i2ur = (e2r * zr + e2i * zi) / z2;
       const i2ui = (e2i * zr - e2r * zi) / z2;
-      const m = maxPhase(i1ur, i1ui, i2ur, i2ui);
+      // Largest phase current of the unlimited source (no zero sequence in a converter): Ia = I1 + I2,
+      // Ib = a^2 I1 + a I2, Ic = a I1 + a^2 I2.
+      const par = i1ur + i2ur;
+      const pai = i1ui + i2ui;
+      const pbr = A2.re * i1ur - A2.im * i1ui + (A.re * i2ur - A.im * i2ui);
+      const pbi = A2.re * i1ui + A2.im * i1ur + (A.re * i2ui + A.im * i2ur);
+      const pcr = A.re * i1ur - A.im * i1ui + (A2.re * i2ur - A2.im * i2ui);
+      const pci = A.re * i1ui + A.im * i1ur + (A2.re * i2ui + A2.im * i2ur);
+      const m = Math.sqrt(Math.max(par * par + pai * pai, pbr * pbr + pbi * pbi, pcr * pcr + pci * pci));
       const k = m > lim ? lim / m : 1;
       const g1r = i1ur * k;
       const g1i = i1ui * k;

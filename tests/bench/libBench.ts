@@ -45,16 +45,15 @@ export function timeMedian(fn: () => unknown, opts: { warmup?: number; runs?: nu
 }
 
 /** timeMedian for an asynchronous function (each call awaited before the next). */
-export async function timeMedianAsync(fn: () => Promise<unknown>, opts: { warmup?: number; runs?: number; collect?: boolean } = {}): Promise<Timing> {
-  const gc = opts.collect ? (globalThis as { gc?: () => void }).gc : undefined;
+export async function timeMedianAsync(fn: () => Promise<unknown>, opts: { warmup?: number; runs?: number } = {}): Promise<Timing> {
   for (let i = 0; i < (opts.warmup ?? 2); i++) await fn();
   const t: number[] = [];
   for (let i = 0; i < Math.max(1, opts.runs ?? 7); i++) {
-    gc?.();
     const t0 = performance.now();
     await fn();
     t.push(performance.now() - t0);
   }
+  if (process.env.BENCHDBG) console.log('      runs:', t.map((x) => x.toFixed(0)).join(' '));
   return { median_ms: median(t), min_ms: Math.min(...t), runs: t.length };
 }
 

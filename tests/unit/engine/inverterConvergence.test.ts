@@ -6,7 +6,7 @@ import { compileNetwork, sweepFaults } from "../../../src/engine/index.ts";
 
 // The refined inverter model is a fixed point (each unit's current follows its terminal voltage); on the demo site's
 // islanded scenarios, where converters carry most of the fault current and limits switch, every fault must settle.
-// Check: the engine's own residual report (|T(x) - x| below 1e-11 pu of rated current), i.e. self-consistency.
+// Check: the engine's own residual report (|T(x) - x| below 1e-9 of each unit's rated current, TOLERANCE_PU), i.e. self-consistency.
 describe("refined inverter iteration on the demo site's islands", () => {
   const loaded = loadProject(readFileSync(join(__dirname, "../../../assets/demo/dairy-coop.islet"), "utf8"));
   if (!loaded.ok) throw new Error("demo");

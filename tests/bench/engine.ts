@@ -111,9 +111,10 @@ for (const c of cases) {
     const sweep = sweepFaults(net, { types });
     const nb = sweep.busIds.length;
     const full = `${label}, ${sweep.devices.length} devices`;
-    figure(`${full}, one thread`, sweepT.median_ms, "ms", `${sweepT.runs} run(s)`);
+    const spread = (t: typeof sweepT) => `median of ${t.runs} run(s), ${t.min_ms.toFixed(0)}-${t.max_ms.toFixed(0)} ms`;
+    figure(`${full}, one thread`, sweepT.median_ms, "ms", spread(sweepT));
     if (c.sweepTarget_ms) target(`${full}, ${THREADS} threads`, poolT.median_ms, "ms", "lower", c.sweepTarget_ms);
-    else figure(`${full}, ${THREADS} threads`, poolT.median_ms, "ms", `${poolT.runs} run(s)`);
+    figure(`${full}, ${THREADS} threads`, poolT.median_ms, "ms", spread(poolT));
     figure("faults per second in the sweep, one thread", (nb * types.length) / (sweepT.median_ms / 1000), "1/s", `${nb} buses x ${types.length} types`);
     figure("the same sweep with the IEC 60909 converter model", iecT.median_ms, "ms", "for comparison");
     const d = sweep.deviceData;

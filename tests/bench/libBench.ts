@@ -4,6 +4,7 @@
 export interface Timing {
   median_ms: number;
   min_ms: number;
+  max_ms: number;
   runs: number;
 }
 
@@ -31,7 +32,7 @@ export function timeMedian(fn: () => unknown, opts: { warmup?: number; runs?: nu
     const t0 = performance.now();
     fn();
     const dt = performance.now() - t0;
-    if (i === 0 && dt > budget / 2) return { median_ms: dt, min_ms: dt, runs: 1 };
+    if (i === 0 && dt > budget / 2) return { median_ms: dt, min_ms: dt, max_ms: dt, runs: 1 };
   }
   const timedStart = performance.now();
   const gc = opts.collect ? (globalThis as { gc?: () => void }).gc : undefined;
@@ -41,7 +42,7 @@ export function timeMedian(fn: () => unknown, opts: { warmup?: number; runs?: nu
     fn();
     t.push(performance.now() - t0);
   }
-  return { median_ms: median(t), min_ms: Math.min(...t), runs: t.length };
+  return { median_ms: median(t), min_ms: Math.min(...t), max_ms: Math.max(...t), runs: t.length };
 }
 
 /** timeMedian for an asynchronous function (each call awaited before the next). */
@@ -53,8 +54,7 @@ export async function timeMedianAsync(fn: () => Promise<unknown>, opts: { warmup
     await fn();
     t.push(performance.now() - t0);
   }
-  if (process.env.BENCHDBG) console.log('      runs:', t.map((x) => x.toFixed(0)).join(' '));
-  return { median_ms: median(t), min_ms: Math.min(...t), runs: t.length };
+  return { median_ms: median(t), min_ms: Math.min(...t), max_ms: Math.max(...t), runs: t.length };
 }
 
 const fmt = (v: number) => (Math.abs(v) >= 100 ? v.toFixed(0) : Math.abs(v) >= 10 ? v.toFixed(1) : v.toPrecision(3));

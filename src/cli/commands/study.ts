@@ -62,9 +62,10 @@ export const studyCommand: CliCommand = {
     try {
       if (parsed.threads > 1) {
         const project = loaded.project;
+        // One network at a time, each under the same key so that the workers let the previous one go.
         const pool = new SweepPool(parsed.threads);
         try {
-          report = await busFaultTableWith(project, parsed.scenario, (task) => pool.sweep(pool.load(`${task.scenarioId ?? ""}|${task.limit}`, project, task.compile, task.result.network), BUS_TABLE_SWEEP));
+          report = await busFaultTableWith(project, parsed.scenario, (task, network) => pool.sweep(pool.load("table", project, task.compile, network), BUS_TABLE_SWEEP));
         } finally {
           await pool.close();
         }

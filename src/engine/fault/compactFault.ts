@@ -121,10 +121,9 @@ export function solveCompactFault(p: CompactFaultInput, inj1: ComplexVec, inj2: 
 }
 
 /** Loads Z[u_j, k] for the faulted node k into the response: the same for every fault type at that bus. */
-export function loadFaultColumns(r: FaultCoupledResponse, p: CompactFaultInput): FaultCoupledResponse {
-  const { colU, k } = p;
+export function loadFaultColumns(r: FaultCoupledResponse, colU: ComplexVec[][], unitIdx: number[], k: number): FaultCoupledResponse {
   for (let j = 0; j < r.J; j++) {
-    const u = p.unitIdx[j];
+    const u = unitIdx[j];
     r.z1r[j] = colU[1][u].re[k];
     r.z1i[j] = colU[1][u].im[k];
     r.z2r[j] = colU[2][u].re[k];
@@ -162,5 +161,5 @@ export function responseFromAffine(r: FaultCoupledResponse, aff: FaultAffine, c:
 /** A fresh fault-coupled response for the fault in p (one-off solves; a sweep reuses one with loadFaultResponse). */
 export function compactResponse(p: CompactFaultInput): FaultCoupledResponse {
   const block = p.block ?? unitBlock(p.model, p.unitIdx, p.colU);
-  return loadFaultResponse(loadFaultColumns(new FaultCoupledResponse(p.unitIdx.length, block), p), p);
+  return loadFaultResponse(loadFaultColumns(new FaultCoupledResponse(p.unitIdx.length, block), p.colU, p.unitIdx, p.k), p);
 }

@@ -9,7 +9,7 @@ import type { CompiledNetwork, EngineMessage, FaultType, SweepOptions, SweepResu
 import { FAULT_TYPES, TRANSFER_BLOCK } from "../types.ts";
 import type { Cx } from "../network/model.ts";
 import { sequenceSystem, type SequenceSystem } from "../network/sequenceSystem.ts";
-import { compactUnits, responseFromAffine, unitBlock, unitColumns } from "./compactFault.ts";
+import { compactUnits, loadFaultColumns, responseFromAffine, unitBlock, unitColumns } from "./compactFault.ts";
 import { FaultAffine, faultMagnitudesOf } from "./faultAffine.ts";
 import { FaultCoupledResponse } from "../inverter/unitResponse.ts";
 import { InjectionWork, iterateInjections } from "../inverter/refinedIteration.ts";
@@ -163,11 +163,12 @@ export function planSweep(network: CompiledNetwork, options: SweepOptions = {}):
   const blocks = Math.ceil(layout.bySlot.length / BLOCK);
   const negative = negativeCorrection(sys[1].factor, sys[2].factor, combos);
   const k = negative?.rank ?? 0;
-  const negativeW = new Float64Array(negative ? layout.rows * k * 2 : 0);
-  if (negative) {
-    // W in the layout's rows: the factor's order in place, the swept buses' rows otherwise.
-    for (let r = 0; r < layout.rows; r++) {
-      const from = layout.inPlace ? r : layout.solveRow[r];
+  // W of the negative correction in the layout's rows: the factor's order in place, the swept buses' rows otherwise.
+  let negativeW = negative?.w ?? new Float64Array(0);
+  if (negative && !layout.inPlace) {
+    negativeW = new Float64Array(layout.transferRows * k * 2);
+    for (let r = 0; r < layout.transferRows; r++) {
+      const from = layout.solveRow[r];
       if (from < 0) continue;
       for (let q = 0; q < 2 * k; q++) negativeW[r * 2 * k + q] = negative.w[from * 2 * k + q];
     }
@@ -175,7 +176,7 @@ export function planSweep(network: CompiledNetwork, options: SweepOptions = {}):
   const sizes: Record<keyof SweepArrays, number> = {
     // Blocks keep room for all three sequences; with the negative correction the third is never written (no memory
     // is touched for it).
-    transfer: blocks * 6 * layout.rows * BLOCK,
+    transfer: blocks * 6 * layout.transferRows * BLOCK,
     injMap: D * J * 6,
     negativeAlpha: negative ? layout.bySlot.length * k * 2 : 0,
     ikss_kA: B * T,
@@ -339,13 +340,7 @@ function* sweepBusSteps(network: CompiledNetwork, plan: SweepPlan, arrays: Sweep
       isl.vpre.fill(c);
       // Z_s[u_j, k] (reciprocity): for the refined response, and for the open-circuit voltages the injections make
       // at the fault.
-      for (let l = 0; l < Jl; l++) {
-        const u = unitIdx[l];
-        response.z1r[l] = colU[1][u].re[k];
-        response.z1i[l] = colU[1][u].im[k];
-        response.z2r[l] = colU[2][u].re[k];
-        response.z2i[l] = colU[2][u].im[k];
-      }
+      loadFaultColumns(response, colU, unitIdx, k);
       let ik3 = -1;
       // IEC 60909 converter currents depend on the faulted bus only (arg I_j = -arg Z_kj): once for all fault types.
       if (Jl > 0 && used === "iec") {
@@ -452,10 +447,9 @@ function islandWork(model: EngineInternal["model"], island: number, colU: Comple
 const BLOCK = TRANSFER_BLOCK;
 
 interface TransferLayout {
-  /** Rows of each part: every node of the network when the sweep covers most of them, else just its buses. */
-  rows: number;
   /** Whether the block solves run in the result (rows = nodes in the factor's order) or are copied out by bus. */
   inPlace: boolean;
+  /** Rows of each part: every node of the network when the sweep covers most of them, else just its buses. */
   transferRows: number;
   transferBusRow: Int32Array;
   transferSlot: Int32Array;
@@ -486,7 +480,7 @@ function transferLayout(n: number, inv: Int32Array, combos: (Combination | null)
   for (let d = 0; d < D; d++) if (combos[d] && seesZero(d)) bySlot.push(d);
   for (let d = 0; d < D; d++) if (combos[d] && !seesZero(d)) bySlot.push(d);
   bySlot.forEach((d, k) => (slot[d] = k));
-  return { rows, inPlace, transferRows: rows, transferBusRow: busRow, transferSlot: slot, solveRow, bySlot };
+  return { inPlace, transferRows: rows, transferBusRow: busRow, transferSlot: slot, solveRow, bySlot };
 }
 
 /**
@@ -503,7 +497,7 @@ export function sweepTransfers(plan: SweepPlan, arrays: SweepArrays, claim: Clai
   const B = plan.busIds.length;
   const J = plan.unitNodes.length;
   const inv = sys[1].factor.ordering.inv;
-  const { rows, solveRow, bySlot, inPlace } = layout;
+  const { transferRows: rows, solveRow, bySlot, inPlace } = layout;
   const used = bySlot.length;
   const part = rows * BLOCK;
   const unitRow = new Int32Array(J);

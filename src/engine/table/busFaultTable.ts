@@ -28,13 +28,12 @@ export interface BusFaultTable {
   runs: BusFaultRun[];
 }
 
-/** One (scenario, limit) pair of the table: its network, or why it could not be built. */
+/** One (scenario, limit) pair of the table and how to build its network. */
 export interface BusFaultTask {
   scenarioId: string | undefined;
   scenarioName: string;
   limit: Limit;
   compile: CompileOptions;
-  result: CompileResult;
 }
 
 /** The (scenario, limit) pairs: every scenario's, or the one scenario asked for. Throws only on an unknown scenario id. */
@@ -44,20 +43,14 @@ export function busFaultTasks(project: Project, scenarioId?: string): BusFaultTa
   const plan: { id: string | undefined; name: string; limits: Limit[] }[] = scenarios.length
     ? scenarios.map((s) => ({ id: s.id, name: s.name, limits: s.limits }))
     : [{ id: undefined, name: "(as drawn)", limits: ["max", "min"] }];
-  return plan.flatMap((sc) =>
-    sc.limits.map((limit) => {
-      const compile: CompileOptions = { scenario: sc.id, limit };
-      return { scenarioId: sc.id, scenarioName: sc.name, limit, compile, result: compileNetwork(project, compile) };
-    }),
-  );
+  return plan.flatMap((sc) => sc.limits.map((limit) => ({ scenarioId: sc.id, scenarioName: sc.name, limit, compile: { scenario: sc.id, limit } })));
 }
 
 /** The sweep options of the table: the four fault types, no device currents. */
 export const BUS_TABLE_SWEEP: SweepOptions = { types: [...FAULT_TYPES], devices: [] };
 
-/** One run of the table from its task and, when the network was built, its sweep (BUS_TABLE_SWEEP). */
-export function busFaultRun(project: Project, task: BusFaultTask, sw: SweepResult | null): BusFaultRun {
-  const c = task.result;
+/** One run of the table from its task, its network (or why it could not be built) and then its sweep (BUS_TABLE_SWEEP). */
+export function busFaultRun(project: Project, task: BusFaultTask, c: CompileResult, sw: SweepResult | null): BusFaultRun {
   if (!c.ok || !sw) return { scenario: task.scenarioId ?? "", scenarioName: task.scenarioName, limit: task.limit, ok: false, options: null, buses: [], messages: c.ok ? [] : c.errors };
   const unOf = new Map(project.elements.filter((e) => e.kind === "bus").map((e) => [e.id, (e as { un_kV: number }).un_kV]));
   const T = sw.types.length;
@@ -71,16 +64,20 @@ export function busFaultRun(project: Project, task: BusFaultTask, sw: SweepResul
 
 /** Runs every (scenario, limit) pair, or the one scenario asked for. Throws only on an unknown scenario id. */
 export function busFaultTable(project: Project, scenarioId?: string): BusFaultTable {
-  const runs = busFaultTasks(project, scenarioId).map((task) => busFaultRun(project, task, task.result.ok ? sweepFaults(task.result.network, BUS_TABLE_SWEEP) : null));
+  // One network at a time: built, swept, reduced to its rows, let go.
+  const runs = busFaultTasks(project, scenarioId).map((task) => {
+    const c = compileNetwork(project, task.compile);
+    return busFaultRun(project, task, c, c.ok ? sweepFaults(c.network, BUS_TABLE_SWEEP) : null);
+  });
   return { caution: CAUTION, runs };
 }
 
 /** The same table with the sweeps done by `sweep` (for example shared among threads, see SweepPool in src/cli). */
-export async function busFaultTableWith(project: Project, scenarioId: string | undefined, sweep: (task: BusFaultTask & { result: { ok: true; network: CompiledNetwork } }) => Promise<SweepResult>): Promise<BusFaultTable> {
+export async function busFaultTableWith(project: Project, scenarioId: string | undefined, sweep: (task: BusFaultTask, network: CompiledNetwork) => Promise<SweepResult>): Promise<BusFaultTable> {
   const runs: BusFaultRun[] = [];
   for (const task of busFaultTasks(project, scenarioId)) {
-    const r = task.result;
-    runs.push(busFaultRun(project, task, r.ok ? await sweep({ ...task, result: r }) : null));
+    const c = compileNetwork(project, task.compile);
+    runs.push(busFaultRun(project, task, c, c.ok ? await sweep(task, c.network) : null));
   }
   return { caution: CAUTION, runs };
 }

@@ -35,10 +35,14 @@ export function studyClient(port: WorkerPort): StudyClient {
     for (const [requestId, p] of pending) p.resolve({ kind: "error", requestId, ok: false, message });
     pending.clear();
   });
+  // A cancelled request answers "cancelled" at once: the user asked to stop, so a result the worker was about to
+  // send (a small study can finish before the cancel reaches it) is dropped, and the worker is told to stop.
   const cancel = (requestId: string) => {
     const p = pending.get(requestId);
     if (!p) return;
+    pending.delete(requestId);
     port.post({ service: "study-cancel", requestId });
+    p.resolve({ kind: "cancelled", requestId, ok: false });
   };
   return {
     call(request, onProgress) {

@@ -38,6 +38,24 @@ describe("the calculation client on the main thread (the fallback when there is 
     const { requestId, result } = client.call({ kind: "full", project: gridOnly() });
     client.cancel(requestId);
     const r = await result;
-    expect(["cancelled", "full"]).toContain(r.kind); // a tiny study may finish before the cancel lands
+    expect(r.kind).toBe("cancelled");
+  });
+
+  it("answers a cancelled study at once and drops a result the worker sends after it", async () => {
+    const posted: string[] = [];
+    let reply: ((r: unknown) => void) | null = null;
+    const port = {
+      post: (call: { service: string }) => void posted.push(call.service),
+      listen: (h: (r: unknown) => void) => void (reply = h),
+      onFailure: () => {},
+      terminate: () => {},
+    };
+    const client = studyClient(port as never);
+    const { requestId, result } = client.call({ kind: "full", project: gridOnly() });
+    client.cancel(requestId);
+    // the worker had already finished: its answer arrives after the cancel
+    reply!({ service: "study", response: { kind: "full", requestId, ok: true, result: {} } });
+    expect((await result).kind).toBe("cancelled");
+    expect(posted).toEqual(["study", "study-cancel"]);
   });
 });

@@ -127,7 +127,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   };
 
   const shiftOf = (net: CompiledNetwork, bus: string): number => {
-    const n = net.busNode[bus];
+    const n = Object.hasOwn(net.busNode, bus) ? net.busNode[bus] : undefined;
     return n === undefined ? 0 : (net.nodes[n]?.shift_deg ?? 0);
   };
 
@@ -142,7 +142,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     for (const e of r.branchEnds) ends.set(`${e.element}|${e.end}`, e);
     for (const e of r.shunts) ends.set(`${e.element}|${e.end}`, e);
     const volts = new Map(r.buses.map((b) => [b.bus, b] as const));
-    const readings: Record<string, DeviceReading> = {};
+    const readings: Record<string, DeviceReading> = Object.create(null); // keyed by ids: no inherited keys
     for (const d of devices) {
       if (wanted && !wanted.has(d.id)) continue;
       const end = ends.get(locKey.get(d.id)!);
@@ -168,15 +168,15 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
       const r = solveFault(net, loc, type, { detail: "devices" });
       return snapshotOfFault(net, r, shiftOf(net, busOf(loc, variantProject)), wanted);
     } catch (err) {
-      return { iFault_A: 0, readings: {}, messages: [err instanceof Error ? err.message : String(err)] };
+      return { iFault_A: 0, readings: Object.create(null) as Record<string, DeviceReading>, messages: [err instanceof Error ? err.message : String(err)] };
     }
   };
 
   const fromSweep = (net: CompiledNetwork, sweep: SweepResult, bus: string, type: FaultType, wanted: Wanted): FaultSnapshot => {
     const b = sweepBusIndex.get(sweep)!.get(bus);
     const t = sweep.types.indexOf(type);
-    if (b === undefined || t < 0) return { iFault_A: 0, readings: {}, messages: [] };
-    const readings: Record<string, DeviceReading> = {};
+    if (b === undefined || t < 0) return { iFault_A: 0, readings: Object.create(null) as Record<string, DeviceReading>, messages: [] };
+    const readings: Record<string, DeviceReading> = Object.create(null); // keyed by ids: no inherited keys
     const refShift = shiftOf(net, bus);
     const { index, shift_deg } = sweepDevicesOf(net, sweep);
     for (let k = 0; k < devices.length; k++) {
@@ -258,7 +258,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   const solveEach = (scenario: Scenario, locations: FaultLocation[], type: FaultType, limit: FaultLimit, wanted?: readonly string[]): ((i: number) => FaultSnapshot) => {
     const v = variantOf(scenario, []);
     const c = compile(v, limit);
-    if (!c.network) return (k) => ({ iFault_A: 0, readings: {}, messages: k === 0 ? c.messages : [] });
+    if (!c.network) return (k) => ({ iFault_A: 0, readings: Object.create(null) as Record<string, DeviceReading>, messages: k === 0 ? c.messages : [] });
     const net = c.network;
     const where = locations.map(locate);
     const buses = [...new Set(where.filter((l) => l.kind === "bus").map((l) => (l as { bus: string }).bus))];
@@ -292,7 +292,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   const solveOne = (scenario: Scenario, location: FaultLocation, type: FaultType, limit: FaultLimit, open: OpenEnd[]): FaultSnapshot => {
     const v = variantOf(scenario, open);
     const c = compile(v, limit);
-    if (!c.network) return { iFault_A: 0, readings: {}, messages: c.messages };
+    if (!c.network) return { iFault_A: 0, readings: Object.create(null) as Record<string, DeviceReading>, messages: c.messages };
     return solveSingle(c.network, v.project, split.locate(location), type);
   };
 
@@ -305,7 +305,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
       const lf = runLoadFlow(lfProject, { scenario: original ? scenario.id : `${scenario.id}~study-variant` });
       if (!lf.converged) return null;
       const at = new Map(loadCurrents(lf).map((l) => [`${l.element}|${l.end}`, Math.abs(l.i_A)] as const));
-      const out: Record<string, number> = {};
+      const out: Record<string, number> = Object.create(null); // keyed by ids: no inherited keys
       for (const d of devices) {
         const i = at.get(`${d.at.element}|${d.at.end}`);
         if (i !== undefined) out[d.id] = i;

@@ -102,7 +102,7 @@ export function scenarioNetwork(project: Project, scenario: Scenario): ScenarioN
       continue;
     }
     if (out.has(e.id)) continue;
-    const closed = e.kind === "switch" ? (scenario.switchStates[e.id] ?? e.closed) : true;
+    const closed = e.kind === "switch" ? (Object.hasOwn(scenario.switchStates, e.id) ? scenario.switchStates[e.id] : e.closed) : true;
     const ends = endsOf(e, closed);
     if (ends.length === 0 || ends.some((x) => out.has(x.bus) || elements.get(x.bus)?.kind !== "bus")) continue;
     for (const x of ends) {

@@ -2,6 +2,7 @@
 // Buses are nodes; every other network element is a node tied to its buses by edges; protective
 // devices are drawn inside the node they look into.
 import { isProtectiveDevice, type Bus, type Element, type Project, type ProtectiveDevice } from "../../src/model/schema.ts";
+import { ownValue } from "../../src/model/ownValue.ts";
 import type { FaultOverlay } from "../fault/overlayTypes.ts";
 import type { OneLineEdge, OneLineNode } from "./flowTypes.ts";
 import { toneColor, voltageTone } from "./voltageTone.ts";
@@ -46,13 +47,13 @@ const SAME_ROW_PX = 30;
 
 /** Layout positions are node centres. A branch whose two buses sit on its own row is drawn across. */
 export function isHorizontal(e: Element, layout: Project["layout"]): boolean {
-  const place = layout[e.id];
+  const place = ownValue(layout, e.id);
   if (!place || !isBranchLike(e)) return false;
   if (place.rot !== undefined) return Math.abs(place.rot % 180) === 90;
   const f = terminalFields(e);
   const rec = e as Record<string, unknown>;
-  const a = layout[String(rec[f.a ?? ""])];
-  const b = layout[String(rec[f.b ?? ""])];
+  const a = ownValue(layout, String(rec[f.a ?? ""]));
+  const b = ownValue(layout, String(rec[f.b ?? ""]));
   return !!a && !!b && Math.abs(a.y - place.y) < SAME_ROW_PX && Math.abs(b.y - place.y) < SAME_ROW_PX;
 }
 
@@ -60,8 +61,8 @@ export function isHorizontal(e: Element, layout: Project["layout"]): boolean {
 export function isDown(e: Element, layout: Project["layout"]): boolean {
   const f = terminalFields(e);
   const busId = f.a ? (e as Record<string, unknown>)[f.a] : undefined;
-  const bus = typeof busId === "string" ? layout[busId] : undefined;
-  const place = layout[e.id];
+  const bus = typeof busId === "string" ? ownValue(layout, busId) : undefined;
+  const place = ownValue(layout, e.id);
   if (!bus || !place) return e.kind === "grid";
   return place.y < bus.y;
 }
@@ -84,7 +85,7 @@ export function toFlow(doc: Project, selection: readonly string[], overlay: Faul
   let unplaced = 0;
   for (const e of doc.elements) {
     if (isProtectiveDevice(e)) continue;
-    const place = doc.layout[e.id] ?? { x: 40 + (unplaced % 8) * 140, y: 40 + Math.floor(unplaced++ / 8) * 160 };
+    const place = ownValue(doc.layout, e.id) ?? { x: 40 + (unplaced % 8) * 140, y: 40 + Math.floor(unplaced++ / 8) * 160 };
     if (e.kind === "bus") {
       const width = place.w ?? DEFAULT_BUS_WIDTH;
       nodes.push({
@@ -102,7 +103,7 @@ export function toFlow(doc: Project, selection: readonly string[], overlay: Faul
           width,
           faulted: overlay?.at === e.id,
           ikss_kA: overlay?.at === e.id ? overlay.ikss_kA : null,
-          voltage_pu: overlay ? (overlay.busVoltages_pu[e.id] ?? null) : null,
+          voltage_pu: overlay ? (ownValue(overlay.busVoltages_pu, e.id) ?? null) : null,
         },
       });
       continue;
@@ -115,8 +116,11 @@ export function toFlow(doc: Project, selection: readonly string[], overlay: Faul
     const devicesA = devicesAt.get(`${e.id}:${branch ? "from" : "terminal"}`) ?? EMPTY;
     const devicesB = branch ? (devicesAt.get(`${e.id}:to`) ?? EMPTY) : EMPTY;
     const selectedDevices = [...devicesA, ...devicesB].filter((d) => selected.has(d.id)).map((d) => d.id);
-    const marks: FaultOverlay["devices"] = {};
-    if (overlay) for (const d of [...devicesA, ...devicesB]) if (overlay.devices[d.id]) marks[d.id] = overlay.devices[d.id];
+    const marks: FaultOverlay["devices"] = Object.create(null); // keyed by device ids
+    for (const d of overlay ? [...devicesA, ...devicesB] : EMPTY) {
+      const mark = ownValue(overlay?.devices, d.id);
+      if (mark) marks[d.id] = mark;
+    }
     nodes.push({
       id: e.id,
       type: branch ? "branch" : "shunt",
@@ -134,7 +138,7 @@ export function toFlow(doc: Project, selection: readonly string[], overlay: Faul
         selectedDevices,
         caption: e.name || e.id,
         detail: elementCaption(e),
-        flow: overlay?.flows[e.id] ?? null,
+        flow: (overlay && ownValue(overlay.flows, e.id)) ?? null,
         marks,
         faulted: overlay?.at === e.id,
         ikss_kA: overlay?.at === e.id ? overlay.ikss_kA : null,

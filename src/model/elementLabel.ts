@@ -26,7 +26,7 @@ interface Labelled {
 /** `Cable C12 "Dock feeder"`; tolerant of half-broken records (used on raw input too). */
 export function elementLabel(record: Labelled | null | undefined, fallback = "Element"): string {
   const r = record ?? {};
-  let word = typeof r.kind === "string" ? (KIND_WORDS[r.kind] ?? `Element of kind ${JSON.stringify(r.kind)}`) : fallback;
+  let word = typeof r.kind === "string" ? ((Object.hasOwn(KIND_WORDS, r.kind) ? KIND_WORDS[r.kind] : undefined) ?? `Element of kind ${JSON.stringify(r.kind)}`) : fallback;
   if (r.kind === "line") word = r.construction === "overhead" ? "Overhead line" : "Cable";
   const id = typeof r.id === "string" && r.id !== "" ? idText(r.id) : "(no id)";
   const name = typeof r.name === "string" && r.name !== "" ? ` "${r.name}"` : "";

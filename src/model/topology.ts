@@ -1,5 +1,6 @@
 // Which buses are joined in a given scenario: in-service branches and closed switches join their buses
 // (union-find); each resulting island lists the in-service sources feeding it.
+import { ownValue } from "./ownValue.ts";
 import { elementBuses, isBranch, isSource, type Element, type Project, type Scenario } from "./schema.ts";
 
 export interface Island {
@@ -13,7 +14,7 @@ export interface Island {
 /** A switch's state in a scenario: the scenario's override, else the switch's own state. */
 export function isSwitchClosed(element: Element, scenario?: Scenario): boolean {
   if (element.kind !== "switch") return false;
-  const override = scenario?.switchStates[element.id];
+  const override = ownValue(scenario?.switchStates, element.id);
   return override ?? element.closed;
 }
 

@@ -3,6 +3,7 @@
 // two circles, lines as an impedance box, switches as a square with a cross, sources and loads as circles
 // and triangles, protective devices as small marks beside the element they look into.
 import { elementBuses, isProtectiveDevice, type Bus, type Element, type Project, type ProtectiveDevice } from "../model/schema.ts";
+import { ownValue } from "../model/ownValue.ts";
 import { REPORT_COLORS, voltageColor } from "./reportColors.ts";
 import { n, svgText } from "./svgText.ts";
 
@@ -117,7 +118,7 @@ export function oneLineSvg(project: Project, options: OneLineOptions = {}): stri
   let unplaced = 0;
   for (const e of project.elements) {
     if (isProtectiveDevice(e)) continue;
-    const p = project.layout[e.id];
+    const p = ownValue(project.layout, e.id);
     // elements the layout does not place go on a grid below everything else, as the studio does
     place.set(e.id, p ? { x: p.x, y: p.y, w: p.w } : { x: 40 + (unplaced % 8) * 140, y: 100000 + Math.floor(unplaced++ / 8) * 160 });
   }

@@ -2,6 +2,7 @@
 // closed switches (union-find), element stamps per sequence, islands and vector-group phase shifts.
 import type { Element, Project, Scenario } from "../../model/schema.ts";
 import { elementLabel } from "../../model/elementLabel.ts";
+import { idRecord, ownValue } from "../../model/ownValue.ts";
 import type { CompileOptions, CompileResult, EngineMessage, NetworkNode } from "../types.ts";
 import type { BranchStamp, Model, ShuntStamp, InverterUnit } from "./model.ts";
 import { resolveOptions } from "./resolveOptions.ts";
@@ -56,7 +57,7 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
   };
   for (const e of project.elements) {
     if (e.kind !== "switch" || out.has(e.id)) continue;
-    const closed = states[e.id] ?? e.closed;
+    const closed = ownValue(states, e.id) ?? e.closed;
     if (!closed) continue;
     const okA = busOf(e, "busA", e.busA);
     const okB = busOf(e, "busB", e.busB);
@@ -243,7 +244,7 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
       scenario: scenario?.id ?? "",
       options: opts,
       nodes: publicNodes,
-      busNode: Object.fromEntries(busNode),
+      busNode: idRecord(busNode),
       messages,
       internal: { model, cache: createEngineCache() },
     },

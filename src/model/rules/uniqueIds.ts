@@ -1,5 +1,6 @@
 // Every element id is unique in the project, every scenario id among scenarios,
-// and every function id within its relay (ids are how records refer to each other).
+// and every function id within its relay (ids are how records refer to each other). An element id is
+// never "__proto__".
 import { errorMessage, type Message } from "../messages.ts";
 import type { RuleContext } from "./ruleContext.ts";
 
@@ -7,6 +8,8 @@ export function uniqueIds(ctx: RuleContext): Message[] {
   const out: Message[] = [];
   const seen = new Map<string, number>();
   ctx.project.elements.forEach((e, i) => {
+    // Element ids are keys of layout and switchStates, where JSON readers give "__proto__" a meaning of its own
+    if (e.id === "__proto__") out.push(errorMessage(`${ctx.label(e)}: id "__proto__" is reserved (as a key of layout and switchStates it would not be kept); choose another id`, e.id, "id"));
     const first = seen.get(e.id);
     if (first === undefined) seen.set(e.id, i);
     else out.push(errorMessage(`${ctx.label(e)}: id "${e.id}" is already used by elements[${first}] (ids must be unique; this is elements[${i}])`, e.id, "id"));

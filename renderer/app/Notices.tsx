@@ -18,6 +18,17 @@ export function Notices() {
               {n.details.length > 8 && <li>… and {n.details.length - 8} more</li>}
             </ul>
           )}
+          {n.action && (
+            <button
+              className="small-button notice-action"
+              onClick={() => {
+                n.action?.run();
+                dismiss(n.id);
+              }}
+            >
+              {n.action.label}
+            </button>
+          )}
           <button className="notice-close" onClick={() => dismiss(n.id)} aria-label="Dismiss">
             ×
           </button>

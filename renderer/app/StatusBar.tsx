@@ -11,6 +11,7 @@ export function StatusBar() {
   const savedRevision = useSessionStore((s) => s.savedRevision);
   const file = useSessionStore((s) => s.file);
   const timings = useFaultStore((s) => s.timings_ms);
+  const diagnostics = useSessionStore((s) => s.diagnostics);
   const messages = useValidation();
   const errors = messages.filter((m) => m.severity === "error").length;
   const warnings = messages.filter((m) => m.severity === "warning").length;
@@ -28,7 +29,7 @@ export function StatusBar() {
       <span className={`status-cell${errors ? " has-errors" : ""}`} data-testid="validation-count">
         {errors} errors · {warnings} warnings
       </span>
-      {last !== undefined && (
+      {diagnostics && last !== undefined && (
         <span className="status-cell" data-testid="overlay-time" title="Time from the last edit to the updated fault overlay">
           overlay {last.toFixed(1)} ms
         </span>

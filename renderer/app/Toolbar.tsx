@@ -4,7 +4,7 @@ import { useStore } from "zustand";
 import type { FileRef } from "../../src/model/hostContract.ts";
 import { FAULT_TYPES, type FaultLimit, type FaultType } from "../../src/study/types.ts";
 import { useDocumentStore, undo, redo } from "../store/documentStore.ts";
-import { useSessionStore } from "../store/sessionStore.ts";
+import { useSessionStore, setViewPreference } from "../store/sessionStore.ts";
 import { newDocument, openDocument, openDemo, openRecentDocument, saveDocument } from "../files/fileCommands.ts";
 import { currentHost } from "../host/currentHost.ts";
 import { alignSelection, copySelection, deleteSelection, paste, type AlignMode } from "../canvas/editCommands.ts";
@@ -13,12 +13,54 @@ import { autoLayout } from "../canvas/autoLayout.ts";
 import { faultAtSelection } from "./faultCommands.ts";
 import { StudyControl } from "./StudyControl.tsx";
 import { saveReport } from "../files/saveReport.ts";
+import { commitPendingEdits } from "./pendingEdits.ts";
 
 const FAULT_WORDS: Record<FaultType, string> = { "3ph": "Three-phase", LL: "Line-line", LG: "Line-earth", LLG: "Line-line-earth" };
 
 /** A chosen menu item closes its menu (a <details> would otherwise stay open over the one-line). */
 function closeMenuOnChoice(e: MouseEvent<HTMLElement>): void {
   if ((e.target as Element).closest(".menu-item")) e.currentTarget.closest("details")?.removeAttribute("open");
+}
+
+/** Open menus close on Escape and on a press anywhere outside them. */
+function useMenuDismissal(): void {
+  useEffect(() => {
+    const closeAll = (except?: Element | null) => {
+      for (const m of document.querySelectorAll("details.menu[open]")) if (m !== except) m.removeAttribute("open");
+    };
+    const onPointer = (e: PointerEvent) => closeAll((e.target as Element | null)?.closest?.("details.menu") ?? null);
+    const onKey = (e: KeyboardEvent) => {
+      if (e.key !== "Escape" || !document.querySelector("details.menu[open]")) return;
+      closeAll();
+      // the Escape closed a menu: it does not also clear the fault or the selection
+      e.stopPropagation();
+    };
+    document.addEventListener("pointerdown", onPointer, true);
+    window.addEventListener("keydown", onKey, true);
+    return () => {
+      document.removeEventListener("pointerdown", onPointer, true);
+      window.removeEventListener("keydown", onKey, true);
+    };
+  }, []);
+}
+
+/** View settings kept per user, never in the project: the mini-map and the developer figures. */
+function ViewMenu() {
+  const showMiniMap = useSessionStore((s) => s.showMiniMap);
+  const diagnostics = useSessionStore((s) => s.diagnostics);
+  return (
+    <details className="menu">
+      <summary className="tool-button">View</summary>
+      <div className="menu-list menu-right" data-testid="view-menu">
+        <label className="menu-item menu-check">
+          <input type="checkbox" checked={showMiniMap} onChange={(e) => setViewPreference("showMiniMap", e.target.checked)} /> Overview map
+        </label>
+        <label className="menu-item menu-check" title="Developer figures such as the time from an edit to the updated fault overlay">
+          <input type="checkbox" checked={diagnostics} onChange={(e) => setViewPreference("diagnostics", e.target.checked)} /> Diagnostics in the status bar
+        </label>
+      </div>
+    </details>
+  );
 }
 
 function RecentMenu() {
@@ -62,6 +104,7 @@ export function Toolbar() {
   const canRedo = useStore(useDocumentStore.temporal, (s) => s.futureStates.length > 0);
   const session = useSessionStore();
   const hasSelection = session.selection.length > 0;
+  useMenuDismissal();
   useEffect(() => {
     document.documentElement.dataset.theme = session.theme;
   }, [session.theme]);
@@ -77,8 +120,8 @@ export function Toolbar() {
       <div className="tool-group" aria-label="File">
         <button className="tool-button" onClick={() => void newDocument()}>New</button>
         <button className="tool-button" onClick={() => void openDocument()}>Open…</button>
-        <button className="tool-button" onClick={() => void saveDocument(false)} title="Ctrl+S">Save</button>
-        <button className="tool-button" onClick={() => void saveDocument(true)} title="Ctrl+Shift+S">Save as…</button>
+        <button className="tool-button" onClick={() => (commitPendingEdits(), void saveDocument(false))} title="Ctrl+S">Save</button>
+        <button className="tool-button" onClick={() => (commitPendingEdits(), void saveDocument(true))} title="Ctrl+Shift+S">Save as…</button>
         <RecentMenu />
         <button className="tool-button" onClick={() => void openDemo()}>Demo</button>
       </div>
@@ -141,9 +184,10 @@ export function Toolbar() {
       </div>
       <StudyControl />
       <div className="tool-group" aria-label="Report">
-        <button className="tool-button" onClick={() => void saveReport()} title="Run the study if needed and save the study report" data-testid="report">Report</button>
+        <button className="tool-button" onClick={() => (commitPendingEdits(), void saveReport())} title="Run the study if needed and save the study report" data-testid="report">Report</button>
       </div>
       <div className="tool-spacer" />
+      <ViewMenu />
       <button className="tool-button" onClick={() => session.set({ theme: session.theme === "light" ? "dark" : "light" })} aria-label="Switch theme">
         {session.theme === "light" ? "Dark" : "Light"}
       </button>

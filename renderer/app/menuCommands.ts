@@ -4,8 +4,10 @@ import { newDocument, openDocument, openDemo, openRecentDocument, saveDocument }
 import { undo, redo } from "../store/documentStore.ts";
 import { useSessionStore } from "../store/sessionStore.ts";
 import { CAUTION_TEXT } from "./caution.ts";
+import { commitPendingEdits } from "./pendingEdits.ts";
 
 export function runMenuCommand(command: MenuCommand): void {
+  commitPendingEdits();
   if (typeof command === "object") {
     void openRecentDocument(command.openRecent);
     return;

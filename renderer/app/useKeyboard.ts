@@ -6,6 +6,7 @@ import { useSessionStore } from "../store/sessionStore.ts";
 import { copySelection, deleteSelection, paste } from "../canvas/editCommands.ts";
 import { saveDocument } from "../files/fileCommands.ts";
 import { faultAtSelection } from "./faultCommands.ts";
+import { commitPendingEdits } from "./pendingEdits.ts";
 
 function typing(target: EventTarget | null): boolean {
   const el = target as HTMLElement | null;
@@ -21,6 +22,7 @@ export function useKeyboard(): void {
       const key = e.key.toLowerCase();
       if (mod && key === "s") {
         e.preventDefault();
+        commitPendingEdits();
         void saveDocument(e.shiftKey);
         return;
       }

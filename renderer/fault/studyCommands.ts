@@ -6,6 +6,7 @@ import type { StudyClient } from "../worker/studyClient.ts";
 import type { Project } from "../../src/model/schema.ts";
 import type { ClearingTimeline, StudyResult } from "../../src/study/types.ts";
 import { failureTimelineCases } from "../../src/report/failureTimelineCases.ts";
+import { commitPendingEdits } from "../app/pendingEdits.ts";
 
 let client: StudyClient | null = null;
 
@@ -15,6 +16,7 @@ export function setStudyClient(c: StudyClient): void {
 
 export async function runFullStudy(): Promise<void> {
   if (!client) return;
+  commitPendingEdits();
   const { doc, revision } = useDocumentStore.getState();
   const store = useStudyStore.getState();
   if (store.running) return;
@@ -28,12 +30,12 @@ export async function runFullStudy(): Promise<void> {
     const fails = response.result.verdicts.filter((v) => v.status === "fail").length;
     const w = response.result.warnings;
     const notes = w.length <= 3 ? w : [...w.slice(0, 2), `${w.length - 2} more notes: see the verdicts`];
-    session.notify("info", `Study finished: ${response.result.cases.length} fault cases, ${response.result.verdicts.length} verdicts (${fails} fail).`, notes);
+    session.notify("info", `Study finished: ${response.result.cases.length} fault cases, ${response.result.verdicts.length} verdicts (${fails} fail).`, notes, { topic: "study" });
     session.set({ pane: "verdicts" });
   } else if (response.kind === "cancelled") {
-    session.notify("info", "Study cancelled.");
+    session.notify("info", "Study cancelled.", undefined, { topic: "study" });
   } else if (response.kind === "error") {
-    session.notify("error", `The study could not run: ${response.message}`);
+    session.notify("error", `The study could not run: ${response.message}`, undefined, { topic: "study" });
   }
 }
 

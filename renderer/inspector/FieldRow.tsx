@@ -74,7 +74,7 @@ function NumberInput({ value, optional, onCommit, label }: { value: FieldValue; 
   );
 }
 
-function TextInput({ value, onCommit, label, readOnly }: { value: FieldValue; onCommit(v: string): void; label: string; readOnly: boolean }) {
+export function TextInput({ value, onCommit, label, readOnly }: { value: FieldValue; onCommit(v: string): void; label: string; readOnly: boolean }) {
   const shown = value === MIXED ? "" : typeof value === "string" ? value : "";
   const [draft, setDraft] = useState(shown);
   useEffect(() => setDraft(shown), [shown]);

@@ -10,7 +10,7 @@ import { useSessionStore } from "../store/sessionStore.ts";
 import type { DocChange } from "../store/changes.ts";
 import { fieldsOfKind, type FieldSpec } from "./fieldModel.ts";
 import { FieldList } from "./FieldList.tsx";
-import type { RowContext } from "./FieldRow.tsx";
+import { TextInput, type RowContext } from "./FieldRow.tsx";
 import { addElement, deviceLocationOn } from "../canvas/editCommands.ts";
 import { kindName } from "../canvas/newElement.ts";
 import { DEFAULT_BUS_WIDTH } from "../canvas/toFlow.ts";
@@ -20,6 +20,10 @@ function commonSpecs(kinds: ElementKind[]): FieldSpec[] {
   return lists[0].filter((f) => f.type !== "group" && f.type !== "list" && f.key !== "id" && lists.every((l) => l.some((g) => g.key === f.key && g.type === f.type)));
 }
 
+const PROJECT_FIELD_LABELS = { name: "Name", author: "Author", description: "Description" } as const;
+
+/** Project name, author and description: each commits on Enter and on leaving the field (and before
+ * a save, report or study: app/pendingEdits.ts). */
 function ProjectFields() {
   const meta = useDocumentStore((s) => s.doc.meta);
   const apply = useDocumentStore((s) => s.applyChanges);
@@ -28,15 +32,20 @@ function ProjectFields() {
     <div className="inspector-body">
       <p className="field-note">Nothing selected. Project:</p>
       {(["name", "author", "description"] as const).map((field) => (
-        <div className="field-row" key={field}>
-          <label className="field-label">{field[0].toUpperCase() + field.slice(1)}</label>
+        <div className="field-row" key={field} data-field={`meta.${field}`}>
+          <label className="field-label">{PROJECT_FIELD_LABELS[field]}</label>
           <div className="field-control">
-            <input
-              className="field-input"
-              aria-label={`Project ${field}`}
-              defaultValue={meta[field]}
-              key={meta[field]}
-              onBlur={(e) => e.target.value !== meta[field] && apply([{ type: "setMeta", field, value: e.target.value }], { undoable: true })}
+            <TextInput
+              label={`Project ${field}`}
+              value={meta[field]}
+              readOnly={false}
+              onCommit={(value) => {
+                if (field === "name" && value.trim() === "") {
+                  useSessionStore.getState().notify("error", "The project needs a name: the old name is kept.", undefined, { topic: "project-name" });
+                  return;
+                }
+                apply([{ type: "setMeta", field, value }], { undoable: true });
+              }}
             />
           </div>
         </div>

@@ -6,6 +6,10 @@ import type { Project } from "../../src/model/schema.ts";
 import type { DocChange } from "./changes.ts";
 import { applyChanges } from "./applyChanges.ts";
 import { newProject } from "../../src/model/projectFile.ts";
+import { useSessionStore } from "./sessionStore.ts";
+
+/** Notices about the document that was open (its study's error) go when another is opened. */
+const DOCUMENT_TOPICS = ["study", "document"];
 
 export interface ApplyOptions {
   /** false for edits that must not become an undo step (loading a file, replaying a drag frame). */
@@ -30,6 +34,7 @@ export const useDocumentStore = create<DocumentState>()(
         if (!options.undoable) t.pause();
         set({ doc: next, revision: get().revision + 1 });
         if (!options.undoable) t.resume();
+        if (changes.some((c) => c.type === "replaceDocument")) for (const topic of DOCUMENT_TOPICS) useSessionStore.getState().dismissTopic(topic);
       },
     }),
     {

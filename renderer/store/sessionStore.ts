@@ -11,7 +11,19 @@ export type Theme = "light" | "dark";
 /** A fault the user asked for: at a bus or at a point along a line. */
 export type FaultTarget = { kind: "bus"; bus: string } | { kind: "line"; line: string; pct: number };
 
-export interface Notice {
+export interface NoticeAction {
+  label: string;
+  run(): void;
+}
+
+export interface NoticeOptions {
+  /** A later notice on the same topic replaces this one (e.g. "study": one study message at a time). */
+  topic?: string;
+  /** A button in the notice, e.g. Undo after a deletion. */
+  action?: NoticeAction;
+}
+
+export interface Notice extends NoticeOptions {
   id: number;
   tone: "info" | "error";
   text: string;
@@ -39,9 +51,15 @@ export interface SessionState {
   /** Bumped to ask the canvas to fit the whole diagram in view. */
   fitSeq: number;
   notices: Notice[];
-  set(partial: Partial<Omit<SessionState, "set" | "notify" | "dismiss">>): void;
-  notify(tone: Notice["tone"], text: string, details?: string[]): void;
+  /** Developer figures in the status area (the edit-to-overlay time); off by default, kept per user. */
+  diagnostics: boolean;
+  /** The one-line's overview map; kept per user. */
+  showMiniMap: boolean;
+  set(partial: Partial<Omit<SessionState, "set" | "notify" | "dismiss" | "dismissTopic">>): void;
+  notify(tone: Notice["tone"], text: string, details?: string[], options?: NoticeOptions): void;
   dismiss(id: number): void;
+  /** Removes the notices on a topic (a study error once another project is open). */
+  dismissTopic(topic: string): void;
 }
 
 let noticeSeq = 0;
@@ -60,12 +78,41 @@ export const useSessionStore = create<SessionState>()((set) => ({
   clipboard: null,
   fitSeq: 0,
   notices: [],
+  diagnostics: readPreference("diagnostics", false),
+  showMiniMap: readPreference("showMiniMap", true),
   set: (partial) => set(partial),
-  notify: (tone, text, details) => {
+  notify: (tone, text, details, options = {}) => {
     const id = ++noticeSeq;
-    set((s) => ({ notices: [...s.notices.slice(-3), { id, tone, text, details }] }));
+    const notice: Notice = { id, tone, text, details, ...options };
+    // the same message again, or a newer one on the same topic, replaces the old one: nothing stacks
+    const same = (n: Notice) => (n.tone === tone && n.text === text) || (options.topic !== undefined && n.topic === options.topic);
+    set((s) => ({ notices: [...s.notices.filter((n) => !same(n)).slice(-3), notice] }));
     // information fades on its own; errors stay until dismissed
     if (tone === "info" && typeof setTimeout !== "undefined") setTimeout(() => set((s) => ({ notices: s.notices.filter((n) => n.id !== id) })), 8000);
   },
   dismiss: (id) => set((s) => ({ notices: s.notices.filter((n) => n.id !== id) })),
+  dismissTopic: (topic) => set((s) => ({ notices: s.notices.filter((n) => n.topic !== topic) })),
 }));
+
+type ViewPreference = "diagnostics" | "showMiniMap";
+
+/** ?diagnostics=1 (or ?showMiniMap=0) for one visit, else the user's saved choice (browser storage, never the project). */
+function readPreference(key: ViewPreference, fallback: boolean): boolean {
+  try {
+    const query = typeof location !== "undefined" ? new URLSearchParams(location.search).get(key) : null;
+    if (query === "1" || query === "0") return query === "1";
+    const kept = typeof localStorage !== "undefined" ? localStorage.getItem(`islet.${key}`) : null;
+    return kept === null ? fallback : kept === "1";
+  } catch {
+    return fallback;
+  }
+}
+
+export function setViewPreference(key: ViewPreference, on: boolean): void {
+  try {
+    localStorage.setItem(`islet.${key}`, on ? "1" : "0");
+  } catch {
+    // storage refused (private mode): the choice lasts for this visit only
+  }
+  useSessionStore.getState().set({ [key]: on });
+}

@@ -58,7 +58,8 @@ export const steps = [
   {
     name: "fits the studio in 1366x768 with the caution and the mini-map",
     async run(t) {
-      const { page, problems } = await openStudio(t.context, t.url, "");
+      // diagnostics on: the status area then shows the edit-to-overlay time this spec reads
+      const { page, problems } = await openStudio(t.context, t.url, "?diagnostics=1");
       t.state.page = page;
       t.state.problems = problems;
       // one handler for every dialog: a prompt gets the name the step asks for, a confirm is accepted

@@ -78,6 +78,29 @@ function applyOne(doc: Project, c: DocChange): Project {
     }
     case "addScenario":
       return { ...doc, scenarios: [...doc.scenarios, c.scenario] };
+    case "updateScenario": {
+      if (!doc.scenarios.some((s) => s.id === c.scenarioId)) throw new Error(`No operating mode with id "${c.scenarioId}"`);
+      if (c.patch.name !== undefined && c.patch.name.trim() === "") throw new Error("An operating mode needs a name");
+      const scenarios = doc.scenarios.map((s) => {
+        if (s.id !== c.scenarioId) return s;
+        const next = { ...s, ...c.patch };
+        if (next.description === "") delete next.description;
+        return next;
+      });
+      return { ...doc, scenarios };
+    }
+    case "removeScenario": {
+      if (doc.scenarios.length <= 1) throw new Error("A project keeps at least one operating mode");
+      return { ...doc, scenarios: doc.scenarios.filter((s) => s.id !== c.scenarioId) };
+    }
+    case "setSwitchState": {
+      const scenarios = doc.scenarios.map((s) => {
+        if (s.id !== c.scenarioId) return s;
+        const { [c.switchId]: _old, ...rest } = s.switchStates;
+        return { ...s, switchStates: c.closed === null ? rest : { ...rest, [c.switchId]: c.closed } };
+      });
+      return { ...doc, scenarios };
+    }
     case "setMeta":
       return { ...doc, meta: { ...doc.meta, [c.field]: c.value } };
   }

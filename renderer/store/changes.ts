@@ -15,5 +15,9 @@ export type DocChange =
   | { type: "moveNodes"; places: Record<string, NodePlace> }
   | { type: "setOutOfService"; scenarioId: string; elementId: string; out: boolean }
   | { type: "addScenario"; scenario: Scenario }
+  | { type: "updateScenario"; scenarioId: string; patch: { name?: string; description?: string } }
+  | { type: "removeScenario"; scenarioId: string }
+  /** closed: null goes back to the switch's own state. */
+  | { type: "setSwitchState"; scenarioId: string; switchId: string; closed: boolean | null }
   | { type: "setMeta"; field: "name" | "description" | "author"; value: string }
   | { type: "replaceDocument"; project: Project };

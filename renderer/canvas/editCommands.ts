@@ -1,7 +1,8 @@
 // Editing commands shared by the toolbar, the keyboard and the canvas. Each turns the session's
 // selection into document changes and sends them through the one write path.
 import { isProtectiveDevice, type DeviceLocation, type Element, type ElementKind } from "../../src/model/schema.ts";
-import { useDocumentStore } from "../store/documentStore.ts";
+import { useDocumentStore, undo } from "../store/documentStore.ts";
+import { removalNotice, removalSummary } from "../store/removalSummary.ts";
 import { useSessionStore } from "../store/sessionStore.ts";
 import type { DocChange, NodePlace } from "../store/changes.ts";
 import { newElement, nextId } from "./newElement.ts";
@@ -34,11 +35,20 @@ export function deviceLocationOn(host: Element, lower: boolean): DeviceLocation 
   return { element: host.id, end: "terminal" };
 }
 
+/** One undo step; the notice says what went with the selection and what is left not connected. */
 export function deleteSelection(): void {
-  const { selection, set } = useSessionStore.getState();
+  const { selection, set, notify } = useSessionStore.getState();
   if (selection.length === 0) return;
-  useDocumentStore.getState().applyChanges([{ type: "removeElements", ids: selection }], { undoable: true });
+  const { doc, applyChanges } = useDocumentStore.getState();
+  const summary = removalSummary(doc, selection);
+  applyChanges([{ type: "removeElements", ids: selection }], { undoable: true });
   set({ selection: [] });
+  if (summary.devicesToo.length > 0 || summary.leftUnconnected.length > 0) {
+    const { text, details } = removalNotice(summary);
+    const revision = useDocumentStore.getState().revision;
+    // the notice's Undo only undoes this deletion, not a later edit
+    notify("info", text, details, { topic: "deletion", action: { label: "Undo", run: () => useDocumentStore.getState().revision === revision && undo() } });
+  }
 }
 
 export function copySelection(): void {

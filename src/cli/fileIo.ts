@@ -39,14 +39,21 @@ export function writeFileAtomic(path: string, text: string): void {
 }
 
 export type ReadResult = { ok: true; text: string } | { ok: false; message: string };
+export type ReadBytesResult = { ok: true; bytes: Buffer } | { ok: false; message: string };
 
-/** Reads a UTF-8 text file, returning a one-line message instead of throwing. */
-export function readTextFile(path: string): ReadResult {
+/** Reads a file's bytes, returning a one-line message instead of throwing. */
+export function readFileBytes(path: string): ReadBytesResult {
   try {
-    return { ok: true, text: readFileSync(path, "utf8") };
+    return { ok: true, bytes: readFileSync(path) };
   } catch (err) {
     const code = (err as NodeJS.ErrnoException).code;
     const reason = code === "ENOENT" ? "no such file" : code === "EISDIR" ? "is a folder, not a file" : code === "EACCES" ? "permission denied" : (err as Error).message;
     return { ok: false, message: `cannot read ${path}: ${reason}` };
   }
+}
+
+/** Reads a UTF-8 text file, returning a one-line message instead of throwing. */
+export function readTextFile(path: string): ReadResult {
+  const r = readFileBytes(path);
+  return r.ok ? { ok: true, text: r.bytes.toString("utf8") } : r;
 }

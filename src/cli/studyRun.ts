@@ -1,0 +1,33 @@
+// The protection study run from a command: its progress on the session's progress line (src/study's
+// StudyHooks.onProgress), Ctrl+C seen between batches of cases (isCancelled, with the event loop given a turn).
+import type { Project } from "../model/schema.ts";
+import { StudyCancelled, type StudyHooks } from "../study/runStudy.ts";
+import { studyProject } from "../study/studyProject.ts";
+import type { StudyOptions, StudyResult } from "../study/types.ts";
+import type { CliSession } from "./session.ts";
+
+const PHASES: Record<Parameters<NonNullable<StudyHooks["onProgress"]>>[2], string> = {
+  cases: "fault cases",
+  verdicts: "verdicts",
+  timelines: "clearing timelines",
+};
+
+/** Hooks that report the study's progress to the session and stop it at Ctrl+C. `prefix` names a sub-step. */
+export function studyHooks(session: CliSession, prefix = ""): StudyHooks {
+  return {
+    onProgress: (done, total, phase) => session.progress.update(`${prefix}${PHASES[phase]}`, done, total),
+    isCancelled: () => session.signal.aborted,
+    yieldNow: session.yieldNow,
+  };
+}
+
+/** The study, or null when Ctrl+C stopped it. */
+export async function studyInSession(session: CliSession, project: Project, options: StudyOptions = {}, prefix = ""): Promise<StudyResult | null> {
+  try {
+    const result = await studyProject(project, options, studyHooks(session, prefix));
+    return session.signal.aborted ? null : result;
+  } catch (err) {
+    if (err instanceof StudyCancelled) return null;
+    throw err;
+  }
+}

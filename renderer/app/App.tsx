@@ -15,9 +15,12 @@ import { OperatingModes } from "../modes/OperatingModes.tsx";
 import { addElement, deviceLocationOn, isProtectiveKind } from "../canvas/editCommands.ts";
 import { useDocumentStore } from "../store/documentStore.ts";
 import { useSessionStore } from "../store/sessionStore.ts";
+import { PaneSplitter } from "./PaneSplitter.tsx";
 
 function Workspace({ panes }: { panes: PaneEntry[] }) {
   const flow = useReactFlow();
+  const fraction = useSessionStore((s) => s.bottomFraction);
+  const enlarged = useSessionStore((s) => s.bottomEnlarged);
   useKeyboard();
   const onAdd = (kind: ElementKind) => {
     if (isProtectiveKind(kind)) {
@@ -33,8 +36,9 @@ function Workspace({ panes }: { panes: PaneEntry[] }) {
   return (
     <div className="workspace">
       <Palette onAdd={onAdd} />
-      <main className="center">
+      <main className="center" style={{ gridTemplateRows: `minmax(0, 1fr) auto minmax(8rem, ${Math.round((enlarged ? 0.85 : fraction) * 1000) / 10}%)` }}>
         <OneLineCanvas />
+        <PaneSplitter />
         <BottomPanes extra={panes} />
       </main>
       <aside className="side">

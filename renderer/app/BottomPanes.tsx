@@ -15,6 +15,7 @@ const BASE_PANES: PaneEntry[] = [{ id: "fault", title: "Fault view", render: () 
 export function BottomPanes({ extra = [] }: { extra?: PaneEntry[] }) {
   const pane = useSessionStore((s) => s.pane);
   const set = useSessionStore((s) => s.set);
+  const enlarged = useSessionStore((s) => s.bottomEnlarged);
   const panes = [...BASE_PANES, ...extra];
   const current = panes.find((p) => p.id === pane) ?? panes[0];
   return (
@@ -25,6 +26,10 @@ export function BottomPanes({ extra = [] }: { extra?: PaneEntry[] }) {
             {p.title}
           </button>
         ))}
+        <span className="tabs-spacer" />
+        <button className="tab-tool" onClick={() => set({ bottomEnlarged: !enlarged })} aria-pressed={enlarged} data-testid="pane-enlarge" title={enlarged ? "Give the one-line its space back" : "Enlarge this pane over the one-line"}>
+          {enlarged ? "Restore" : "Enlarge"}
+        </button>
       </div>
       <div className="pane-body" role="tabpanel">
         {current.render()}

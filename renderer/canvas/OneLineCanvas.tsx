@@ -1,6 +1,6 @@
 // The one-line editor: nodes and ties built from the document, drags kept local until the drop
 // (one undo step), connections and palette drops turned into document changes.
-import { useCallback, useEffect, useMemo, useRef, useState, type DragEvent } from "react";
+import { useCallback, useEffect, useMemo, useRef, useState, type CSSProperties, type DragEvent } from "react";
 import {
   ReactFlow,
   Background,
@@ -36,6 +36,14 @@ const GRID = 10;
 const FAR_ZOOM = 0.4;
 /** Below this, symbols are a few pixels wide: only bus bars and ties are drawn. */
 const TINY_ZOOM = 0.15;
+/** Canvas text keeps at least this size on screen: below a zoom of 1, names grow in flow units
+ * (up to MAX_TEXT_SCALE) so the fitted view stays legible. // common practice: ~10 px is the least
+ * that reads comfortably on a desktop screen */
+const MIN_TEXT_PX = 10;
+const BASE_NAME_PX = 11;
+const MAX_TEXT_SCALE = 2.4;
+/** Above this scale the rating lines give way to the names (hover or select to read them). */
+const DETAIL_SCALE = 1.2;
 /** Layout positions in the document are node centres. */
 const NODE_ORIGIN: [number, number] = [0.5, 0.5];
 
@@ -51,6 +59,11 @@ export function OneLineCanvas() {
   // level of detail: far out, labels and device markers are dropped (they would be unreadable)
   const far = useStore((s) => s.transform[2] < FAR_ZOOM);
   const tiny = useStore((s) => s.transform[2] < TINY_ZOOM);
+  const textScale = useStore((s) => Math.round(Math.min(MAX_TEXT_SCALE, Math.max(1, MIN_TEXT_PX / (BASE_NAME_PX * s.transform[2]))) * 20) / 20);
+  const showMiniMap = useSessionStore((s) => s.showMiniMap);
+  const wrapRef = useRef<HTMLDivElement>(null);
+  /** True while the view is the fitted one: a resize (window, splitter) then fits again. */
+  const fitted = useRef(false);
   const [dragPlaces, setDragPlaces] = useState<Record<string, NodePlace>>({});
   const dragRef = useRef(dragPlaces);
   dragRef.current = dragPlaces;
@@ -67,14 +80,31 @@ export function OneLineCanvas() {
     return built.nodes.map((n) => (dragPlaces[n.id] ? ({ ...n, position: { x: dragPlaces[n.id].x, y: dragPlaces[n.id].y } } as OneLineNode) : n));
   }, [built.nodes, dragPlaces]);
 
-  // a new document: fit it in view, never enlarging past 1:1; an empty one starts at 1:1
+  // a new document: fit it in view, never enlarging past 1:1; an empty one starts at 1:1. The
+  // overview map sits in the top right corner: the fit keeps the diagram clear of it.
+  const fit = useCallback(() => {
+    if (useDocumentStore.getState().doc.elements.length === 0) void flow.setViewport({ x: 0, y: 0, zoom: 1 });
+    else void flow.fitView({ padding: { top: 0.03, bottom: 0.03, left: 0.03, right: useSessionStore.getState().showMiniMap ? "170px" : 0.03 }, maxZoom: 1, duration: 0 });
+    fitted.current = true;
+  }, [flow]);
   useEffect(() => {
     if (fitSeq === 0) return;
-    requestAnimationFrame(() => {
-      if (useDocumentStore.getState().doc.elements.length === 0) void flow.setViewport({ x: 0, y: 0, zoom: 1 });
-      else void flow.fitView({ padding: 0.08, maxZoom: 1.5, duration: 0 });
+    requestAnimationFrame(fit);
+  }, [fitSeq, fit]);
+  useEffect(() => {
+    const el = wrapRef.current;
+    if (!el || typeof ResizeObserver === "undefined") return;
+    let frame = 0;
+    const observer = new ResizeObserver(() => {
+      cancelAnimationFrame(frame);
+      frame = requestAnimationFrame(() => fitted.current && fit());
     });
-  }, [fitSeq, flow]);
+    observer.observe(el);
+    return () => {
+      cancelAnimationFrame(frame);
+      observer.disconnect();
+    };
+  }, [fit]);
 
   const onNodesChange = useCallback(
     (changes: NodeChange<OneLineNode>[]) => {
@@ -157,7 +187,14 @@ export function OneLineCanvas() {
   );
 
   return (
-    <div className={`canvas-wrap${far ? " lod-far" : ""}${tiny ? " lod-tiny" : ""}`} data-testid="one-line" onDragOver={onDragOver} onDrop={onDrop}>
+    <div
+      ref={wrapRef}
+      className={`canvas-wrap${far ? " lod-far" : ""}${tiny ? " lod-tiny" : ""}${textScale > DETAIL_SCALE ? " lod-names" : ""}`}
+      style={{ "--text-scale": textScale } as CSSProperties}
+      data-testid="one-line"
+      onDragOver={onDragOver}
+      onDrop={onDrop}
+    >
       <ReactFlow<OneLineNode>
         nodes={nodes}
         edges={built.edges}
@@ -185,13 +222,17 @@ export function OneLineCanvas() {
           useSessionStore.getState().set({ selection: [node.id] });
         }}
         onlyRenderVisibleElements={doc.elements.length > 300}
+        onMoveStart={(event) => {
+          // a pan or zoom by the user ends the fitted view (a resize then keeps the user's view)
+          if (event) fitted.current = false;
+        }}
         minZoom={0.05}
         maxZoom={4}
         colorMode={theme}
         proOptions={{ hideAttribution: true }}
       >
         <Background variant={BackgroundVariant.Dots} gap={GRID * 2} size={1} />
-        <MiniMap pannable zoomable className="minimap" nodeStrokeWidth={2} style={{ width: 140, height: 96 }} />
+        {showMiniMap && <MiniMap pannable zoomable position="top-right" className="minimap" nodeStrokeWidth={2} style={{ width: 140, height: 96 }} ariaLabel="Overview map" />}
         <Controls showInteractive={false} />
       </ReactFlow>
     </div>

@@ -55,12 +55,19 @@ export interface SessionState {
   diagnostics: boolean;
   /** The one-line's overview map; kept per user. */
   showMiniMap: boolean;
+  /** Share of the centre column's height given to the lower panes (splitter); kept per user. */
+  bottomFraction: number;
+  /** The lower pane enlarged over most of the one-line (e.g. to read the time-current plot). */
+  bottomEnlarged: boolean;
   set(partial: Partial<Omit<SessionState, "set" | "notify" | "dismiss" | "dismissTopic">>): void;
   notify(tone: Notice["tone"], text: string, details?: string[], options?: NoticeOptions): void;
   dismiss(id: number): void;
   /** Removes the notices on a topic (a study error once another project is open). */
   dismissTopic(topic: string): void;
 }
+
+const FRACTION_KEY = "islet.bottomFraction";
+export const BOTTOM_FRACTION = { min: 0.15, max: 0.8, start: 0.26 } as const;
 
 let noticeSeq = 0;
 
@@ -80,6 +87,8 @@ export const useSessionStore = create<SessionState>()((set) => ({
   notices: [],
   diagnostics: readPreference("diagnostics", false),
   showMiniMap: readPreference("showMiniMap", true),
+  bottomFraction: readFraction(),
+  bottomEnlarged: false,
   set: (partial) => set(partial),
   notify: (tone, text, details, options = {}) => {
     const id = ++noticeSeq;
@@ -105,6 +114,28 @@ function readPreference(key: ViewPreference, fallback: boolean): boolean {
     return kept === null ? fallback : kept === "1";
   } catch {
     return fallback;
+  }
+}
+
+
+function readFraction(): number {
+  try {
+    const kept = Number(typeof localStorage !== "undefined" ? localStorage.getItem(FRACTION_KEY) : NaN);
+    return Number.isFinite(kept) && kept >= BOTTOM_FRACTION.min && kept <= BOTTOM_FRACTION.max ? kept : BOTTOM_FRACTION.start;
+  } catch {
+    return BOTTOM_FRACTION.start;
+  }
+}
+
+/** The splitter's position, clamped, remembered for this user (not in the project). */
+export function setBottomFraction(fraction: number, keep: boolean): void {
+  const f = Math.min(BOTTOM_FRACTION.max, Math.max(BOTTOM_FRACTION.min, fraction));
+  useSessionStore.getState().set({ bottomFraction: f, bottomEnlarged: false });
+  if (!keep) return;
+  try {
+    localStorage.setItem(FRACTION_KEY, String(Math.round(f * 1000) / 1000));
+  } catch {
+    // storage refused: the position lasts for this visit only
   }
 }
 

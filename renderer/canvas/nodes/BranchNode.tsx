@@ -16,7 +16,7 @@ function BranchNodeView({ data, selected }: NodeProps<BranchFlowNode>) {
   // drawn upright, then turned a quarter for the across form: (x, y) -> (y, w - x)
   const turn = horizontal ? `matrix(0 -1 1 0 0 ${w})` : undefined;
   return (
-    <div className={`element-node${horizontal ? " is-across" : ""}${selected ? " is-selected" : ""}`} style={{ width: box.w, height: box.h }} data-element={element.id}>
+    <div className={`element-node is-branch${horizontal ? " is-across" : ""}${selected ? " is-selected" : ""}`} style={{ width: box.w, height: box.h }} data-element={element.id}>
       <svg className="element-svg" width={box.w} height={box.h} viewBox={`0 0 ${box.w} ${box.h}`}>
         <g transform={turn}>
           <ElementSymbol element={element} colorA={colorA} colorB={colorB} />

@@ -219,5 +219,7 @@ function explanation(kind: VerdictKind, status: VerdictStatus, where: string, sc
       return ok ? `Battery inverter infeed leaves the feeder's reach intact at ${where} (${scenario})` : `Battery inverter infeed lowers the feeder's current to 0.8 x pickup at ${where} (${scenario})`;
     case "sympathetic":
       return ok ? `No healthy feeder picks up for ${where} (${scenario})` : `Genset breaker picks up on reverse current for ${where} (${scenario})`;
+    default:
+      return ok ? `${kind}: passes at ${where} (${scenario})` : `${kind}: fails at ${where} (${scenario})`;
   }
 }

@@ -29,13 +29,17 @@ export interface VerdictPaneProps {
 
 /** Line height of the matrix in units of the pane's font size (the virtual list needs it in px). */
 const ROW_EM = 2;
-const KIND_TITLE: Record<VerdictKind, string> = {
+// keyed by string: a kind added to the study later still shows (by its key) until it has a title here
+const KIND_TITLES: Record<string, string> = {
   sensitivity: "sensitivity",
   selectivity: "selectivity",
+  backup: "backup",
   speed: "speed",
   blinding: "blinding",
   sympathetic: "sympathetic",
+  load: "load",
 };
+const kindTitle = (k: VerdictKind): string => KIND_TITLES[k] ?? k;
 const STATUS_GLYPH: Record<VerdictStatus, string> = { fail: "✕", warn: "!", pass: "✓" };
 
 export function VerdictPane(props: VerdictPaneProps) {
@@ -144,7 +148,7 @@ export function VerdictPane(props: VerdictPaneProps) {
                 onClick={() => toggle(kinds, k, setKinds)}
               >
                 <span className={`ap-status-dot${worst ? ` is-${worst}` : ""}`} />
-                {KIND_TITLE[k]}
+                {kindTitle(k)}
               </button>
             );
           })}
@@ -226,7 +230,7 @@ export function VerdictPane(props: VerdictPaneProps) {
                 {details.kept.map((v) => (
                   <div key={v.id} className="verdict-detail">
                     <span className={`ap-status-dot is-${v.status}`} title={STATUS_LABEL[v.status]} />
-                    <span className="verdict-detail-kind">{KIND_TITLE[v.kind]}</span>
+                    <span className="verdict-detail-kind">{kindTitle(v.kind)}</span>
                     <span>{v.explanation}</span>
                     {Object.keys(v.numbers).length > 0 ? (
                       <span className="verdict-detail-numbers">

@@ -255,8 +255,15 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     return sweep;
   };
 
-  const solveEach = (scenario: Scenario, locations: FaultLocation[], type: FaultType, limit: FaultLimit, wanted?: readonly string[]): ((i: number) => FaultSnapshot) => {
-    const v = variantOf(scenario, []);
+  const solveEach = (
+    scenario: Scenario,
+    locations: FaultLocation[],
+    type: FaultType,
+    limit: FaultLimit,
+    wanted?: readonly string[],
+    open: OpenEnd[] = [],
+  ): ((i: number) => FaultSnapshot) => {
+    const v = variantOf(scenario, open);
     const c = compile(v, limit);
     if (!c.network) return (k) => ({ iFault_A: 0, readings: Object.create(null) as Record<string, DeviceReading>, messages: k === 0 ? c.messages : [] });
     const net = c.network;
@@ -316,5 +323,8 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     }
   };
 
-  return { solveMany, solveEach, solveOne, loadCurrents: loadCurrentsOf };
+  const solveOpenedEach = (scenario: Scenario, open: OpenEnd[], locations: FaultLocation[], type: FaultType, limit: FaultLimit) =>
+    solveEach(scenario, locations, type, limit, undefined, open);
+
+  return { solveMany, solveEach, solveOne, solveOpenedEach, loadCurrents: loadCurrentsOf };
 }

@@ -1,13 +1,12 @@
 // Enumerates the fault cases of a study: every bus and points along every line or cable (its two
 // ends and criteria.linePoints_pct), for each fault type, scenario and limit the scenario asks for.
 import type { Element, Project, Scenario } from "../model/schema.ts";
+import { caseId } from "./keys.ts";
 import { FAULT_TYPES, type FaultCase, type FaultLimit, type FaultLocation, type FaultType, type StudyOptions } from "./types.ts";
 
 const FAULT_WORDS: Record<FaultType, string> = { "3ph": "3ph", LL: "LL", LG: "LG", LLG: "LLG" };
 
-export function locationKey(loc: FaultLocation): string {
-  return loc.kind === "bus" ? `bus:${loc.bus}` : `line:${loc.line}@${loc.pct}`;
-}
+export { caseId, caseRowId, locationKey } from "./keys.ts";
 
 /** `bus LV-A` or `cable C1 "Dock feeder" at 50 %`. */
 export function locationLabel(loc: FaultLocation, elements: ReadonlyMap<string, Element>): string {
@@ -17,14 +16,6 @@ export function locationLabel(loc: FaultLocation, elements: ReadonlyMap<string, 
   return `${word} ${loc.line} at ${loc.pct} %`;
 }
 
-export function caseId(scenario: string, loc: FaultLocation, faultType: FaultType, limit: FaultLimit): string {
-  return `${scenario}|${locationKey(loc)}|${faultType}|${limit}`;
-}
-
-/** The case id without its scenario: the row of the study matrix. */
-export function caseRowId(c: Pick<FaultCase, "location" | "faultType" | "limit">): string {
-  return `${locationKey(c.location)}|${c.faultType}|${c.limit}`;
-}
 
 export function caseLabel(scenario: Scenario, loc: FaultLocation, faultType: FaultType, limit: FaultLimit, elements: ReadonlyMap<string, Element>): string {
   return `${FAULT_WORDS[faultType]} fault on ${locationLabel(loc, elements)} (${scenario.name}, ${limit})`;

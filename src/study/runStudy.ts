@@ -1,39 +1,29 @@
-// The whole protection study: fault cases in every scenario, device responses, chains, verdicts
-// (sensitivity, selectivity, speed, blinding, sympathetic tripping), clearing timelines and the matrix.
+// The whole protection study, as a pipeline over each scenario:
+//   1. zones and expected isolation (pipeline/scenarioPlan.ts): what should open for each fault, and the
+//      backups when a breaker sticks;
+//   2. simulated operation (pipeline/simulateScenario.ts): what does open, every case to its end;
+//   3. judges (pipeline/caseRecord.ts, judges/): sensitivity, selectivity and sympathetic tripping, backup,
+//      speed, each verdict with its numbers and one line;
+//   4. blinding (pipeline/blindingPass.ts) and pickups against load;
+//   5. the matrix and the clearing timelines of the cases that matter (pipeline/replayTimeline.ts).
 // Pure and deterministic; progress, cancellation and yielding to the host are passed in.
-import type { Project, ProtectiveDevice, Scenario } from "../model/schema.ts";
-import { chainPlan, chainsFromPlan, type ChainPlan } from "./chains.ts";
+import type { Project, Scenario } from "../model/schema.ts";
 import type { DeviceModel } from "./deviceModel.ts";
-import { deviceResponse } from "./deviceResponse.ts";
-import { deviceSides } from "./deviceSides.ts";
-import { caseId, caseLabel, faultLocations } from "./faultCases.ts";
+import { locationKey } from "./keys.ts";
 import { studyMatrix } from "./matrix.ts";
-import { scenarioNetwork, type ScenarioNetwork } from "./scenarioNetwork.ts";
-import { findSourcePaths, sourceTrees, type SourcePath } from "./sourcePaths.ts";
-import type { FaultSnapshot, StudySolver } from "./studySolver.ts";
-import { clearingTimeline } from "./timeline.ts";
-import {
-  FAULT_TYPES,
-  STUDY_CAUTION,
-  type CaseResult,
-  type ClearingTimeline,
-  type DeviceResponse,
-  type FaultCase,
-  type FaultLimit,
-  type FaultLocation,
-  type FaultType,
-  type StudyOptions,
-  type StudyResult,
-  type Verdict,
-  type VerdictStatus,
-} from "./types.ts";
-import { blindingPairs, blindingVerdict, infeedsByBus, type BlindingPair, type ChainRoles } from "./verdicts/blinding.ts";
-import { loadVerdicts, sensitivityVerdicts, ZoneMinimum } from "./verdicts/sensitivity.ts";
-import { selectivityVerdicts } from "./verdicts/selectivity.ts";
-import { speedVerdicts } from "./verdicts/speed.ts";
-import { sympatheticVerdicts } from "./verdicts/sympathetic.ts";
+import { blindingPass, type BlindingCase } from "./pipeline/blindingPass.ts";
+import { caseRecord, loadLostMemo } from "./pipeline/caseRecord.ts";
+import { casesThatMatter, replayTimeline } from "./pipeline/replayTimeline.ts";
+import { planScenario } from "./pipeline/scenarioPlan.ts";
+import { simulateScenario, StudyCancelled } from "./pipeline/simulateScenario.ts";
+import type { StudySolver } from "./studySolver.ts";
+import { FAULT_TYPES, STUDY_CAUTION, type CaseResult, type ClearingTimeline, type FaultLimit, type FaultType, type StudyOptions, type StudyResult, type Verdict, type VerdictStatus } from "./types.ts";
 import { verdictIdsDistinct } from "./verdictIds.ts";
-import { memoWithstand, withstand_s, type WithstandFn } from "./withstand.ts";
+import { loadVerdicts } from "./verdicts/sensitivity.ts";
+import { memoWithstand } from "./withstand.ts";
+import type { JudgeContext } from "./judges/judgedCase.ts";
+
+export { StudyCancelled };
 
 export interface StudyDeps {
   solver: StudySolver;
@@ -48,296 +38,132 @@ export interface StudyHooks {
   yieldNow?: () => Promise<void>;
 }
 
-export class StudyCancelled extends Error {
-  constructor() {
-    super("study cancelled");
-    this.name = "StudyCancelled";
+/** Collects verdicts once each (a project whose ids can repeat keeps the first verdict under an id). */
+class VerdictBook {
+  readonly list: Verdict[] = [];
+  private readonly byId: Map<string, Verdict> | null;
+  constructor(distinct: boolean) {
+    this.byId = distinct ? null : new Map();
   }
-}
-
-/** Everything the study keeps of one case while the scenario is being worked through. */
-interface CaseWork {
-  result: CaseResult;
-  responses: Map<string, DeviceResponse>;
-}
-
-/** One case: device responses, chains, roles and the verdicts that need only this case. */
-export function analyseCase(
-  project: Project,
-  net: ScenarioNetwork,
-  sides: ReturnType<typeof deviceSides>,
-  fc: FaultCase,
-  paths: SourcePath[],
-  snapshot: Pick<FaultSnapshot, "iFault_A" | "readings">,
-  model: DeviceModel,
-  withstand: WithstandFn = withstand_s,
-): { work: CaseWork; verdicts: Verdict[] } {
-  return analysePlannedCase(project, net, fc, chainPlan(net, paths, sides), snapshot, model, withstand);
-}
-
-/** analyseCase with the location's chains already planned (a study analyses eight or more cases per location). */
-function analysePlannedCase(
-  project: Project,
-  net: ScenarioNetwork,
-  fc: FaultCase,
-  plan: ChainPlan,
-  snapshot: Pick<FaultSnapshot, "iFault_A" | "readings">,
-  model: DeviceModel,
-  withstand: WithstandFn,
-): { work: CaseWork; verdicts: Verdict[] } {
-  // responses of the devices that see current, and of every device on a source path (zero when it sees none)
-  const responses = new Map<string, DeviceResponse>();
-  for (const id in snapshot.readings) if (net.deviceEdge.has(id)) responses.set(id, deviceResponse(net.devices.get(id)!, snapshot.readings[id], model));
-  for (const id of plan.pathDevices) if (!responses.has(id)) responses.set(id, deviceResponse(net.devices.get(id)!, undefined, model));
-  const chains = chainsFromPlan(fc.id, plan, responses);
-  // every path device has a response, so the plan's roles and paths are this case's (arrays shared by the location's cases)
-  for (const [id, m] of plan.members) {
-    const r = responses.get(id)!;
-    r.role = m.role;
-    r.onPathsOf = m.onPathsOf;
-  }
-  // Devices on no source path carry only motor infeed, which decays within a few cycles (IEC 60909 treats
-  // it as initial current only); they are not judged for sympathetic tripping. // common practice
-  for (const d of plan.sympatheticCandidates) {
-    const r = responses.get(d)!;
-    if (r.role === "none" && r.direction !== "forward") r.role = "sympathetic";
-  }
-  const verdicts = [
-    ...selectivityVerdicts(fc, chains, responses, net.devices, project.criteria),
-    ...speedVerdicts(fc, chains, responses, net.elements, project.criteria, (source) => isGridFollowing(net, source), withstand),
-    ...sympatheticVerdicts(fc, chains, plan.sympatheticCandidates, responses, net.devices, model, project.criteria),
-  ];
-  const result: CaseResult = {
-    faultCase: fc,
-    iFault_A: snapshot.iFault_A,
-    responses: [...responses.values()],
-    chains,
-    verdictIds: verdicts.map((v) => v.id),
-  };
-  return { work: { result, responses }, verdicts };
-}
-
-/** A plan's chains as links with roles (the first device of a chain is its primary). */
-function chainRoles(plan: ChainPlan): ChainRoles {
-  return { paths: plan.paths.map((p) => ({ links: p.devices.map((device, depth) => ({ device, role: depth === 0 ? ("primary" as const) : ("backup" as const) })) })) };
-}
-
-/** Grid-following inverters cease to energise on their own protection (IEEE 1547-2018 clause 8.1, from memory). */
-export function isGridFollowing(net: ScenarioNetwork, source: string): boolean {
-  const e = net.elements.get(source);
-  return e?.kind === "inverter" && e.control === "grid-following";
-}
-
-/** Every location's snapshot, one at a time when the solver can (see StudySolver.solveEach). */
-function solveAll(solver: StudySolver, scenario: Scenario, locations: FaultLocation[], type: FaultType, limit: FaultLimit, devices?: readonly string[]): (i: number) => FaultSnapshot {
-  if (locations.length === 0) return () => ({ iFault_A: 0, readings: {}, messages: [] });
-  if (solver.solveEach) return solver.solveEach(scenario, locations, type, limit, devices);
-  const snaps = solver.solveMany(scenario, locations, type, limit, devices);
-  return (i) => snaps[i];
-}
-
-/**
- * What the study keeps of a case once it is analysed (the response lookup only where blinding needs it), and
- * the statuses of the verdicts listed in its verdictIds (the matrix cell's counts).
- */
-interface KeptCase {
-  result: CaseResult;
-  counts: Record<VerdictStatus, number>;
-}
-
-function pickTimelineCase(works: KeptCase[]): KeptCase | null {
-  let best: KeptCase | null = null;
-  let bestScore = -1;
-  for (const w of works) {
-    const score = w.counts.fail * 1000 + w.counts.warn;
-    if (score > bestScore) {
-      best = w;
-      bestScore = score;
+  add(vs: readonly Verdict[], counts?: Record<VerdictStatus, number>): void {
+    for (const v of vs) {
+      if (this.byId) {
+        const known = this.byId.get(v.id);
+        if (known) {
+          if (counts) counts[known.status]++;
+          continue;
+        }
+        this.byId.set(v.id, v);
+      }
+      this.list.push(v);
+      if (counts) counts[v.status]++;
     }
   }
-  return best;
 }
 
 export async function runStudy(project: Project, deps: StudyDeps, options: StudyOptions = {}, hooks: StudyHooks = {}): Promise<StudyResult> {
   const { solver, model } = deps;
   const warnings: string[] = [];
+  const warn = (m: string) => {
+    if (!warnings.includes(m)) warnings.push(m);
+  };
   const cases: CaseResult[] = [];
-  const verdictList: Verdict[] = [];
+  const caseCounts: Record<VerdictStatus, number>[] = [];
   const timelines: ClearingTimeline[] = [];
   const scenarios = project.scenarios.filter((s) => !options.scenarios || options.scenarios.includes(s.id));
-  if (options.scenarios)
-    for (const id of options.scenarios) if (!project.scenarios.some((s) => s.id === id)) warnings.push(`Scenario ${id}: not found in the project`);
+  if (options.scenarios) for (const id of options.scenarios) if (!project.scenarios.some((s) => s.id === id)) warn(`Scenario ${id}: not found in the project`);
   const types: FaultType[] = options.faultTypes ?? [...FAULT_TYPES];
-  const limitsOf = (s: Scenario) => s.limits.filter((l) => !options.limits || options.limits.includes(l));
-  // Repeated verdict ids (possible only in a project that fails verdictIdsDistinct) keep their first verdict.
-  const verdictById = verdictIdsDistinct(project, scenarios, types, limitsOf) ? null : new Map<string, Verdict>();
-  const addVerdicts = (list: Verdict[]) => {
-    for (const v of list) {
-      if (verdictById) {
-        if (verdictById.has(v.id)) continue;
-        verdictById.set(v.id, v);
-      }
-      verdictList.push(v);
-    }
-  };
-  /** Counts a verdict listed in a case (by the status of the verdict kept under its id). */
-  const count = (w: KeptCase, v: Verdict) => {
-    w.counts[verdictById ? verdictById.get(v.id)!.status : v.status]++;
-  };
-  const caseCounts: Record<VerdictStatus, number>[] = [];
-  // total for progress: locations x types x limits over scenarios
-  const plan = scenarios.map((s) => {
-    const locations = faultLocations(project, s, options);
-    const limits = limitsOf(s);
-    return { scenario: s, locations, limits };
-  });
-  const total = plan.reduce((n, p) => n + p.locations.length * p.limits.length * types.length, 0);
-  let done = 0;
+  const limitsOf = (s: Scenario): FaultLimit[] => s.limits.filter((l) => !options.limits || options.limits.includes(l));
+  const book = new VerdictBook(verdictIdsDistinct(project, scenarios, types, limitsOf));
   const elements = new Map(project.elements.map((e) => [e.id, e] as const));
   const withstand = memoWithstand();
+  const only = options.locationKeys ? new Set(options.locationKeys) : null;
 
-  for (const { scenario, locations, limits } of plan) {
-    const net = scenarioNetwork(project, scenario);
+  const plans = scenarios.map((s) => {
+    const sp = planScenario(project, s, types, options);
+    if (only) {
+      const keep = sp.locations.map((l, i) => (only.has(locationKey(l)) ? i : -1)).filter((i) => i >= 0);
+      sp.locations = keep.map((i) => sp.locations[i]);
+      sp.nodes = keep.map((i) => sp.nodes[i]);
+      for (const [t, list] of sp.plans) sp.plans.set(t, keep.map((i) => list[i]));
+    }
+    return sp;
+  });
+  const total = plans.reduce((n, sp) => n + sp.locations.length * limitsOf(sp.scenario).length * types.length, 0);
+  let done = 0;
+
+  for (const sp of plans) {
+    const { scenario, net } = sp;
     for (const d of net.idleDevices) {
       const dev = net.devices.get(d);
       if (dev && !scenario.outOfService.includes(d) && !scenario.outOfService.includes(dev.at.element) && elements.get(dev.at.element) === undefined)
-        warnings.push(`${d}: located at ${dev.at.element} (${dev.at.end}), which is not in the project`);
+        warn(`${d}: located at ${dev.at.element} (${dev.at.end}), which is not in the project`);
     }
-    const sides = deviceSides(net);
-    const infeeds = infeedsByBus(net);
-    // chains and blinding pairs per location index (the same for every limit and fault type); the source
-    // paths themselves are not kept
-    const trees = sourceTrees(net);
-    const plans: ChainPlan[] = [];
-    const pairsAt: BlindingPair[][] = [];
-    for (const loc of locations) {
-      const paths = findSourcePaths(net, loc, trees);
-      const plan = chainPlan(net, paths, sides);
-      plans.push(plan);
-      pairsAt.push(blindingPairs(net, paths, chainRoles(plan), infeeds));
-    }
+    const ctx: JudgeContext = { net, model, criteria: project.criteria, elements, devices: net.devices, sides: sp.sides };
+    const loadLost = loadLostMemo(net);
+    const limits = limitsOf(scenario);
     const sensLimit: FaultLimit = limits.includes("min") ? "min" : "max";
-    const zone = new ZoneMinimum(net.devices, model);
-    const works: KeptCase[] = [];
-    const blinding: { work: CaseWork; kept: KeptCase; pairs: BlindingPair[]; locIndex: number; type: FaultType }[] = [];
-    /** The cases whose observations the zone minimum holds (sensitivity verdicts are listed there). */
-    const observed = new Map<FaultCase, KeptCase>();
-
-    for (const limit of limits) {
+    const blindingCases: BlindingCase[] = [];
+    const scenarioResults: CaseResult[] = [];
+    const resultIndex: number[] = [];
+    const countsOf = new Map<string, Record<VerdictStatus, number>>();
+    for (const limit of limits)
       for (const type of types) {
-        const snapAt = solveAll(solver, scenario, locations, type, limit);
-        for (let i = 0; i < locations.length; i++) {
-          if (hooks.isCancelled?.()) throw new StudyCancelled();
-          const loc = locations[i];
-          const fc: FaultCase = {
-            id: caseId(scenario.id, loc, type, limit),
-            scenario: scenario.id,
-            location: loc,
-            faultType: type,
-            limit,
-            label: caseLabel(scenario, loc, type, limit, elements),
-          };
-          const snap = snapAt(i);
-          for (const m of snap.messages) if (!warnings.includes(m)) warnings.push(m);
-          const { work, verdicts } = analysePlannedCase(project, net, fc, plans[i], snap, model, withstand);
-          addVerdicts(verdicts);
-          // keep only the result: the per-case response lookup would otherwise live as long as the study
-          const kept: KeptCase = { result: work.result, counts: { pass: 0, warn: 0, fail: 0 } };
-          for (const v of verdicts) count(kept, v);
-          works.push(kept);
-          cases.push(work.result);
-          caseCounts.push(kept.counts);
-          // a fault that draws no current (an earth fault on an isolated-neutral section) is left to
-          // other protection (neutral displacement); it says nothing about overcurrent sensitivity
-          if (limit === sensLimit && snap.iFault_A >= 1) {
-            // a grid-following inverter's path is opened by the inverter's own protection, not by overcurrent devices
-            for (const p of work.result.chains.paths) {
-              if (isGridFollowing(net, p.source)) continue;
-              for (let k = 0; k < p.links.length && k < 2; k++) {
-                const l = p.links[k];
-                zone.add({ device: l.device, role: l.role, response: work.responses.get(l.device)!, faultCase: fc });
-                observed.set(fc, kept);
-              }
+        const simulated = await simulateScenario({
+          project,
+          sp,
+          type,
+          limit,
+          solver,
+          model,
+          withstand,
+          elements,
+          isCancelled: hooks.isCancelled,
+          yieldNow: hooks.yieldNow,
+          onCase: async () => {
+            done++;
+            if (done % 64 === 0) {
+              hooks.onProgress?.(done, total, "cases");
+              await hooks.yieldNow?.();
             }
-            const pairs = pairsAt[i];
-            if (pairs.length) blinding.push({ work, kept, pairs, locIndex: i, type });
-          }
-          done++;
-          if (done % 64 === 0) {
-            hooks.onProgress?.(done, total, "cases");
-            await hooks.yieldNow?.();
-          }
+          },
+        });
+        for (const c of simulated) {
+          for (const m of c.messages) warn(m);
+          const { result, verdicts } = caseRecord(ctx, c, limit === sensLimit, loadLost);
+          const counts = { pass: 0, warn: 0, fail: 0 };
+          book.add(verdicts, counts);
+          cases.push(result);
+          caseCounts.push(counts);
+          countsOf.set(result.faultCase.id, counts);
+          scenarioResults.push(result);
+          resultIndex.push(c.index);
+          if (limit === sensLimit && c.iFault_A >= 1) blindingCases.push({ fc: c.fc, locIndex: c.index, responses: c.responses, plan: c.lp.plan, failures: c.lp.failures });
         }
       }
-    }
     hooks.onProgress?.(done, total, "verdicts");
+    if (hooks.isCancelled?.()) throw new StudyCancelled();
 
-    // blinding: re-solve the affected locations with each infeed switched out (one location set per infeed,
-    // so that the solver can answer every fault type from one sweep)
-    const byInfeed = new Map<string, { work: CaseWork; kept: KeptCase; pair: BlindingPair; locIndex: number; type: FaultType }[]>();
-    for (const b of blinding)
-      for (const pair of b.pairs) {
-        const list = byInfeed.get(pair.infeed) ?? [];
-        list.push({ work: b.work, kept: b.kept, pair, locIndex: b.locIndex, type: b.type });
-        byInfeed.set(pair.infeed, list);
-      }
-    for (const [infeed, items] of byInfeed) {
-      if (hooks.isCancelled?.()) throw new StudyCancelled();
-      const variant: Scenario = { ...scenario, outOfService: [...scenario.outOfService, infeed] };
-      const locIdx = [...new Set(items.map((x) => x.locIndex))].sort((a, b) => a - b);
-      const locs: FaultLocation[] = locIdx.map((k) => locations[k]);
-      const position = new Map(locIdx.map((k, j) => [k, j] as const));
-      const wanted = [...new Set(items.map((x) => x.pair.device))];
-      for (const type of types) {
-        const ofType = items.filter((x) => x.type === type);
-        if (ofType.length === 0) continue;
-        // only the locations and devices of this type's pairs are read (in location order)
-        const at = solveAll(solver, variant, locs, type, sensLimit, wanted);
-        const snaps = new Map<number, FaultSnapshot>();
-        const snapOf = (j: number): FaultSnapshot => {
-          let s = snaps.get(j);
-          if (!s) snaps.set(j, (s = at(j)));
-          return s;
-        };
-        for (const j of [...new Set(ofType.map((x) => position.get(x.locIndex)!))].sort((a, b) => a - b)) snapOf(j);
-        for (const item of ofType) {
-          const device = net.devices.get(item.pair.device) as ProtectiveDevice;
-          const without = deviceResponse(device, snapOf(position.get(item.locIndex)!).readings[device.id], model);
-          const v = blindingVerdict(item.work.result.faultCase, item.pair, item.work.responses.get(device.id)!, without, device, model, project.criteria);
-          addVerdicts([v]);
-          item.work.result.verdictIds.push(v.id);
-          count(item.kept, v);
-        }
-      }
-      await hooks.yieldNow?.();
-    }
-
-    // sensitivity against the end of each zone, then against load
-    const observations = zone.observations();
-    const sens = sensitivityVerdicts(scenario, observations, net.devices, model, project.criteria);
-    addVerdicts(sens);
-    // (where case ids can repeat, the case listed under an id is the last one with it)
-    const workById = verdictById
-      ? new Map(works.map((w) => [w.result.faultCase.id, w] as const))
-      : new Map(observations.map((o) => [o.faultCase.id, observed.get(o.faultCase)!] as const));
-    for (const v of sens) {
-      const w = v.caseId ? workById.get(v.caseId) : undefined;
-      if (!w) continue;
-      w.result.verdictIds.push(v.id);
-      count(w, v);
+    const blinding = await blindingPass({ scenario, net, zones: sp.isolation.zones, cases: blindingCases, types, limit: sensLimit, solver, model, criteria: project.criteria, locations: sp.locations, yieldNow: hooks.yieldNow });
+    const byCase = new Map(scenarioResults.map((r) => [r.faultCase.id, r] as const));
+    for (const [id, vs] of blinding) {
+      const r = byCase.get(id)!;
+      book.add(vs, countsOf.get(id));
+      r.verdictIds.push(...vs.map((v) => v.id));
     }
     const load = solver.loadCurrents(scenario);
-    if (load) addVerdicts(loadVerdicts(scenario, load, net.devices, model, project.criteria));
-    else warnings.push(`Scenario ${scenario.id} "${scenario.name}": no load flow, pickups were not checked against load current`);
+    if (load) book.add(loadVerdicts(scenario, load, net.devices, model, project.criteria));
+    else warn(`Scenario ${scenario.id} "${scenario.name}": no load flow, pickups were not checked against load current`);
 
-    // clearing timelines: the worst case of the scenario, plus the ones asked for
+    // clearing timelines: the cases that matter, plus the ones asked for
     const wanted = new Set(options.timelineCases ?? []);
-    const chosen = works.filter((w) => wanted.has(w.result.faultCase.id));
-    const worst = pickTimelineCase(works.filter((w) => w.result.faultCase.limit === sensLimit));
-    if (worst && !chosen.includes(worst)) chosen.unshift(worst);
-    for (const w of chosen) {
+    const chosen = new Set(casesThatMatter(scenarioResults));
+    scenarioResults.forEach((r, k) => {
+      if (wanted.has(r.faultCase.id)) chosen.add(k);
+    });
+    for (const k of [...chosen].sort((a, b) => a - b)) {
       if (hooks.isCancelled?.()) throw new StudyCancelled();
-      timelines.push(clearingTimeline({ project, net, faultCase: w.result.faultCase, solver, model, idealDevices: w.result.chains.idealIsolation }));
+      timelines.push(replayTimeline({ project, sp, index: resultIndex[k], result: scenarioResults[k], solver, model, withstand }));
       hooks.onProgress?.(done, total, "timelines");
       await hooks.yieldNow?.();
     }
@@ -346,8 +172,8 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
   return {
     project: project.meta.name,
     cases,
-    verdicts: verdictList,
-    matrix: studyMatrix(scenarios, cases, verdictList, elements, { caseCounts }),
+    verdicts: book.list,
+    matrix: studyMatrix(scenarios, cases, book.list, elements, { caseCounts }),
     timelines,
     warnings,
     caution: STUDY_CAUTION,

@@ -35,6 +35,11 @@ export interface StudySolver {
    * and solves only the locations it reads.
    */
   solveEach?(scenario: Scenario, locations: FaultLocation[], faultType: FaultType, limit: FaultLimit, devices?: readonly string[]): (i: number) => FaultSnapshot;
+  /**
+   * Optional: faults at many locations of one scenario with the same element ends opened (the simulated
+   * operation groups its cases by what has opened). `at(i)` is `solveOne(scenario, locations[i], ..., open)`.
+   */
+  solveOpenedEach?(scenario: Scenario, open: OpenEnd[], locations: FaultLocation[], faultType: FaultType, limit: FaultLimit): (i: number) => FaultSnapshot;
   /** One fault with some element ends opened (clearing timeline). */
   solveOne(scenario: Scenario, location: FaultLocation, faultType: FaultType, limit: FaultLimit, open: OpenEnd[]): FaultSnapshot;
   /** Largest phase load current at each device (device id -> A) from a balanced load flow; null when it cannot run. */

@@ -94,8 +94,8 @@ export interface FaultChains {
   idealIsolation: string[];
 }
 
-export type VerdictKind = "sensitivity" | "selectivity" | "speed" | "blinding" | "sympathetic";
-export const VERDICT_KINDS: readonly VerdictKind[] = ["sensitivity", "selectivity", "speed", "blinding", "sympathetic"];
+export { VERDICT_KINDS, type VerdictKind } from "./verdictKinds.ts";
+import type { VerdictKind } from "./verdictKinds.ts";
 export type VerdictStatus = "pass" | "warn" | "fail";
 
 /** One verdict with its numbers and a one-line explanation. */
@@ -116,14 +116,69 @@ export interface Verdict {
   explanation: string;
 }
 
-/** Per-case result: responses of every device, the chains and the verdicts raised in this case. */
+/** One step of the simulated operation: a device trips (fuse: melts), its breaker opens (fuse: clears), or fails to (stuck). */
+export interface OperationStep {
+  device: string;
+  t_s: number;
+  action: "trip" | "open" | "melt" | "clear" | "stuck";
+  /** The element the device looks into, opened at the device's end (open, clear, stuck). */
+  element: string | null;
+}
+
+/** What happens when one expected device's breaker fails to open: the zone grown past it. */
+export interface FailureOutcome {
+  /** The expected device whose breaker is assumed stuck (every device at that element end fails with it). */
+  device: string;
+  /** Devices expected to isolate the fault instead (beyond the expected isolation). */
+  backups: string[];
+  operations: OperationStep[];
+  isolated_s: number | null;
+  loadLost_kW: number;
+}
+
+/**
+ * The case as the protection should and does clear it: the faulted zone, the expected isolation (the smallest set
+ * of zone-boundary devices that disconnects it from every energising source) and the simulated operation.
+ */
+export interface CaseOperation {
+  /** Buses of the faulted zone, grown past devices that cannot see the fault by design. */
+  zoneBuses: string[];
+  /** Devices of the expected isolation, in network order. */
+  ideal: string[];
+  /** Per expected device: its backups (the zone grown past its stuck breaker). */
+  backups: { device: string; backups: string[] }[];
+  /** Boundary devices that restrain by direction (correctly); the zone grew past them to remote devices. */
+  restrained: string[];
+  /** Energising sources no device of the project can separate from the fault. */
+  outOfReach: string[];
+  /** Grid-following converters feeding the fault: they cease to energise on their own protection. */
+  selfCeasing: string[];
+  /** What the protection did, in time order. */
+  operations: OperationStep[];
+  /** When the fault was isolated from every energising source a device can reach; null when not within the horizon. */
+  isolated_s: number | null;
+  /** Devices that tripped without being in the expected isolation. */
+  unwanted: string[];
+  loadLost_kW: number;
+  idealLoadLost_kW: number;
+  /** Elements that carried the fault, with the fraction of their withstand used (1 = reached), largest first. */
+  withstand: { element: string; used: number; peak_A: number }[];
+  /** One outcome per expected device with its breaker stuck. */
+  failures: FailureOutcome[];
+}
+
+/** Per-case result: responses of every device, the expected and simulated operation, and the verdicts raised in it. */
 export interface CaseResult {
   faultCase: FaultCase;
   /** Current at the fault point, A (largest phase current into the fault). */
   iFault_A: number;
-  /** Every device that carries current in this case or sits on one of its source paths (others see nothing). */
+  /** Every device that carries current in this case or takes part in its isolation (others see nothing). */
   responses: DeviceResponse[];
+  /** The expected isolation as chains for stepping through: one per expected device, its backups after it. */
   chains: FaultChains;
+  operation: CaseOperation;
+  /** True when the engine could not solve the case (its reason is in the study's warnings); no current is given. */
+  unsolved?: boolean;
   verdictIds: string[];
 }
 
@@ -190,8 +245,10 @@ export interface StudyOptions {
   limits?: FaultLimit[];
   /** Include points along lines (default true). */
   linePoints?: boolean;
-  /** Run the sequential clearing simulation for these case ids (default: none; a worst case per scenario is always included). */
+  /** Keep the clearing timeline (steps with currents) of these case ids too (the cases that matter are always kept). */
   timelineCases?: string[];
+  /** Only these fault locations (keys.locationKey), e.g. one case's. */
+  locationKeys?: string[];
 }
 
 /** The whole study. */

@@ -3,14 +3,11 @@
 // returns one fault case's device responses and chains (and optionally its clearing timeline).
 import { loadProject } from "../../model/projectFile.ts";
 import { projectSchema, type Project } from "../../model/schema.ts";
-import { analyseCase, runStudy, StudyCancelled } from "../runStudy.ts";
+import { runStudy, StudyCancelled } from "../runStudy.ts";
+import { locationKey } from "../keys.ts";
 import { engineSolver } from "../engineSolver.ts";
 import { protectionModel } from "../protectionModel.ts";
-import { scenarioNetwork } from "../scenarioNetwork.ts";
-import { deviceSides } from "../deviceSides.ts";
 import { enumerateFaultCases } from "../faultCases.ts";
-import { findSourcePaths } from "../sourcePaths.ts";
-import { clearingTimeline } from "../timeline.ts";
 import type { StudyProgress, StudyRequest, StudyResponse } from "../types.ts";
 
 export interface StudyRequestContext {
@@ -52,15 +49,17 @@ export async function handleStudyRequest(request: StudyRequest, ctx: StudyReques
     }
     const fc = enumerateFaultCases(project).find((c) => c.id === request.caseId);
     if (!fc) return { kind: "error", requestId, ok: false, message: `Fault case ${request.caseId}: not found in this project` };
-    const scenario = project.scenarios.find((s) => s.id === fc.scenario)!;
-    const solver = engineSolver(project);
-    const model = protectionModel();
-    const net = scenarioNetwork(project, scenario);
-    const paths = findSourcePaths(net, fc.location);
-    const snap = solver.solveOne(scenario, fc.location, fc.faultType, fc.limit, []);
-    const { work, verdicts } = analyseCase(project, net, deviceSides(net), fc, paths, snap, model);
-    const timeline = request.timeline ? clearingTimeline({ project, net, faultCase: fc, solver, model, idealDevices: work.result.chains.idealIsolation }) : null;
-    return { kind: "case", requestId, ok: true, result: work.result, verdicts, timeline };
+    // the same pipeline and verdict kinds as the full study, on this one location, type and limit
+    const one = await runStudy(
+      project,
+      { solver: engineSolver(project), model: protectionModel() },
+      { scenarios: [fc.scenario], faultTypes: [fc.faultType], limits: [fc.limit], locationKeys: [locationKey(fc.location)], timelineCases: request.timeline ? [fc.id] : [] },
+    );
+    const result = one.cases.find((c) => c.faultCase.id === fc.id);
+    if (!result) return { kind: "error", requestId, ok: false, message: `Fault case ${request.caseId}: could not be studied` };
+    const ids = new Set(result.verdictIds);
+    const timeline = request.timeline ? (one.timelines.find((t) => t.caseId === fc.id) ?? null) : null;
+    return { kind: "case", requestId, ok: true, result, verdicts: one.verdicts.filter((v) => ids.has(v.id)), timeline };
   } catch (err) {
     if (err instanceof StudyCancelled) return { kind: "cancelled", requestId, ok: false };
     return { kind: "error", requestId, ok: false, message: err instanceof Error ? err.message : String(err) };

@@ -1,0 +1,266 @@
+// Simulated operation of one fault case. At each network state every device's travel towards operation
+// accumulates as the integral of dt / t(I) (each element resets below pickup by its own law, see
+// protection/accumulate.ts); the first device to complete trips, its breaker opens after its breaker time
+// (unless that breaker is the one assumed stuck), and the network is solved again, until the fault is
+// separated from every energising source that a device can separate it from, or the horizon passes.
+//
+// The simulation is resumable: advance() takes the snapshot of the current state and returns either the
+// element ends open in the next state (the caller solves them, typically many cases at once) or null when
+// the case is finished. Equipment withstand is integrated over the states as a used fraction, sum dt / t(I),
+// which for a cable is exactly its adiabatic I^2 t (IEC 60364-4-43, 434.5.2).
+import type { ProtectiveDevice } from "../../model/schema.ts";
+import { initialTravel, type Measurement, type TravelState } from "../../protection/index.ts";
+import type { DeviceModel } from "../deviceModel.ts";
+import type { ScenarioNetwork } from "../scenarioNetwork.ts";
+import type { DeviceReading, FaultSnapshot, OpenEnd } from "../studySolver.ts";
+import type { DeviceResponse } from "../types.ts";
+import type { WithstandFn } from "../withstand.ts";
+import { energisingFeeding } from "./supply.ts";
+
+export type OperationAction = "trip" | "open" | "melt" | "clear" | "stuck";
+
+/** One step of what the protection did: a device trips (fuse: melts), its breaker opens (fuse: clears), or fails to. */
+export interface OperationStep {
+  device: string;
+  t_s: number;
+  action: OperationAction;
+  /** The element the device looks into (opened at the device's end), for open, clear and stuck. */
+  element: string | null;
+  /** Device currents (primary A) in the state the step happens in; only when the simulation records them. */
+  currents?: { device: string; i_A: number }[];
+}
+
+/** How much of an element's withstand a fault used before it was interrupted. */
+export interface WithstandUse {
+  element: string;
+  end: "from" | "to" | "terminal";
+  /** Sum of dt / t_withstand(I) over the states: 1 means the withstand was reached. */
+  used: number;
+  /** Largest current through it, A. */
+  peak_A: number;
+}
+
+export interface SimulationOutcome {
+  steps: OperationStep[];
+  /** Time at which the fault was separated from every energising source a device can reach; null: not within the horizon. */
+  isolated_s: number | null;
+  /** Edges open at the end. */
+  openEdges: number[];
+  /** Devices that tripped, with their trip time. */
+  tripped: Map<string, number>;
+  /** Elements whose withstand use is known, the largest use first. */
+  withstand: WithstandUse[];
+  /** Network states solved after the first. */
+  resolves: number;
+}
+
+export interface SimulationInput {
+  net: ScenarioNetwork;
+  faultNode: string;
+  model: DeviceModel;
+  horizon_s: number;
+  /** Energising sources no device can separate from the fault (their feed is the utility's to clear). */
+  outOfReach: readonly string[];
+  /** Edges whose breakers fail to open (the stuck-breaker case); empty for the normal case. */
+  stuck?: ReadonlySet<number>;
+  withstand: WithstandFn;
+  /** Keep each step's device currents (for a timeline a person reads). */
+  recordCurrents?: boolean;
+}
+
+const NO_CURRENT: Measurement = { phase_A: [0, 0, 0], residual_A: 0, negative_A: 0 };
+const EPS = 1e-9;
+
+/** An answer timed from rest, less the time already spent at the same currents. */
+const shifted = (r: { trip_s: number; clearing_s: number }, t_s: number) => ({ trip_s: r.trip_s - t_s, clearing_s: r.clearing_s - t_s });
+
+/** Device currents of a state above 1 % of its largest, rounded to 0.1 A. */
+function stateCurrents(snap: FaultSnapshot): { device: string; i_A: number }[] {
+  const list = Object.entries(snap.readings).map(([device, r]) => ({ device, i_A: phaseMax(r) }));
+  const peak = list.reduce((m, x) => Math.max(m, x.i_A), 0);
+  return list.filter((x) => x.i_A > 0.01 * peak).map((x) => ({ device: x.device, i_A: Math.round(x.i_A * 10) / 10 }));
+}
+
+const phaseMax = (r: DeviceReading | undefined): number => (r ? Math.max(r.m.phase_A[0], r.m.phase_A[1], r.m.phase_A[2]) : 0);
+
+export class CaseSimulation {
+  private t = 0;
+  private readonly open = new Set<number>();
+  private readonly openEnds: OpenEnd[] = [];
+  private readonly travel = new Map<string, TravelState>();
+  private readonly tripped = new Map<string, number>();
+  private pending: { device: string; at_s: number }[] = [];
+  private readonly steps: OperationStep[] = [];
+  private isolatedAt: number | null = null;
+  private finished = false;
+  private resolves = 0;
+  /** While in the first state (from rest, currents constant): the devices' nominal answers there. */
+  private firstState: ReadonlyMap<string, DeviceResponse> | null = null;
+  private readonly use = new Map<string, WithstandUse>();
+  private readonly stuck: ReadonlySet<number>;
+
+  constructor(private readonly input: SimulationInput) {
+    this.stuck = input.stuck ?? new Set();
+    if (this.isIsolated()) {
+      this.isolatedAt = 0;
+      this.finished = true;
+    }
+  }
+
+  get done(): boolean {
+    return this.finished;
+  }
+
+  private isIsolated(): boolean {
+    const { net, faultNode, outOfReach } = this.input;
+    return energisingFeeding(net, faultNode, this.open).every((s) => outOfReach.includes(s));
+  }
+
+  private measured(snap: FaultSnapshot, id: string): Measurement {
+    const edge = this.input.net.deviceEdge.get(id);
+    if (edge === undefined || this.open.has(edge)) return NO_CURRENT;
+    return snap.readings[id]?.m ?? NO_CURRENT;
+  }
+
+  private step(s: OperationStep, snap: FaultSnapshot): void {
+    if (this.input.recordCurrents) s.currents = stateCurrents(snap);
+    this.steps.push(s);
+  }
+
+  /** Leaves the first state: every device's travel after this.t seconds at the first state's currents. */
+  private leaveFirstState(snap: FaultSnapshot): void {
+    if (!this.firstState) return;
+    this.firstState = null;
+    const { net, model } = this.input;
+    for (const id in snap.readings) {
+      if (this.tripped.has(id)) continue;
+      const device = net.devices.get(id);
+      if (!device || !net.deviceEdge.has(id)) continue;
+      this.travel.set(id, model.accumulate(initialTravel(), device, this.measured(snap, id), this.t));
+    }
+  }
+
+  /** Adds dt at this state's currents to the withstand use of every element a device measures. */
+  private useWithstand(snap: FaultSnapshot, dt: number): void {
+    if (!(dt > 0)) return;
+    const { net, withstand } = this.input;
+    const seen = new Set<string>();
+    for (const id in snap.readings) {
+      const device = net.devices.get(id);
+      const edge = net.deviceEdge.get(id);
+      if (!device || edge === undefined || this.open.has(edge)) continue;
+      const key = `${device.at.element}\u0000${device.at.end}`;
+      if (seen.has(key)) continue;
+      seen.add(key);
+      const i = phaseMax(snap.readings[id]);
+      if (!(i > 0)) continue;
+      const t = withstand(net.elements.get(device.at.element), device.at.end, i);
+      if (!Number.isFinite(t)) continue;
+      let u = this.use.get(key);
+      if (!u) this.use.set(key, (u = { element: device.at.element, end: device.at.end, used: 0, peak_A: 0 }));
+      u.used += dt / t;
+      if (i > u.peak_A) u.peak_A = i;
+    }
+  }
+
+  /**
+   * Advances through the state `snap` describes. `responses` (first state only, optional) are the devices'
+   * nominal answers there: from rest at constant current every element travels linearly, so the time left
+   * is the nominal time less the time spent, and no accumulation is needed unless the case goes on past
+   * the first state. Returns the element ends open in the next state, or null when the case is finished.
+   */
+  advance(snap: FaultSnapshot, responses?: ReadonlyMap<string, DeviceResponse>): OpenEnd[] | null {
+    if (this.finished) return null;
+    const { net, model, horizon_s } = this.input;
+    if (this.t === 0 && this.steps.length === 0 && responses) this.firstState = responses;
+    else this.resolves++;
+    for (let guard = 0; guard < 4 * net.devices.size + 8; guard++) {
+      // time still needed by every device that has not tripped, at this state's currents
+      const left = new Map<string, { trip_s: number; clearing_s: number }>();
+      let nextTrip = Infinity;
+      const candidates = new Set<string>(Object.keys(snap.readings));
+      for (const id of this.travel.keys()) candidates.add(id);
+      for (const id of candidates) {
+        if (this.tripped.has(id)) continue;
+        const device = net.devices.get(id) as ProtectiveDevice | undefined;
+        if (!device || !net.deviceEdge.has(id)) continue;
+        const r = this.firstState?.get(id);
+        const res = r
+          ? { trip_s: (r.tOperate_s ?? Infinity) - this.t, clearing_s: (r.tClear_s ?? Infinity) - this.t }
+          : this.firstState
+            ? shifted(model.timeToOperate(initialTravel(), device, this.measured(snap, id)), this.t)
+            : model.timeToOperate(this.travel.get(id) ?? initialTravel(), device, this.measured(snap, id));
+        if (!Number.isFinite(res.trip_s)) continue;
+        left.set(id, res);
+        nextTrip = Math.min(nextTrip, this.t + Math.max(0, res.trip_s));
+      }
+      const nextOpen = this.pending.reduce((m, p) => Math.min(m, p.at_s), Infinity);
+      const tNext = Math.min(nextTrip, nextOpen);
+      if (!(tNext <= horizon_s)) {
+        this.useWithstand(snap, horizon_s - this.t);
+        this.finished = true;
+        return null;
+      }
+      const dt = tNext - this.t;
+      this.useWithstand(snap, dt);
+      if (!this.firstState)
+        for (const id of candidates) {
+          if (this.tripped.has(id)) continue;
+          const device = net.devices.get(id);
+          if (!device || !net.deviceEdge.has(id)) continue;
+          this.travel.set(id, model.accumulate(this.travel.get(id) ?? initialTravel(), device, this.measured(snap, id), dt));
+        }
+      for (const [id, res] of left) {
+        const operated = !this.firstState && this.travel.get(id)?.operated;
+        if (!(operated || this.t + res.trip_s <= tNext + EPS)) continue;
+        const device = net.devices.get(id)!;
+        this.tripped.set(id, tNext);
+        this.travel.delete(id);
+        this.step({ device: id, t_s: tNext, action: device.kind === "fuse" ? "melt" : "trip", element: null }, snap);
+        this.pending.push({ device: id, at_s: tNext + Math.max(0, res.clearing_s - res.trip_s) });
+      }
+      this.t = tNext;
+      let opened = false;
+      const still: { device: string; at_s: number }[] = [];
+      for (const p of this.pending) {
+        if (p.at_s > this.t + EPS) {
+          still.push(p);
+          continue;
+        }
+        const device = net.devices.get(p.device)!;
+        const edge = net.deviceEdge.get(p.device)!;
+        if (this.open.has(edge)) continue;
+        if (this.stuck.has(edge)) {
+          this.step({ device: p.device, t_s: this.t, action: "stuck", element: device.at.element }, snap);
+          continue;
+        }
+        this.open.add(edge);
+        this.openEnds.push({ element: device.at.element, end: device.at.end });
+        opened = true;
+        this.step({ device: p.device, t_s: this.t, action: device.kind === "fuse" ? "clear" : "open", element: device.at.element }, snap);
+      }
+      this.pending = still;
+      if (!opened) continue;
+      if (this.isIsolated()) {
+        this.isolatedAt = this.t;
+        this.finished = true;
+        return null;
+      }
+      this.leaveFirstState(snap);
+      return [...this.openEnds];
+    }
+    this.finished = true;
+    return null;
+  }
+
+  outcome(): SimulationOutcome {
+    return {
+      steps: this.steps,
+      isolated_s: this.isolatedAt,
+      openEdges: [...this.open].sort((a, b) => a - b),
+      tripped: this.tripped,
+      withstand: [...this.use.values()].sort((a, b) => b.used - a.used),
+      resolves: this.resolves,
+    };
+  }
+}

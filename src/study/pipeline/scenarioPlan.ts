@@ -1,0 +1,62 @@
+// Pass 1 of a scenario's study: its network graph, protection zones, and for every fault location and
+// fault type the expected isolation with its stuck-breaker variants. None of this depends on currents,
+// so it is worked out once per location and type and shared by both limits.
+import type { Project, Scenario } from "../../model/schema.ts";
+import { deviceSides, type ProtectedSide } from "../deviceSides.ts";
+import { faultLocations } from "../faultCases.ts";
+import { expectedIsolation, isolationContext, isolationWithFailure, type IsolationContext, type IsolationPlan } from "../operation/expectedIsolation.ts";
+import { protectionZones } from "../operation/zones.ts";
+import { scenarioNetwork, type ScenarioNetwork } from "../scenarioNetwork.ts";
+import { faultNode } from "../sourcePaths.ts";
+import type { FaultLocation, FaultType, StudyOptions } from "../types.ts";
+
+export interface LocationPlan {
+  plan: IsolationPlan;
+  /** One plan per expected edge, with that edge's breaker stuck (same order as plan.edges). */
+  failures: IsolationPlan[];
+  /** Buses of the faulted zone. */
+  zoneBuses: string[];
+}
+
+export interface ScenarioPlan {
+  scenario: Scenario;
+  net: ScenarioNetwork;
+  isolation: IsolationContext;
+  sides: Map<string, ProtectedSide>;
+  locations: FaultLocation[];
+  /** Graph node of each location (same order). */
+  nodes: string[];
+  /** Plans by location index, per fault type. */
+  plans: Map<FaultType, LocationPlan[]>;
+}
+
+function zoneBusesOf(ctx: IsolationContext, plan: IsolationPlan): string[] {
+  const out: string[] = [];
+  for (const z of plan.zones) for (const n of ctx.zones.nodes[z]) if (n.startsWith("b:")) out.push(n.slice(2));
+  return out;
+}
+
+export function planScenario(project: Project, scenario: Scenario, types: readonly FaultType[], options: StudyOptions): ScenarioPlan {
+  const net = scenarioNetwork(project, scenario);
+  const isolation = isolationContext(net, protectionZones(net));
+  const locations = faultLocations(project, scenario, options);
+  const nodes = locations.map(faultNode);
+  const plans = new Map<FaultType, LocationPlan[]>();
+  for (const type of types) {
+    // locations at the same graph node (a bus and a line's end) share their plan
+    const byNode = new Map<string, LocationPlan>();
+    plans.set(
+      type,
+      nodes.map((node) => {
+        let lp = byNode.get(node);
+        if (!lp) {
+          const plan = expectedIsolation(isolation, node, type);
+          lp = { plan, failures: plan.edges.map((edge) => isolationWithFailure(isolation, plan, edge, type)), zoneBuses: zoneBusesOf(isolation, plan) };
+          byNode.set(node, lp);
+        }
+        return lp;
+      }),
+    );
+  }
+  return { scenario, net, isolation, sides: deviceSides(net), locations, nodes, plans };
+}

@@ -61,6 +61,11 @@ export interface CompileOptions {
   limit: Limit;
   /** Override study.method. */
   method?: Method;
+  /**
+   * Element ends opened by protective devices (a device's `at`): the current at each is interrupted, the rest of the
+   * network stays (see src/engine/network/openEnds.ts). A switch opened at either end is open.
+   */
+  openEnds?: { element: string; end: "from" | "to" | "terminal" }[];
 }
 
 /** One electrical node after switches merged buses (union-find). Opaque handle plus what callers need. */

@@ -7,6 +7,7 @@ export function assignIslands(model: Model): EngineMessage[] {
   const n = model.nodes.length;
   const adj: { to: number; shift: number; label: string; element: string }[][] = Array.from({ length: n }, () => []);
   for (const b of model.branches) {
+    if (b.open) continue; // an opened branch connects nothing
     adj[b.from].push({ to: b.to, shift: b.shift_deg, label: b.label, element: b.element });
     adj[b.to].push({ to: b.from, shift: -b.shift_deg, label: b.label, element: b.element });
   }
@@ -39,7 +40,7 @@ export function assignIslands(model: Model): EngineMessage[] {
     island++;
   }
   model.islandLive = new Array(island).fill(false);
-  for (const sh of model.shunts) if (sh.kind !== "motor") model.islandLive[model.nodes[sh.node].island] = true;
+  for (const sh of model.shunts) if (sh.kind !== "motor" && !sh.open) model.islandLive[model.nodes[sh.node].island] = true;
   for (const u of model.inverters) model.islandLive[model.nodes[u.node].island] = true;
   return errors.slice(0, 1);
 }

@@ -16,6 +16,7 @@ import { inverterUnit } from "../elements/inverterUnit.ts";
 import { inv } from "../complex.ts";
 import { assignIslands } from "./assignIslands.ts";
 import { createEngineCache } from "./engineCache.ts";
+import { openStamps, openedBranch } from "./openEnds.ts";
 
 function err(text: string, element?: string): EngineMessage {
   return { level: "error", code: "invalid-input", text, element };
@@ -41,6 +42,13 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
   const buses = new Map<string, Extract<Element, { kind: "bus" }>>();
   for (const e of project.elements) if (e.kind === "bus" && !out.has(e.id)) buses.set(e.id, e);
   const allIds = new Set(project.elements.map((e) => e.id));
+  // Ends opened by protective devices: a switch opened at either end is open; other elements are opened below.
+  const openSwitches = new Set<string>();
+  for (const o of options.openEnds ?? []) {
+    const el = project.elements.find((e) => e.id === o.element);
+    if (!el) errors.push(err(`Opened end ${o.element} (${o.end}): unknown element`, o.element));
+    else if (el.kind === "switch") openSwitches.add(el.id);
+  }
   const busOf = (e: Element, field: string, id: string): boolean => {
     if (buses.has(id)) return true;
     if (!allIds.has(id)) errors.push(err(`${elementLabel(e)}: ${field} refers to unknown bus ${id}`, e.id));
@@ -57,7 +65,7 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
   };
   for (const e of project.elements) {
     if (e.kind !== "switch" || out.has(e.id)) continue;
-    const closed = ownValue(states, e.id) ?? e.closed;
+    const closed = (ownValue(states, e.id) ?? e.closed) && !openSwitches.has(e.id);
     if (!closed) continue;
     const okA = busOf(e, "busA", e.busA);
     const okB = busOf(e, "busB", e.busB);
@@ -217,6 +225,14 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
     devices.push({ element: e.at.element, end: e.at.end });
   }
   const model: Model = { nodes, branches, shunts, inverters, busNode, baseMVA: opts.baseMVA, devices, islandLive: [] };
+  const openEnds = (options.openEnds ?? []).filter((o) => !openSwitches.has(o.element));
+  if (openEnds.length > 0) {
+    try {
+      Object.assign(model, openStamps(model, openEnds));
+    } catch (x) {
+      return { ok: false, errors: [err((x as Error).message, openEnds[0].element)] };
+    }
+  }
   const islandErrors = assignIslands(model);
   if (islandErrors.length > 0) return { ok: false, errors: islandErrors };
   for (const plan of units.byGenerator.values()) {
@@ -225,8 +241,9 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
     if (!g || !t) continue;
     const variant: Model = {
       ...model,
-      shunts: model.shunts.map((x) => (x.element === g.element ? g : x)),
-      branches: model.branches.map((x) => (x.element === t.element ? t : x)),
+      // an opened terminal or end stays open in the unit's own variant
+      shunts: model.shunts.map((x) => (x.element === g.element && !x.open ? g : x)),
+      branches: model.branches.map((x) => (x.element === t.element ? (x.open ? openedBranch(t, x.open) : t) : x)),
     };
     model.inUnit ??= new Map();
     model.inUnit.set(plan.lvNode, { model: variant, cache: createEngineCache() });

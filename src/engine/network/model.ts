@@ -36,6 +36,8 @@ export interface BranchStamp {
   rated_A?: number;
   /** Ends reported in results (both when absent); the halves of a line split at a fault point report one each. */
   reportEnds?: ("from" | "to")[];
+  /** Ends opened by protective devices (see openEnds.ts): no series path; not a connection for islands. */
+  open?: ("from" | "to")[];
 }
 
 /** A shunt element with a voltage source behind an impedance (grid, generator, motor, grid-forming inverter). */
@@ -54,6 +56,8 @@ export interface ShuntStamp {
   refinedOnly: boolean;
   /** Motors with known pole pairs: rated active power per pair of poles in MW (for the breaking-current factor q). */
   m_MW?: number;
+  /** Terminal opened by a protective device (see openEnds.ts): no admittance, not a source; its current is zero. */
+  open?: true;
 }
 
 /** A converter-interfaced unit. */

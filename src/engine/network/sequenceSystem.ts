@@ -6,6 +6,7 @@ import type { Model, Seq } from "./model.ts";
 import type { EngineCache } from "./engineCache.ts";
 import { minimumDegree, type Ordering } from "../sparse/minimumDegree.ts";
 import { factorLdlt, solveLdlt, type LdltFactor, type SymmetricTriplets } from "../sparse/ldlt.ts";
+import { applyLowRank, applyLowRankColumn, type LowRankUpdate } from "./lowRankUpdate.ts";
 
 export type Variant = "iec" | "refined";
 
@@ -19,6 +20,8 @@ export interface SequenceSystem {
   /** w = Z'[:, ref] of each floating component (zero elsewhere). */
   wre: Float64Array;
   wim: Float64Array;
+  /** A low-rank change of the factored matrix (element ends opened, see src/engine/reopen): Z' = Z - W H W^T. */
+  update?: LowRankUpdate;
 }
 
 function modelOrdering(model: Model, cache: EngineCache): Ordering {
@@ -33,19 +36,12 @@ function modelOrdering(model: Model, cache: EngineCache): Ordering {
   return cache.ordering;
 }
 
-export function sequenceSystem(model: Model, cache: EngineCache, seq: Seq, variant: Variant): SequenceSystem {
-  const key = `${seq}:${variant}`;
-  const hit = cache.systems.get(key);
-  if (hit) return hit;
+/**
+ * Connected parts of one sequence's graph: each node's part, whether the part has no shunt path ("floating") and
+ * its reference node (its first node), where a floating part gets its 1 pu reference shunt.
+ */
+export function sequenceComponents(model: Model, seq: Seq, variant: Variant): { comp: Int32Array; floating: boolean[]; refs: number[] } {
   const n = model.nodes.length;
-  const a: SymmetricTriplets = { n, row: [], col: [], re: [], im: [] };
-  const put = (i: number, j: number, re: number, im: number) => {
-    a.row.push(i);
-    a.col.push(j);
-    a.re.push(re);
-    a.im.push(im);
-  };
-  // Components of this sequence's graph.
   const parent = new Int32Array(n);
   for (let i = 0; i < n; i++) parent[i] = i;
   const find = (i: number): number => {
@@ -57,34 +53,18 @@ export function sequenceSystem(model: Model, cache: EngineCache, seq: Seq, varia
   };
   const hasShunt = new Uint8Array(n);
   for (const b of model.branches) {
-    const y = b.y[seq];
-    if (b.from === b.to) continue; // a self-loop's stamps cancel (t = 1 for lines)
-    if (y) {
-      const t = b.t;
-      put(b.from, b.from, y.re / (t * t), y.im / (t * t));
-      put(b.to, b.to, y.re, y.im);
-      put(b.to, b.from, -y.re / t, -y.im / t);
+    if (b.from === b.to) continue;
+    if (b.y[seq]) {
       const ra = find(b.from);
       const rb = find(b.to);
       if (ra !== rb) parent[rb] = ra;
-    } else {
-      put(b.to, b.from, 0, 0); // keep the symbolic pattern shared by all sequences
     }
-    if (seq === 0 && b.y0From) {
-      put(b.from, b.from, b.y0From.re, b.y0From.im);
-      hasShunt[b.from] = 1;
-    }
-    if (seq === 0 && b.y0To) {
-      put(b.to, b.to, b.y0To.re, b.y0To.im);
-      hasShunt[b.to] = 1;
-    }
+    if (seq === 0 && b.y0From) hasShunt[b.from] = 1;
+    if (seq === 0 && b.y0To) hasShunt[b.to] = 1;
   }
   for (const s of model.shunts) {
     if (s.refinedOnly && variant === "iec") continue;
-    const y = s.y[seq];
-    if (!y) continue;
-    put(s.node, s.node, y.re, y.im);
-    hasShunt[s.node] = 1;
+    if (s.y[seq]) hasShunt[s.node] = 1;
   }
   const compOfRoot = new Map<number, number>();
   const comp = new Int32Array(n);
@@ -101,7 +81,42 @@ export function sequenceSystem(model: Model, cache: EngineCache, seq: Seq, varia
   }
   const compShunt = new Array<boolean>(refs.length).fill(false);
   for (let i = 0; i < n; i++) if (hasShunt[i]) compShunt[comp[i]] = true;
-  const floating = compShunt.map((h) => !h);
+  return { comp, floating: compShunt.map((h) => !h), refs };
+}
+
+export function sequenceSystem(model: Model, cache: EngineCache, seq: Seq, variant: Variant): SequenceSystem {
+  const key = `${seq}:${variant}`;
+  const hit = cache.systems.get(key);
+  if (hit) return hit;
+  const n = model.nodes.length;
+  const a: SymmetricTriplets = { n, row: [], col: [], re: [], im: [] };
+  const put = (i: number, j: number, re: number, im: number) => {
+    a.row.push(i);
+    a.col.push(j);
+    a.re.push(re);
+    a.im.push(im);
+  };
+  for (const b of model.branches) {
+    const y = b.y[seq];
+    if (b.from === b.to) continue; // a self-loop's stamps cancel (t = 1 for lines)
+    if (y) {
+      const t = b.t;
+      put(b.from, b.from, y.re / (t * t), y.im / (t * t));
+      put(b.to, b.to, y.re, y.im);
+      put(b.to, b.from, -y.re / t, -y.im / t);
+    } else {
+      put(b.to, b.from, 0, 0); // keep the symbolic pattern shared by all sequences
+    }
+    if (seq === 0 && b.y0From) put(b.from, b.from, b.y0From.re, b.y0From.im);
+    if (seq === 0 && b.y0To) put(b.to, b.to, b.y0To.re, b.y0To.im);
+  }
+  for (const s of model.shunts) {
+    if (s.refinedOnly && variant === "iec") continue;
+    const y = s.y[seq];
+    if (!y) continue;
+    put(s.node, s.node, y.re, y.im);
+  }
+  const { comp, floating, refs } = sequenceComponents(model, seq, variant);
   for (let c = 0; c < refs.length; c++) if (floating[c]) put(refs[c], refs[c], 1, 0);
   const factor = factorLdlt(a, modelOrdering(model, cache));
   const wre = new Float64Array(n);
@@ -129,6 +144,7 @@ export function applyZ(sys: SequenceSystem, bre: Float64Array, bim: Float64Array
   const re = bre.slice();
   const im = bim.slice();
   solveLdlt(sys.factor, re, im);
+  if (sys.update) applyLowRank(sys.update, bre, bim, re, im);
   return { re, im };
 }
 
@@ -138,5 +154,6 @@ export function zColumn(sys: SequenceSystem, k: number): { re: Float64Array; im:
   const im = new Float64Array(sys.n);
   re[k] = 1;
   solveLdlt(sys.factor, re, im);
+  if (sys.update) applyLowRankColumn(sys.update, k, re, im);
   return { re, im };
 }

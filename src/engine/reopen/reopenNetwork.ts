@@ -1,0 +1,156 @@
+// Re-solving faults after protective devices opened element ends, without refactorizing: the opened network's
+// model is built by the same stamps as a fresh compile (network/openEnds.ts), and its sequence systems are the
+// base factorization plus a low-rank update (updatedSystem.ts). solveFault then runs on it unchanged, so a re-solve
+// gives what solveFault gives on compileNetwork(project, { ...options, openEnds }). Opened sets are cached: a study
+// re-solves many faults with the same few opened ends.
+// What the update does not cover goes to that fresh compile, with the reason in the result's messages:
+// a switch opened (it merges buses into one node, so opening it splits a node) and a fault at a power station
+// unit's LV node (solved on the unit's own variant model).
+import type { Project } from "../../model/schema.ts";
+import type { CompileOptions, CompiledNetwork, EngineMessage, FaultLocation, FaultOptions, FaultResult, FaultType, NetworkNode } from "../types.ts";
+import type { Model } from "../network/model.ts";
+import { compileNetwork } from "../network/compileNetwork.ts";
+import { createEngineCache, type EngineCache } from "../network/engineCache.ts";
+import { assignIslands } from "../network/assignIslands.ts";
+import { openSetKey, openStamps, type OpenEnd } from "../network/openEnds.ts";
+import { sequenceSystem, zColumn, type SequenceSystem, type Variant } from "../network/sequenceSystem.ts";
+import { solveFault, type EngineInternal } from "../fault/solveFault.ts";
+import type { ComplexVec } from "../fault/solveLinearFault.ts";
+import { updatedSystem } from "./updatedSystem.ts";
+
+export type { OpenEnd };
+
+/** Everything the re-solves of one base network share. Create once per (project, scenario, limit, method). */
+export interface ReopenContext {
+  readonly project: Project;
+  readonly options: CompileOptions;
+  readonly base: CompiledNetwork;
+  /** Opened sets seen so far, by openSetKey. */
+  readonly sets: Map<string, ReopenedSet>;
+  /** Base Z' columns at nodes, per base sequence system. */
+  readonly columns: WeakMap<SequenceSystem, Map<number, ComplexVec>>;
+  /** How many faults each path answered, and why the fresh compile was used. */
+  readonly stats: { fast: number; reference: number; reasons: Record<string, number> };
+}
+
+/** One opened set: the updated network (null when the set needs a fresh compile), and that compile once made. */
+export interface ReopenedSet {
+  readonly key: string;
+  readonly ends: OpenEnd[];
+  /** The opened network on the base factorization (solveFault works on it), or null. */
+  readonly network: CompiledNetwork | null;
+  /** Why the whole set goes to the fresh compile (null when it does not). */
+  readonly fallback: string | null;
+  reference: CompiledNetwork | null;
+}
+
+/** A context for re-solves of `base`, which must be compileNetwork(project, options) (without openEnds). */
+export function createReopenContext(project: Project, options: CompileOptions, base?: CompiledNetwork): ReopenContext {
+  let net = base;
+  if (!net) {
+    const r = compileNetwork(project, { ...options, openEnds: undefined });
+    if (!r.ok) throw new Error(r.errors.map((e) => e.text).join("; "));
+    net = r.network;
+  }
+  return { project, options: { ...options, openEnds: undefined }, base: net, sets: new Map(), columns: new WeakMap(), stats: { fast: 0, reference: 0, reasons: {} } };
+}
+
+/** The base column Z'[:, node] of a base system, cached. */
+function baseColumn(ctx: ReopenContext, sys: SequenceSystem, node: number): ComplexVec {
+  let m = ctx.columns.get(sys);
+  if (!m) {
+    m = new Map();
+    ctx.columns.set(sys, m);
+  }
+  let col = m.get(node);
+  if (!col) {
+    col = zColumn(sys, node);
+    m.set(node, col);
+  }
+  return col;
+}
+
+/** The fresh compile of an opened set (the reference path), cached with the set. */
+export function referenceNetwork(ctx: ReopenContext, set: ReopenedSet): CompiledNetwork {
+  if (!set.reference) {
+    const r = compileNetwork(ctx.project, { ...ctx.options, openEnds: set.ends });
+    if (!r.ok) throw new Error(r.errors.map((e) => e.text).join("; "));
+    set.reference = r.network;
+  }
+  return set.reference;
+}
+
+/** The opened set for these ends, built (or found) once. Throws on an end that does not fit its element. */
+export function reopenedSet(ctx: ReopenContext, ends: readonly OpenEnd[]): ReopenedSet {
+  const key = openSetKey(ends);
+  const hit = ctx.sets.get(key);
+  if (hit) return hit;
+  const list = [...new Map(ends.map((e) => [`${e.element}|${e.end}`, { element: e.element, end: e.end }])).values()];
+  const byId = new Map(ctx.project.elements.map((e) => [e.id, e]));
+  for (const e of list) if (!byId.has(e.element)) throw new Error(`Opened end ${e.element} (${e.end}): unknown element`);
+  const switches = list.filter((e) => byId.get(e.element)?.kind === "switch");
+  let set: ReopenedSet;
+  if (switches.length > 0) {
+    set = { key, ends: list, network: null, fallback: `switch ${switches[0].element} opened (a switch merges its buses into one node)`, reference: null };
+  } else {
+    set = { key, ends: list, network: openedNetwork(ctx, list), fallback: null, reference: null };
+  }
+  ctx.sets.set(key, set);
+  return set;
+}
+
+/** The opened model on the base model's nodes, and its systems on the base factorization. */
+function openedNetwork(ctx: ReopenContext, ends: OpenEnd[]): CompiledNetwork {
+  const { model: base, cache: baseCache } = ctx.base.internal as EngineInternal;
+  const nodes = base.nodes.map((n) => ({ ...n }));
+  const model: Model = { ...base, ...openStamps(base, ends), nodes, islandLive: [], inUnit: undefined };
+  // Opening only removes connections, so no loop of unequal phase shifts can appear.
+  assignIslands(model);
+  const cache: EngineCache = createEngineCache();
+  cache.ordering = baseCache.ordering;
+  const variants: Variant[] = model.shunts.some((s) => s.refinedOnly) ? ["iec", "refined"] : ["iec"];
+  for (const variant of variants)
+    for (const seq of [0, 1, 2] as const) {
+      const sys0 = sequenceSystem(base, baseCache, seq, variant);
+      cache.systems.set(`${seq}:${variant}`, updatedSystem(base, model, sys0, variant, (sys, node) => baseColumn(ctx, sys, node)));
+    }
+  const messages: EngineMessage[] = [];
+  for (let i = 0; i < model.islandLive.length; i++) {
+    if (model.islandLive[i]) continue;
+    const bs = nodes.filter((n) => n.island === i).flatMap((n) => n.buses);
+    messages.push({ level: "warning", code: "dead-island", text: `Buses ${bs.join(", ")} have no source in this scenario: fault currents there are zero` });
+  }
+  const publicNodes: NetworkNode[] = nodes.map((n, index) => ({ index, buses: n.buses, un_kV: n.un_kV, shift_deg: n.shift_deg, island: n.island }));
+  const internal: EngineInternal = { model, cache };
+  return { scenario: ctx.base.scenario, options: ctx.base.options, nodes: publicNodes, busNode: ctx.base.busNode, messages, internal };
+}
+
+/** Why a fault of an updated set still needs the fresh compile (null: the update answers it). */
+export function faultFallback(ctx: ReopenContext, location: FaultLocation): string | null {
+  const { model } = ctx.base.internal as EngineInternal;
+  const k = location.kind === "bus" ? model.busNode.get(location.bus) : undefined;
+  if (k !== undefined && model.inUnit?.has(k)) return `fault at bus ${location.kind === "bus" ? location.bus : ""}, inside a power station unit (the unit's own corrections)`;
+  return null;
+}
+
+function countPath(ctx: ReopenContext, reason: string | null): void {
+  if (reason === null) ctx.stats.fast++;
+  else {
+    ctx.stats.reference++;
+    ctx.stats.reasons[reason] = (ctx.stats.reasons[reason] ?? 0) + 1;
+  }
+}
+
+/**
+ * One fault with the given ends open: the FaultResult solveFault gives on the fresh compile with those ends open,
+ * from the base factorization. A fault point along a line splits the opened network there, as solveFault does.
+ */
+export function solveReopened(ctx: ReopenContext, ends: readonly OpenEnd[], location: FaultLocation, type: FaultType, options: FaultOptions = {}): FaultResult {
+  const set = reopenedSet(ctx, ends);
+  const reason = set.fallback ?? faultFallback(ctx, location);
+  countPath(ctx, reason);
+  if (reason === null && set.network) return solveFault(set.network, location, type, options);
+  const r = solveFault(referenceNetwork(ctx, set), location, type, options);
+  r.messages.push({ level: "info", code: "reopen-fresh-compile", text: `Re-solved by a fresh compile of the network: ${reason}` });
+  return r;
+}

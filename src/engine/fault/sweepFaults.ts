@@ -124,6 +124,8 @@ export function planSweep(network: CompiledNetwork, options: SweepOptions = {}):
   const hasGfm = model.shunts.some((s) => s.refinedOnly);
   const sysVariant = used === "refined" && hasGfm ? "refined" : "iec";
   const sys = [0, 1, 2].map((s) => sequenceSystem(model, cache, s as 0 | 1 | 2, sysVariant)) as [SequenceSystem, SequenceSystem, SequenceSystem];
+  // A network with opened ends (src/engine/reopen) carries a low-rank update the sparse inverse cannot see.
+  if (sys.some((s) => s.update)) throw new Error("sweepFaults: this network has opened ends; sweep it with sweepReopened");
   // Per factor, kept with the network: every sweep of it (and every thread's plan) reads the same subsets.
   const tk: InverseSubset[] = sys.map((s) => {
     let t = cache.inverses.get(s.factor);

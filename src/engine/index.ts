@@ -11,3 +11,6 @@ export { handleRequest, createHandlerState, type HandlerState } from "./rpc/hand
 export { transferables } from "./rpc/protocol.ts";
 export type { EngineRequest, EngineResponse, EngineEvent } from "./rpc/protocol.ts";
 export { busFaultTable, busFaultTableWith, BUS_TABLE_SWEEP, formatBusFaultTable, type BusFaultTable, type BusFaultRun, type BusFaultRow, type BusFaultTask } from "./table/busFaultTable.ts";
+export { createReopenContext, reopenedSet, referenceNetwork, solveReopened, type ReopenContext, type ReopenedSet, type OpenEnd } from "./reopen/reopenNetwork.ts";
+export { sweepReopened, type ReopenSweepOptions } from "./reopen/reopenSweep.ts";
+export { openSetKey } from "./network/openEnds.ts";

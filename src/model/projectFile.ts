@@ -8,6 +8,7 @@ import { runMigrations, MigrationError, type JsonObject } from "./migrations/ind
 import { schemaMessages, describeValue } from "./schemaMessages.ts";
 import { validateRecords } from "./validate.ts";
 import { canonicalJson } from "./canonicalJson.ts";
+import { MAX_NESTING, replacementCharLines, tooDeep } from "./fileTextChecks.ts";
 
 export const PROJECT_FILE_EXTENSION = ".islet";
 
@@ -47,6 +48,11 @@ function loadUnguarded(text: string): LoadResult {
     ]);
   }
 
+  const deep = tooDeep(doc);
+  if (deep) {
+    const where = deep.field === "" ? "" : ` under the field ${JSON.stringify(deep.field)}`;
+    return fail("notAProject", [`Project file: values nest ${deep.depth} levels deep${where}; a project nests far less (this build reads up to ${MAX_NESTING} levels), so the file is not read`]);
+  }
   if (typeof doc !== "object" || doc === null || Array.isArray(doc)) {
     return fail("notAProject", [`Project file: expected a JSON object with format "${FORMAT_TAG}", got ${describeValue(doc)}`]);
   }
@@ -71,6 +77,13 @@ function loadUnguarded(text: string): LoadResult {
   const warnings: string[] = protoKeyPaths(envelope).map(
     (path) => `Project file: the field "__proto__" at ${path} is ignored (a reserved name in JavaScript; it is not kept on save)`,
   );
+  const replaced = replacementCharLines(body);
+  if (replaced.length > 0) {
+    const shown = replaced.slice(0, 10).join(", ") + (replaced.length > 10 ? ` and ${replaced.length - 10} more` : "");
+    warnings.push(
+      `Project file: line${replaced.length > 1 ? "s" : ""} ${shown} hold${replaced.length > 1 ? "" : "s"} the replacement character U+FFFD: bytes there were not valid UTF-8 and were replaced when the file was read (or the character was typed on purpose). Check the text there; saving writes U+FFFD, not the original bytes`,
+    );
+  }
   let current: JsonObject = envelope;
   if (version < FORMAT_VERSION) {
     try {

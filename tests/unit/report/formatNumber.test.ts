@@ -8,7 +8,7 @@ describe("report number formatting", () => {
   it("formats tiny values in exponent form with three significant figures", () => {
     expect(formatSignificant(1e-300)).toBe("1.00e-300");
     expect(formatSignificant(-2.346e-98)).toBe("-2.35e-98");
-    expect(formatSignificant(5e-324)).toBe("5.00e-324");
+    expect(formatSignificant(Number.MIN_VALUE)).toBe("4.94e-324"); // the smallest double, 4.9406564584124654e-324 (IEEE 754 binary64)
   });
 
   it("keeps fixed notation down to 1e-9 and for large values", () => {

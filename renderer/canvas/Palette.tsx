@@ -2,7 +2,7 @@
 // (protective devices go on the selected element).
 import type { DragEvent } from "react";
 import type { ElementKind } from "../../src/model/schema.ts";
-import { PALETTE_KINDS, kindName } from "./newElement.ts";
+import { PALETTE_KINDS, paletteWords } from "./newElement.ts";
 import { PaletteIcon } from "./symbols/PaletteIcon.tsx";
 
 export const PALETTE_DRAG_TYPE = "application/x-islet-kind";
@@ -20,9 +20,9 @@ export function Palette({ onAdd }: Props) {
     <nav className="palette" aria-label="Elements">
       <h2 className="pane-title">Parts</h2>
       {PALETTE_KINDS.map((kind) => (
-        <button key={kind} className="palette-item" draggable onDragStart={(e) => onDragStart(e, kind)} onClick={() => onAdd(kind)} data-kind={kind} title={`Add ${kindName(kind).toLowerCase()}`}>
+        <button key={kind} className="palette-item" draggable onDragStart={(e) => onDragStart(e, kind)} onClick={() => onAdd(kind)} data-kind={kind} title={paletteWords(kind).title}>
           <PaletteIcon kind={kind} />
-          <span>{kindName(kind)}</span>
+          <span>{paletteWords(kind).label}</span>
         </button>
       ))}
     </nav>

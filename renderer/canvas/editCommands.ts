@@ -6,6 +6,7 @@ import { removalNotice, removalSummary } from "../store/removalSummary.ts";
 import { useSessionStore } from "../store/sessionStore.ts";
 import type { DocChange, NodePlace } from "../store/changes.ts";
 import { newElement, nextId } from "./newElement.ts";
+import { withRatedDefaults } from "../../src/protection/defaultSettings.ts";
 import { isBranchLike, terminalFields } from "./toFlow.ts";
 
 const PROTECTIVE: ElementKind[] = ["relay", "fuse", "lvbreaker"];
@@ -22,9 +23,11 @@ export function addElement(kind: ElementKind, place: NodePlace, at: DeviceLocati
     session.notify("info", "Place a protective device on a branch end or on a source, motor or load: drop it there, or select that element first.");
     return null;
   }
-  const element = newElement(kind, doc, at);
+  // a protective device starts from the protected element's rating where it has one
+  const { device: element, basis } = withRatedDefaults(newElement(kind, doc, at), doc);
   applyChanges([{ type: "addElement", element, place: at ? undefined : place }], { undoable: true });
   session.set({ selection: [element.id] });
+  if (basis) session.notify("info", `${element.name}: starting settings from the rating: ${basis}. Check them against the study.`, undefined, { topic: "defaults" });
   return element.id;
 }
 

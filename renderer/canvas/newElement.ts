@@ -26,11 +26,21 @@ const KIND_NAME: Record<ElementKind, string> = {
   inverter: "Inverter",
   motor: "Motor",
   load: "Load",
-  switch: "Breaker",
+  switch: "Switching device",
   relay: "Relay",
   fuse: "Fuse",
   lvbreaker: "LV breaker",
 };
+
+/** Palette words where the kind's name alone could mislead: a switching device has no trip unit. */
+const PALETTE_WORDS: Partial<Record<ElementKind, { label: string; title: string }>> = {
+  switch: { label: "Switch (no trip)", title: "Add a breaker, switch or disconnector with no trip function of its own (a coupler or tie); a relay trips it" },
+  lvbreaker: { label: "LV breaker + trip unit", title: "Add an LV circuit breaker with its own trip unit (long-time, short-time, instantaneous) on a branch end or a feeder" },
+};
+
+export function paletteWords(kind: ElementKind): { label: string; title: string } {
+  return PALETTE_WORDS[kind] ?? { label: KIND_NAME[kind], title: `Add ${KIND_NAME[kind].toLowerCase()}` };
+}
 
 /** Smallest unused id of the form PREFIXn. */
 export function nextId(kind: ElementKind, taken: ReadonlySet<string>): string {

@@ -10,6 +10,7 @@ import { useSessionStore } from "../store/sessionStore.ts";
 import type { DocChange } from "../store/changes.ts";
 import { fieldsOfKind, type FieldSpec } from "./fieldModel.ts";
 import { FieldList } from "./FieldList.tsx";
+import { overloadWarnings } from "./overloadNote.ts";
 import { TextInput, type RowContext } from "./FieldRow.tsx";
 import { addElement, deviceLocationOn } from "../canvas/editCommands.ts";
 import { kindName } from "../canvas/newElement.ts";
@@ -92,6 +93,7 @@ export function Inspector() {
   const specs = kinds.length === 1 ? fieldsOfKind(kinds[0]).filter((f) => selected.length === 1 || f.key !== "id") : commonSpecs(kinds);
   const general = messages.filter((m) => m.elementId !== undefined && ids.includes(m.elementId) && (!m.field || !specs.some((s) => m.field === s.key || m.field?.startsWith(s.key + "."))));
   const host = selected.length === 1 ? selected[0] : null;
+  const overload = host ? overloadWarnings(doc, host) : [];
   const isBranch = host && (host.kind === "transformer" || host.kind === "line" || host.kind === "switch");
   return (
     <section className="inspector" aria-label="Properties">
@@ -99,6 +101,15 @@ export function Inspector() {
       <div className="inspector-head" data-testid="inspector-head">
         {selected.length === 1 ? elementLabel(selected[0]) : `${selected.length} elements${kinds.length === 1 ? ` (${kindName(kinds[0]).toLowerCase()})` : ", shared fields"}`}
       </div>
+      {overload.length > 0 && (
+        <ul className="field-messages block" data-testid="overload-warning">
+          {overload.map((text) => (
+            <li key={text} className="msg msg-warning">
+              {text}
+            </li>
+          ))}
+        </ul>
+      )}
       {general.length > 0 && (
         <ul className="field-messages block">
           {general.map((m, i) => (

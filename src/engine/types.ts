@@ -171,7 +171,13 @@ export interface FaultResult {
   earth_kA: number;
   /** Largest faulted-phase current, kA (for LLG the line currents; equal to ikss_kA for 3ph and LL). */
   maxPhase_kA: number;
+  /**
+   * Peak current ip, kA: sqrt(2) (I"k + (kappa - 1) I"k,S). kappa (radial branch sum or method B) belongs to the
+   * voltage sources' share I"k,S; full-size converters add theirs with kappa = 1 (IEC 60909-0:2016, 8.1).
+   */
   ip_kA: number;
+  /** I"k,S, kA: the same fault driven by the voltage sources alone (converters' injections removed). */
+  ikssSources_kA: number;
   kappa: number;
   peakMethod: PeakMethod;
   /** Symmetrical breaking current and the near-to-generator factor used (1 when far from generators). */
@@ -202,7 +208,7 @@ export interface SweepResult {
   ikss_kA: Float64Array;
   /** Largest faulted-phase current kA per [b * T + t]. */
   maxPhase_kA: Float64Array;
-  /** Peak current kA and X/R per bus (3ph basis): ip_kA[b], xr[b]. */
+  /** Peak current kA (as FaultResult.ip_kA) and X/R per bus (3ph basis): ip_kA[b], xr[b]. */
   ip_kA: Float64Array;
   xr: Float64Array;
   /** Device locations kept (protective devices' `at`). */

@@ -1,11 +1,24 @@
 // Peak short-circuit current ip (IEC 60909-0:2016, 8.1): for a radial island the sum of the partial peak currents
 // of every element meeting at the fault (each with its own R/X, found from its partial current: Z_e = c / I_e under a
 // bolted three-phase fault); for a meshed island method B, 1.15 kappa(R/X at the fault), capped at 1.8 (LV) / 2.0.
+// kappa belongs to the voltage sources' share of I"k only; full-size converters add their share with kappa = 1
+// (see peakCurrent_kA).
 import type { Cx, Model } from "../network/model.ts";
 import type { PeakMethod } from "../types.ts";
 import { peakFactor } from "../iec60909/factors.ts";
 import { branchEndCurrents, shuntCurrent } from "./endCurrents.ts";
 import type { ComplexVec } from "./solveLinearFault.ts";
+
+/**
+ * Peak current with full-size converter units (IEC 60909-0:2016, 8.1; from memory: a converter's contribution to
+ * ip is sqrt(2) I"kPF, its current being controlled, with no decaying d.c. component): the a.c. peak of the whole
+ * current plus the d.c. part of the voltage sources' share I"k,S (the same fault with the converters' injections
+ * removed), ip = sqrt(2) (I"k + (kappa - 1) I"k,S). With the IEC converter model the two shares are in phase
+ * (I"k = I"k,S + I"kPF), so this is kappa sqrt(2) I"k,S + sqrt(2) I"kPF; without converters it is kappa sqrt(2) I"k.
+ */
+export function peakCurrent_kA(kappa: number, ikss_kA: number, ikssSources_kA: number): number {
+  return Math.SQRT2 * (ikss_kA + (kappa - 1) * ikssSources_kA);
+}
 
 export function isRadialIsland(model: Model, island: number): boolean {
   let nodes = 0;

@@ -10,11 +10,11 @@ import { solveLinearFault, type ComplexVec, type LinearFault } from "./solveLine
 import { iecInjections } from "../inverter/iecInjections.ts";
 import { refinedIteration, type RefinedOutcome } from "../inverter/refinedIteration.ts";
 import { compactResponse, compactUnits, solveCompactFault, unitColumns, type CompactFaultInput } from "./compactFault.ts";
-import type { SeqView } from "./faultEquations.ts";
 import { allShuntCurrents, branchEndResults, type RawEnd } from "./endCurrents.ts";
 import { faultMagnitudes } from "./faultCurrentMagnitude.ts";
 import { seqAndPhaseParts, seqAndPhasePhasors, seqToPhase, toPhasor } from "./phasors.ts";
-import { peakKappa } from "./peakCurrent.ts";
+import { peakCurrent_kA, peakKappa } from "./peakCurrent.ts";
+import { faultEquations, type SeqView } from "./faultEquations.ts";
 import { voltageFactor, breakingFactorMu, motorFactorQ, thermalFactorM } from "../iec60909/factors.ts";
 
 export interface EngineInternal {
@@ -68,6 +68,7 @@ function emptyResult(network: CompiledNetwork, location: FaultLocation, type: Fa
     earth_kA: 0,
     maxPhase_kA: 0,
     ip_kA: 0,
+    ikssSources_kA: 0,
     kappa: 1,
     peakMethod: "none",
     ib_kA: 0,
@@ -83,6 +84,17 @@ function emptyResult(network: CompiledNetwork, location: FaultLocation, type: Fa
     buses: [],
     messages,
   };
+}
+
+/**
+ * I"k (pu) of the same fault driven by the voltage sources alone (the equivalent source c at the fault in the
+ * network without converters): the share that carries kappa in ip. A floating sequence has no source.
+ */
+function sourcesOnlyIkss(type: FaultType, zkk: LinearFault["zkk"], c: number, zf: Cx): number {
+  const views = zkk.map((z, s): SeqView => (z ? { floating: false, e: { re: s === 1 ? c : 0, im: 0 }, z } : { floating: true, j: { re: 0, im: 0 } })) as [SeqView, SeqView, SeqView];
+  if (!zkk[1]) return 0;
+  const fp = faultEquations(type, views, zf);
+  return fp.consistent ? faultMagnitudes(type, fp.i).ikss : 0;
 }
 
 /** "element|end" and "element" of every protective device location on a branch. */
@@ -250,7 +262,9 @@ export function solveFault(network: CompiledNetwork, location: FaultLocation, ty
 
   // Peak, breaking and thermal currents (IEC 60909-0:2016, clauses 8, 9, 12).
   const pk = variant === "refined" ? peakKappa(model, k, zkR[1], fault.zkk[1], c, un) : peakKappa(model, k, zkI[1], iecFault.zkk[1], c, un);
-  const ip_kA = pk.kappa * Math.SQRT2 * ikss_kA;
+  // The voltage sources' share (every converter removed, grid-forming units too): the IEC variant's network.
+  const ikssSources_kA = hasInv ? sourcesOnlyIkss(type, iecFault.zkk, c, zf) * iBase_kA : ikss_kA;
+  const ip_kA = peakCurrent_kA(pk.kappa, ikss_kA, ikssSources_kA);
   let ib_pu = mags.ikss;
   if (type === "3ph" && mags.ikss > 0) {
     for (const e of raw.shunts) {
@@ -326,6 +340,7 @@ export function solveFault(network: CompiledNetwork, location: FaultLocation, ty
     earth_kA: mags.earth * iBase_kA,
     maxPhase_kA: mags.maxPhase * iBase_kA,
     ip_kA,
+    ikssSources_kA,
     kappa: pk.kappa,
     peakMethod: pk.method,
     ib_kA,

@@ -18,7 +18,8 @@ import { inverseSubset, type InverseSubset } from "../sparse/takahashi.ts";
 import { deviceCombination, type Combination } from "./deviceCombination.ts";
 import { negativeAlpha, negativeCorrection, type NegativeCorrection } from "./negativeFromPositive.ts";
 import { voltageFactor, peakFactor } from "../iec60909/factors.ts";
-import { isRadialIsland } from "./peakCurrent.ts";
+import { isRadialIsland, peakCurrent_kA } from "./peakCurrent.ts";
+import { SourceShare, iecFloatingOf } from "./sourceShare.ts";
 import { solveFault, type EngineInternal } from "./solveFault.ts";
 import type { ComplexVec } from "./solveLinearFault.ts";
 
@@ -295,7 +296,8 @@ function* sweepBusSteps(network: CompiledNetwork, plan: SweepPlan, arrays: Sweep
     atNode = cache.atNode = lists;
   }
   // Per-fault scratch: the fault map, its sequence currents and their magnitudes.
-  const fw = { aff: new FaultAffine(), seq: new Float64Array(6), mags: { ikss: 0, maxPhase: 0 }, zf: { re: 0, im: 0 }, z0: { re: 0, im: 0 }, z1: { re: 0, im: 0 }, z2: { re: 0, im: 0 } };
+  const fw = { aff: new FaultAffine(), seq: new Float64Array(6), mags: { ikss: 0, maxPhase: 0 }, zf: { re: 0, im: 0 }, z0: { re: 0, im: 0 }, z1: { re: 0, im: 0 }, z2: { re: 0, im: 0 }, zS: { re: 0, im: 0 } };
+  let iecFloating: ((node: number) => boolean) | undefined;
   const progressEvery = Math.max(1, Math.floor(B / 50));
   let cancelled = false;
   let done = 0;
@@ -398,12 +400,19 @@ function* sweepBusSteps(network: CompiledNetwork, plan: SweepPlan, arrays: Sweep
         }
       }
       if (ik3 < 0) ik3 = (c / Math.hypot(z1.re, z1.im)) * iBase_kA;
+      // The voltage sources' share of the three-phase I"k (every converter removed), which alone carries kappa.
+      let zS: Cx | null = z1;
+      if (Jl > 0 && sysVariant === "refined") {
+        isl.share ??= new SourceShare(model, node.island, unitIdx, colU, (iecFloating ??= iecFloatingOf(model)));
+        zS = isl.share.drivingPoint(z1, response.z1r, response.z1i, fw.zS);
+      }
+      const ik3S = zS ? (c / Math.hypot(zS.re + zf.re, zS.im + zf.im)) * iBase_kA : 0;
       let isRadial = radial.get(node.island);
       if (isRadial === undefined) {
         isRadial = isRadialIsland(model, node.island);
         radial.set(node.island, isRadial);
       }
-      ip_kA[b] = sweepKappa(model, atNode[k], tk[1], k, z1, c, un, isRadial) * Math.SQRT2 * ik3;
+      ip_kA[b] = peakCurrent_kA(sweepKappa(model, atNode[k], tk[1], k, z1, c, un, isRadial), ik3, ik3S);
       xrOut[b] = z1.re > 0 ? z1.im / z1.re : 1e9;
     }
   return { messages, overrides, cancelled };
@@ -423,6 +432,8 @@ interface IslandUnits {
   x2: ComplexVec;
   iecInj: ComplexVec;
   noInj: ComplexVec;
+  /** The network without converters, for the voltage sources' share of I"k (made when first needed). */
+  share?: SourceShare;
 }
 
 function islandWork(model: EngineInternal["model"], island: number, colU: ComplexVec[][]): IslandUnits {

@@ -91,7 +91,12 @@ export function formatHelp(spec: CommandSpec): string {
     lines.push("", "Examples:");
     for (const e of spec.examples) lines.push(`  ${e.command}`, `      ${e.does}`);
   }
-  if (spec.exits.length) lines.push("", "Exit codes:", ...spec.exits.map((e) => `  ${e}`));
+  if (spec.exits.length) {
+    // "130  stopped by Ctrl+C": the codes in one column
+    const split = spec.exits.map((e) => /^(\S+)\s+(.*)$/.exec(e) ?? [e, e, ""]);
+    const w = Math.max(...split.map((m) => m[1].length)) + 2;
+    lines.push("", "Exit codes:", ...split.map((m) => `  ${m[1].padEnd(w)}${m[2]}`));
+  }
   return lines.join("\n");
 }
 

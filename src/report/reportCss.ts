@@ -4,9 +4,25 @@ import { REPORT_COLORS as C } from "./reportColors.ts";
 import { REPORT_CAUTION } from "./reportCaution.ts";
 import type { PageSize } from "./reportTypes.ts";
 
-/** A CSS string literal that is also safe inside an HTML <style> element. */
+/** Characters written as they are; every other code point becomes a hex escape. */
+const PLAIN = /^[A-Za-z0-9 .,:;!?()'/@#%&+=_-]$/;
+
+/**
+ * A CSS string literal holding `text`, also safe inside an HTML <style> element: every character outside a short
+ * allow-list (quotes, backslash, <, >, every control character, CR and form feed included, and all non-ASCII)
+ * is a hex escape (backslash, hex digits, one space; CSS Syntax Level 3, 4.3.7), so no character of the text can end the string.
+ */
 export function cssString(text: string): string {
-  return `"${text.replace(/\\/g, "\\\\").replace(/"/g, '\\"').replace(/</g, "\\3c ").replace(/\n/g, " ")}"`;
+  let out = "";
+  for (const ch of text) {
+    if (PLAIN.test(ch)) out += ch;
+    else {
+      const cp = ch.codePointAt(0)!;
+      // NUL and lone surrogates are not code points a CSS string can hold: U+FFFD, as a CSS parser would make them
+      out += `\\${(cp === 0 || (cp >= 0xd800 && cp <= 0xdfff) ? 0xfffd : cp).toString(16)} `;
+    }
+  }
+  return `"${out}"`;
 }
 
 export function reportCss(pageSize: PageSize, header: string, date: string): string {

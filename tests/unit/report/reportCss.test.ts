@@ -13,8 +13,8 @@ describe("report style sheet", () => {
   });
 
   it("quotes header text so it cannot end the string or the style element", () => {
-    // CSS Syntax Level 3, 4.3.5: a backslash escapes a quote; "\3c " is the code point of "<"
-    expect(cssString('Yard "A" \\ </style>')).toBe('"Yard \\"A\\" \\\\ \\3c /style>"');
+    // CSS Syntax Level 3, 4.3.7: "\22 " is the code point of '"', "\5c " of "\\", "\3c " of "<", "\3e " of ">"
+    expect(cssString('Yard "A" \\ </style>')).toBe('"Yard \\22 A\\22  \\5c  \\3c /style\\3e "');
   });
 });
 

@@ -284,3 +284,8 @@ export type StudyResponse =
   | { kind: "case"; requestId: string; ok: true; result: CaseResult; verdicts: Verdict[]; timeline: ClearingTimeline | null }
   | { kind: "cancelled"; requestId: string; ok: false }
   | { kind: "error"; requestId: string; ok: false; message: string };
+
+/** An operation record with nothing expected and nothing done (a case the study did not reach). */
+export function emptyCaseOperation(): CaseOperation {
+  return { zoneBuses: [], ideal: [], backups: [], restrained: [], outOfReach: [], selfCeasing: [], operations: [], isolated_s: null, unwanted: [], loadLost_kW: 0, idealLoadLost_kW: 0, withstand: [], failures: [] };
+}

@@ -11,6 +11,20 @@ import { deviceWords, named, type JudgeContext, type JudgedCase } from "./judged
 /** Share of the fault current below which a backup's pickup margin is not judged. // common practice (our choice) */
 export const BACKUP_SHARE = 0.05;
 
+/** Device bus voltage over the fault's, to compare the device's current with the fault current on one base. */
+function voltageRatio(ctx: JudgeContext, device: string, c: JudgedCase): number {
+  const kv = (bus: string | undefined): number | undefined => {
+    const b = bus === undefined ? undefined : ctx.elements.get(bus);
+    return b?.kind === "bus" ? b.un_kV : undefined;
+  };
+  const edge = ctx.net.deviceEdge.get(device);
+  const atDevice = kv(edge === undefined ? undefined : ctx.net.edges[edge].bus);
+  const loc = c.fc.location;
+  const line = loc.kind === "line" ? ctx.elements.get(loc.line) : undefined;
+  const atFault = kv(loc.kind === "bus" ? loc.bus : line?.kind === "line" ? line.fromBus : undefined);
+  return atDevice && atFault ? atDevice / atFault : 1;
+}
+
 export function judgeBackup(ctx: JudgeContext, c: JudgedCase, loadLost_kW: (openEdges: readonly number[]) => number): Verdict[] {
   const out: Verdict[] = [];
   for (const f of c.failures) {
@@ -41,13 +55,18 @@ export function judgeBackup(ctx: JudgeContext, c: JudgedCase, loadLost_kW: (open
       why = `isolated at ${fmtS(iso)} by ${opened.join(", ") || "the sources' disconnection"}; ${lost.toFixed(0)} kW lost`;
     }
     // backup margin at the minimum fault, for backups that carry a real share of it
-    if (c.atSensitivityLimit && status !== "fail")
+    if (c.atSensitivityLimit)
       for (const b of backups) {
         const r = c.responses.get(b);
-        if (!r || !(c.iFault_A > 0) || r.iPhase_A < BACKUP_SHARE * c.iFault_A) continue;
+        if (!r || !(c.iFault_A > 0) || r.iPhase_A * voltageRatio(ctx, b, c) < BACKUP_SHARE * c.iFault_A) continue;
         const pr = pickupRatio(r, ctx.model.pickups(ctx.devices.get(b)!));
-        if (pr.quantity !== null && pr.ratio < ctx.criteria.backupMargin) {
-          status = "warn";
+        if (pr.quantity === null) continue;
+        if (numbers.backupRatio === undefined || pr.ratio < numbers.backupRatio) {
+          numbers.backupRatio = round(pr.ratio, 3);
+          numbers.backupMargin = ctx.criteria.backupMargin;
+        }
+        if (pr.ratio < ctx.criteria.backupMargin) {
+          if (status === "pass") status = "warn";
           why += `; ${named(ctx, b)} sees only ${fmtX(pr.ratio)} its pickup ${fmtA(pr.pickup_A)} (< ${ctx.criteria.backupMargin})`;
         }
       }

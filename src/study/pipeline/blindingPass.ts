@@ -7,7 +7,7 @@ import type { DeviceModel } from "../deviceModel.ts";
 import { deviceResponse } from "../deviceResponse.ts";
 import { backupDevices } from "../operation/expectedIsolation.ts";
 import type { IsolationPlan } from "../operation/expectedIsolation.ts";
-import { busNode, type ScenarioNetwork } from "../scenarioNetwork.ts";
+import { type ScenarioNetwork } from "../scenarioNetwork.ts";
 import type { StudySolver } from "../studySolver.ts";
 import type { DeviceResponse, FaultCase, FaultType, Verdict } from "../types.ts";
 import { blindingVerdict, infeedsByBus, type BlindingPair } from "../verdicts/blinding.ts";

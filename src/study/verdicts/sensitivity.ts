@@ -84,8 +84,8 @@ export function loadVerdicts(
     const status: VerdictStatus = ratio >= criteria.loadMargin ? "pass" : ratio >= 1 ? "warn" : "fail";
     const what = device.kind === "fuse" ? "rated current" : "phase pickup";
     out.push({
-      id: `sensitivity|${id}|load|${scenario.id}`,
-      kind: "sensitivity",
+      id: `load|${id}|${scenario.id}`,
+      kind: "load",
       status,
       scenario: scenario.id,
       caseId: null,

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import type { CaseResult, FaultCase } from "../../../src/study/types.ts";
+import { emptyCaseOperation } from "../../../src/study/types.ts";
 import { faultMarksFromCases } from "../../../renderer/panes/tcc/faultMarksFromCases.ts";
 
 const fc = (scenario: string, bus: string, faultType: FaultCase["faultType"], limit: FaultCase["limit"]): FaultCase => ({
@@ -10,7 +11,7 @@ const fc = (scenario: string, bus: string, faultType: FaultCase["faultType"], li
   limit,
   label: "",
 });
-const result = (f: FaultCase, iFault_A: number): CaseResult => ({ faultCase: f, iFault_A, responses: [], chains: { caseId: f.id, paths: [], idealIsolation: [] }, verdictIds: [] });
+const result = (f: FaultCase, iFault_A: number): CaseResult => ({ faultCase: f, iFault_A, responses: [], chains: { caseId: f.id, paths: [], idealIsolation: [] }, operation: emptyCaseOperation(), verdictIds: [] });
 
 describe("fault-current marks of the selected location", () => {
   const sel = fc("grid", "MV", "3ph", "max");

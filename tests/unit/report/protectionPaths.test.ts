@@ -1,12 +1,13 @@
 import { describe, expect, it } from "vitest";
 import { protectionPaths } from "../../../src/report/protectionPaths.ts";
-import type { CaseResult, FaultLimit } from "../../../src/study/types.ts";
+import { emptyCaseOperation, type CaseResult, type FaultLimit } from "../../../src/study/types.ts";
 
 function fakeCase(id: string, scenario: string, limit: FaultLimit, chains: { devices: string[]; current_A: number }[]): CaseResult {
   return {
     faultCase: { id, scenario, location: { kind: "bus", bus: "B" }, faultType: "3ph", limit, label: id },
     iFault_A: 0,
     responses: [],
+    operation: emptyCaseOperation(),
     chains: {
       caseId: id,
       idealIsolation: [],

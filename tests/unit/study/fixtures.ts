@@ -31,9 +31,14 @@ export type CurrentTable = (scenario: Scenario, loc: FaultLocation) => Partial<R
  * A solver answering from a table. Any opened end kills every current (the tables describe radial
  * networks fed from one side, where the first opening on the path clears the fault).
  */
-export function tableSolver(table: CurrentTable, load: Record<string, number> | null = null): StudySolver & { calls: number } {
+export function tableSolver(
+  table: CurrentTable,
+  load: Record<string, number> | null = null,
+  /** Readings with some ends opened; default: no current at all. */
+  opened: (scenario: Scenario, loc: FaultLocation, open: OpenEnd[]) => Record<string, DeviceReading> = () => ({}),
+): StudySolver & { calls: number } {
   const snap = (scenario: Scenario, loc: FaultLocation, open: OpenEnd[]): FaultSnapshot => {
-    const readings = (open.length ? {} : table(scenario, loc)) as Record<string, DeviceReading>;
+    const readings = (open.length ? opened(scenario, loc, open) : table(scenario, loc)) as Record<string, DeviceReading>;
     const iFault_A = Object.values(readings).reduce((m, r) => Math.max(m, ...r.m.phase_A), 0);
     return { iFault_A, readings, messages: [] };
   };

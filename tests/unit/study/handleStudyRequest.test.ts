@@ -31,9 +31,15 @@ describe("the study worker's request handler", () => {
   it("answers one case with its chains and device responses", async () => {
     const r = await handleStudyRequest({ kind: "case", requestId: "c", project: text, caseId: "grid-no-inverters|bus:LV-CS|3ph|max" });
     if (r.kind !== "case") throw new Error(r.kind);
-    expect(r.result.chains.paths.map((p) => p.source).sort()).toEqual(["GEN1", "GRID"]);
-    // the cold store feeder breaker is the first device on both source paths into its board
-    for (const p of r.result.chains.paths) expect(p.links[0].device).toBe("Q-CS");
+    // the cold store feeder breaker alone isolates its board from the grid and the genset behind it
+    expect(r.result.operation.ideal).toEqual(["Q-CS"]);
+    expect(r.result.chains.paths).toHaveLength(1);
+    expect([...r.result.chains.paths[0].links.map((l) => l.device)].slice(0, 1)).toEqual(["Q-CS"]);
+    expect([...r.result.responses.find((x) => x.device === "Q-CS")!.onPathsOf].sort()).toEqual(["GEN1", "GRID"]);
+    // the case request runs the same verdict kinds as the full study
+    const kinds = new Set(r.verdicts.map((v) => v.kind));
+    for (const k of ["sensitivity", "backup", "speed"] as const) expect(kinds.has(k)).toBe(true);
+    expect(r.verdicts.every((v) => v.caseId === "grid-no-inverters|bus:LV-CS|3ph|max")).toBe(true);
   });
 
   it("names what is wrong with a broken project instead of throwing", async () => {

@@ -1,0 +1,212 @@
+// Opened element ends on small networks whose answer is known beforehand: a Dyn11 transformer opened at each end,
+// a ring opened at one end of a line, and an opening that leaves a section without a source. Each re-solve (low-rank
+// update of the base factorization) is checked against a hand calculation (IEC 60909-0:2016, 6.2 and 6.3, with
+// complex arithmetic from mathjs) and against a fresh compile with the ends open.
+import { describe, expect, it } from "vitest";
+import { complex, abs, add, multiply, type Complex as MComplex } from "mathjs";
+import { compileNetwork, createReopenContext, solveFault, solveReopened, sweepDeviceCurrents, sweepReopened, transformerKT, type FaultResult, type OpenEnd } from "../../../src/engine/index.ts";
+import { buildProject, bus, type RawElement } from "./helpers/projectBuilder.ts";
+
+const mag = (z: MComplex) => abs(z) as unknown as number;
+/** Network feeder impedance in ohm at un_kV: Z = c Un^2 / S"k with the given R/X (IEC 60909-0:2016, 6.2). */
+const feeder = (c: number, un_kV: number, sk_MVA: number, rx: number): MComplex => {
+  const z = (c * un_kV * un_kV) / sk_MVA;
+  const x = z / Math.sqrt(1 + rx * rx);
+  return complex(rx * x, x);
+};
+const end = (r: FaultResult, element: string, e: "from" | "to" | "terminal") => [...r.branchEnds, ...r.shunts].find((x) => x.element === element && x.end === e);
+
+describe("a Dyn11 transformer opened at each end, with a second infeed on its LV side", () => {
+  // Grid 11 kV 250 MVA at HV; an LV infeed of 20 MVA with no zero-sequence path (z0z1 0); transformer 1 MVA
+  // 11/0.4 kV, uk 6 %, ur 1 %, Dyn11, LV star solidly earthed. IEC max: c = 1.10 at LV (+10 % tolerance band).
+  const p = buildProject([
+    bus("HV", 11),
+    bus("LV", 0.4),
+    { kind: "grid", id: "Q", bus: "HV", skMax_MVA: 250, skMin_MVA: 150, rx: 0.1 },
+    { kind: "grid", id: "Q2", bus: "LV", skMax_MVA: 20, skMin_MVA: 10, rx: 0.1, z0z1: 0 },
+    { kind: "transformer", id: "T1", hvBus: "HV", lvBus: "LV", sr_MVA: 1, urHv_kV: 11, urLv_kV: 0.4, uk_pct: 6, ur_pct: 1, vectorGroup: "Dyn11" },
+  ]);
+  const options = { limit: "max" as const };
+  const ctx = createReopenContext(p, options);
+  // Hand calculation referred to 0.4 kV: ZQ2 from S"k; ZT = uk Ur^2 / Sr with RT = ur Ur^2 / Sr, corrected by
+  // KT = 0.95 cmax / (1 + 0.6 xT); Z0 of the transformer seen from LV = KT ZT (z0z1 1, delta on HV, solid earth).
+  const ZQ2 = feeder(1.1, 0.4, 20, 0.1);
+  const zt = (0.06 * 0.16) / 1;
+  const rt = (0.01 * 0.16) / 1;
+  const kt = transformerKT(Math.sqrt(0.06 ** 2 - 0.01 ** 2), 1.1);
+  const ZT = complex(rt * kt, Math.sqrt(zt * zt - rt * rt) * kt);
+  const fresh = (ends: OpenEnd[]) => {
+    const r = compileNetwork(p, { ...options, openEnds: ends });
+    if (!r.ok) throw new Error(r.errors.map((e) => e.text).join("; "));
+    return r.network;
+  };
+
+  it("opened at its HV (delta) end keeps its LV earth: an LV earth fault returns through its star point", () => {
+    const ends: OpenEnd[] = [{ element: "T1", end: "from" }];
+    const r = solveReopened(ctx, ends, { kind: "bus", bus: "LV" }, "LG");
+    // I"k1 = 3 c Un / (sqrt3 |Z1 + Z2 + Z0|) with Z1 = Z2 = ZQ2 (the grid's path is open) and Z0 = KT ZT.
+    const i1 = (3 * 1.1 * 0.4) / (Math.sqrt(3) * mag(add(multiply(2, ZQ2), ZT) as MComplex));
+    expect(r.ikss_kA).toBeCloseTo(i1, 9);
+    // The whole zero-sequence current flows into the transformer at its LV end (the LV infeed has no earth).
+    expect(end(r, "T1", "to")!.seq_A[0].mag).toBeCloseTo((r.ikss_kA * 1000) / 3, 6);
+    // The opened HV end carries nothing, in any sequence.
+    for (const x of end(r, "T1", "from")!.seq_A) expect(x.mag).toBe(0);
+    // Same as a fresh compile with that end open.
+    expect(solveFault(fresh(ends), { kind: "bus", bus: "LV" }, "LG").ikss_kA).toBeCloseTo(r.ikss_kA, 12);
+  });
+
+  it("opened at its LV end takes its earth with it: no earth-fault current at LV", () => {
+    const ends: OpenEnd[] = [{ element: "T1", end: "to" }];
+    const lg = solveReopened(ctx, ends, { kind: "bus", bus: "LV" }, "LG");
+    // No zero-sequence path at LV any more (the delta blocks the grid's, the LV infeed has none).
+    expect(lg.earth_kA).toBe(0);
+    expect(lg.ikss_kA).toBe(0);
+    for (const e of ["from", "to"] as const) for (const x of end(lg, "T1", e)!.seq_A) expect(x.mag).toBeLessThan(1e-9);
+    // The three-phase current comes from the LV infeed alone: c Un / (sqrt3 |ZQ2|).
+    const k3 = solveReopened(ctx, ends, { kind: "bus", bus: "LV" }, "3ph");
+    expect(k3.ikss_kA).toBeCloseTo((1.1 * 0.4) / (Math.sqrt(3) * mag(ZQ2)), 9);
+    expect(solveFault(fresh(ends), { kind: "bus", bus: "LV" }, "3ph").ikss_kA).toBeCloseTo(k3.ikss_kA, 12);
+  });
+
+  it("with both its ends closed, the earth fault at LV sees the same Z0 and the grid in parallel (base network unchanged)", () => {
+    // Z1 = Z2 = ZQ2 || (ZQ + ZT), both referred to 0.4 kV (ZQ from 250 MVA at 11 kV, scaled by (0.4/11)^2).
+    const ZQ = multiply(feeder(1.1, 11, 250, 0.1), (0.4 / 11) ** 2) as MComplex;
+    const zs = add(ZQ, ZT) as MComplex;
+    const z1 = (multiply(ZQ2, zs) as MComplex).div(add(ZQ2, zs) as MComplex);
+    const i1 = (3 * 1.1 * 0.4) / (Math.sqrt(3) * mag(add(multiply(2, z1), ZT) as MComplex));
+    expect(solveReopened(ctx, [], { kind: "bus", bus: "LV" }, "LG").ikss_kA).toBeCloseTo(i1, 9);
+  });
+});
+
+const cable = (id: string, a: string, b: string, km: number): RawElement => ({
+  kind: "line",
+  id,
+  fromBus: a,
+  toBus: b,
+  length_km: km,
+  r1_ohmPerKm: 0.2,
+  x1_ohmPerKm: 0.08,
+  r0_ohmPerKm: 0.8,
+  x0_ohmPerKm: 0.3,
+  csa_mm2: 95,
+  ampacity_A: 250,
+});
+const zLine = (km: number) => complex(0.2 * km, 0.08 * km);
+const z0Line = (km: number) => complex(0.8 * km, 0.3 * km);
+
+describe("a ring opened at one end of a line", () => {
+  // Grid 11 kV, 250 MVA, R/X 0.1, z0z1 1, R0/X0 0.1 at A; cables A-B 2 km, B-C 3 km, C-A 1.5 km (L3 from C to A).
+  const p = buildProject([bus("A", 11), bus("B", 11), bus("C", 11), { kind: "grid", id: "Q", bus: "A", skMax_MVA: 250, skMin_MVA: 150, rx: 0.1 }, cable("L1", "A", "B", 2), cable("L2", "B", "C", 3), cable("L3", "C", "A", 1.5)]);
+  const ctx = createReopenContext(p, { limit: "max" });
+  const ends: OpenEnd[] = [{ element: "L3", end: "to" }];
+  const ZQ = feeder(1.1, 11, 250, 0.1);
+  // Zero sequence of the feeder: |Z0| = z0z1 |Z1| with R0/X0 0.1.
+  const Z0Q = feeder(1.1, 11, 250, 0.1);
+  const zPath = add(ZQ, add(zLine(2), zLine(3))) as MComplex;
+
+  it("feeds a fault at C along the remaining path only (hand calculation)", () => {
+    const r = solveReopened(ctx, ends, { kind: "bus", bus: "C" }, "3ph");
+    // I"k3 = c Un / (sqrt3 |ZQ + ZL1 + ZL2|), c = 1.10 (MV, max).
+    const i3 = (1.1 * 11) / (Math.sqrt(3) * mag(zPath));
+    expect(r.ikss_kA).toBeCloseTo(i3, 9);
+    // The opened cable carries nothing at either end (a series impedance keeps nothing once one end opens).
+    for (const e of ["from", "to"] as const) for (const x of end(r, "L3", e)!.seq_A) expect(x.mag).toBe(0);
+    expect(end(r, "L2", "to")!.phase_A[0].mag).toBeCloseTo(i3 * 1000, 6);
+    // LG: I"k1 = 3 c Un / (sqrt3 |2 (ZQ + ZL1 + ZL2) + Z0Q + Z0L1 + Z0L2|).
+    const lg = solveReopened(ctx, ends, { kind: "bus", bus: "C" }, "LG");
+    const z0 = add(Z0Q, add(z0Line(2), z0Line(3))) as MComplex;
+    expect(lg.ikss_kA).toBeCloseTo((3 * 1.1 * 11) / (Math.sqrt(3) * mag(add(multiply(2, zPath), z0) as MComplex)), 9);
+  });
+
+  it("feeds a point along the opened cable from its closed end only", () => {
+    // 40 % of L3 from C: I"k3 = c Un / (sqrt3 |ZQ + ZL1 + ZL2 + 0.4 ZL3|); the half towards A is open at A.
+    const r = solveReopened(ctx, ends, { kind: "line", line: "L3", pct: 40 }, "3ph");
+    const z = add(zPath, zLine(0.4 * 1.5)) as MComplex;
+    expect(r.ikss_kA).toBeCloseTo((1.1 * 11) / (Math.sqrt(3) * mag(z)), 9);
+    for (const x of end(r, "L3", "to")!.seq_A) expect(x.mag).toBe(0);
+    expect(end(r, "L3", "from")!.phase_A[0].mag).toBeCloseTo(r.ikss_kA * 1000, 6);
+  });
+
+  it("opens a switch by a fresh compile and says so", () => {
+    // A coupler S between A and A2, the ring's L1 moved to A2: opening S is a fresh compile (a closed switch is one node).
+    const q = buildProject([bus("A", 11), bus("A2", 11), bus("B", 11), bus("C", 11), { kind: "grid", id: "Q", bus: "A", skMax_MVA: 250, skMin_MVA: 150, rx: 0.1 }, { kind: "switch", id: "S", busA: "A", busB: "A2" }, cable("L1", "A2", "B", 2), cable("L2", "B", "C", 3), cable("L3", "C", "A", 1.5)]);
+    const qctx = createReopenContext(q, { limit: "max" });
+    const r = solveReopened(qctx, [{ element: "S", end: "from" }], { kind: "bus", bus: "B" }, "3ph");
+    // With S open, B is fed through L3 and L2: c Un / (sqrt3 |ZQ + ZL3 + ZL2|).
+    expect(r.ikss_kA).toBeCloseTo((1.1 * 11) / (Math.sqrt(3) * mag(add(ZQ, add(zLine(1.5), zLine(3))) as MComplex)), 9);
+    expect(r.messages.some((m) => m.code === "reopen-fresh-compile" && m.text.includes("switch S"))).toBe(true);
+    expect(qctx.stats.reference).toBe(1);
+  });
+
+  it("gives the same currents in the opened-set sweep", () => {
+    const sweep = sweepReopened(ctx, ends, { types: ["3ph", "LG"] });
+    const c = sweep.busIds.indexOf("C");
+    expect(sweep.ikss_kA[c * 2]).toBeCloseTo((1.1 * 11) / (Math.sqrt(3) * mag(zPath)), 9);
+    const d = sweep.devices.findIndex((x) => x.element === "L3");
+    expect(d).toBe(-1); // no protective device in this project: the sweep lists none
+    const withDevices = sweepReopened(ctx, ends, { types: ["3ph"], devices: [{ element: "L3", end: "from" }, { element: "L2", end: "to" }] });
+    expect(sweepDeviceCurrents(withDevices, 0, c, 0).phase_A[0].mag).toBe(0);
+    expect(sweepDeviceCurrents(withDevices, 1, c, 0).phase_A[0].mag).toBeCloseTo(withDevices.ikss_kA[c] * 1000, 6);
+  });
+});
+
+describe("an opened set that leaves a section without a source", () => {
+  // Grid at A; cables A-B and B-C. Opening L1 at A leaves B and C without any source.
+  const elements: RawElement[] = [bus("A", 11), bus("B", 11), bus("C", 11), { kind: "grid", id: "Q", bus: "A", skMax_MVA: 250, skMin_MVA: 150, rx: 0.1 }, cable("L1", "A", "B", 2), cable("L2", "B", "C", 3)];
+  const p = buildProject(elements);
+  const ctx = createReopenContext(p, { limit: "max" });
+  const ends: OpenEnd[] = [{ element: "L1", end: "from" }];
+
+  it("carries no fault current in the dead section, and the live part sees the grid alone", () => {
+    for (const b of ["B", "C"])
+      for (const type of ["3ph", "LL", "LG", "LLG"] as const) {
+        const r = solveReopened(ctx, ends, { kind: "bus", bus: b }, type);
+        expect(r.ikss_kA).toBe(0);
+        expect(r.messages.some((m) => m.code === "dead-island")).toBe(true);
+      }
+    const a = solveReopened(ctx, ends, { kind: "bus", bus: "A" }, "3ph");
+    expect(a.ikss_kA).toBeCloseTo((1.1 * 11) / (Math.sqrt(3) * mag(feeder(1.1, 11, 250, 0.1))), 9); // c Un / (sqrt3 |ZQ|)
+    for (const e of ["from", "to"] as const) for (const x of end(a, "L2", e)!.seq_A) expect(x.mag).toBe(0);
+    const sweep = sweepReopened(ctx, ends, { devices: [{ element: "L2", end: "from" }, { element: "L1", end: "to" }] });
+    for (let b = 0; b < 3; b++) for (let t = 0; t < 4; t++) for (let d = 0; d < 2; d++) expect(sweepDeviceCurrents(sweep, d, b, t).phase_A[0].mag).toBeLessThan(1e-9);
+    expect(sweep.ikss_kA[sweep.busIds.indexOf("C") * 4]).toBe(0);
+  });
+
+  it("solves an island left with a converter only as a fresh factorization does", () => {
+    // The same feeder with a grid-following converter at C: opening L1 leaves B-C fed by current sources only.
+    const q = buildProject([...elements, { kind: "inverter", id: "PV", bus: "C", sr_MVA: 0.5, ur_kV: 11, iMax_pu: 1.1, control: "grid-following" }]);
+    const qctx = createReopenContext(q, { limit: "max" });
+    const fresh = compileNetwork(q, { limit: "max", openEnds: ends });
+    if (!fresh.ok) throw new Error("compile");
+    for (const b of ["B", "C"])
+      for (const type of ["3ph", "LL", "LG", "LLG"] as const)
+        for (const inverterModel of ["iec", "refined"] as const) {
+          const want = solveFault(fresh.network, { kind: "bus", bus: b }, type, { inverterModel });
+          const got = solveReopened(qctx, ends, { kind: "bus", bus: b }, type, { inverterModel });
+          expect(got.ikss_kA).toBeCloseTo(want.ikss_kA, 12);
+          for (const e of want.branchEnds) expect(end(got, e.element, e.end)!.phase_A[0].mag).toBeCloseTo(e.phase_A[0].mag, 6);
+        }
+    // A three-phase fault at C: the converter alone feeds it, IEC 60909 full-size converter current iMax Ir.
+    const r = solveReopened(qctx, ends, { kind: "bus", bus: "C" }, "3ph", { inverterModel: "iec" });
+    expect(r.ikss_kA).toBeCloseTo((1.1 * 0.5) / (Math.sqrt(3) * 11), 9); // I = iMax Sr / (sqrt3 Ur)
+  });
+
+  it("opening the only source's terminal leaves every bus dead", () => {
+    const opened: OpenEnd[] = [{ element: "Q", end: "terminal" }];
+    const r = solveReopened(ctx, opened, { kind: "bus", bus: "A" }, "3ph");
+    expect(r.ikss_kA).toBe(0);
+    expect(r.messages.some((m) => m.code === "dead-island")).toBe(true);
+    const sweep = sweepReopened(ctx, opened, { types: ["3ph"], devices: [{ element: "Q", end: "terminal" }] });
+    for (let b = 0; b < 3; b++) {
+      expect(sweep.ikss_kA[b]).toBe(0);
+      expect(sweepDeviceCurrents(sweep, 0, b, 0).phase_A[0].mag).toBe(0);
+    }
+  });
+
+  it("refuses an end that does not fit its element, naming it", () => {
+    expect(() => solveReopened(ctx, [{ element: "L1", end: "terminal" }], { kind: "bus", bus: "A" }, "3ph")).toThrow(/L1/);
+    expect(() => solveReopened(ctx, [{ element: "nope", end: "from" }], { kind: "bus", bus: "A" }, "3ph")).toThrow(/nope/);
+    const bad = compileNetwork(p, { limit: "max", openEnds: [{ element: "Q", end: "from" }] });
+    expect(bad.ok).toBe(false);
+  });
+});

@@ -13,6 +13,7 @@ import { reportCommand } from "./commands/report.ts";
 import { formatHelp, type CommandSpec } from "./args.ts";
 import type { CliCommand } from "./command.ts";
 import { terminalField } from "./terminalText.ts";
+import { guardConsole } from "./safeConsole.ts";
 
 const commands: CliCommand[] = [validateCommand, summaryCommand, studyCommand, checkCommand, reportCommand];
 
@@ -77,10 +78,13 @@ export async function main(argv: string[]): Promise<number> {
     console.log(formatHelp(spec));
     return 0;
   }
+  const restoreConsole = guardConsole();
   try {
     return await command.run(rest);
   } catch (err) {
-    console.error(`islet ${name}: internal error: ${terminalField(err instanceof Error ? (err.stack ?? err.message) : String(err)).replaceAll("\\x0A", "\n")}`);
+    console.error(`islet ${name}: internal error: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}`);
     return 2;
+  } finally {
+    restoreConsole();
   }
 }

@@ -1,7 +1,9 @@
 // Text the CLI prints, made safe for a terminal. A project file's names and ids reach stdout and stderr; a name
 // holding ESC sequences, CR, BEL or bidi controls could move the cursor, erase or recolour lines, or reorder what
-// the reader sees (hiding a failing verdict). Every control character is shown escaped instead, as \xHH (C0, DEL,
-// C1) or \uHHHH (bidi and line-separator controls), so that it is visible and does nothing.
+// the reader sees (hiding a failing verdict). Every control character is shown escaped instead, as \xHH (C0) or
+// \uHHHH (DEL, C1, bidi and line-separator controls), so that it is visible and does nothing. The \u form is also a
+// JSON escape, and raw C0 never occurs in JSON text outside its layout's line feeds (JSON.stringify escapes it), so
+// escaping JSON text leaves it valid and the same value when parsed.
 //
 // Three levels:
 // - terminalField: one piece of user text inside a line (a name, an id, a message); a line feed is escaped too,
@@ -25,10 +27,10 @@ function hex(code: number, width: number): string {
   return code.toString(16).toUpperCase().padStart(width, "0");
 }
 
-/** The visible form of one control character: \x1B for ESC, \u202E for RIGHT-TO-LEFT OVERRIDE. */
+/** The visible form of one control character: \x1B for ESC, \u009B for the one-byte CSI, \u202E for RLO. */
 export function escapeControl(ch: string): string {
   const code = ch.codePointAt(0) ?? 0;
-  return code < 0x100 ? `\\x${hex(code, 2)}` : `\\u${hex(code, 4)}`;
+  return code < 0x20 ? `\\x${hex(code, 2)}` : `\\u${hex(code, 4)}`;
 }
 
 /** One piece of user text (name, id, message) for a terminal: every control escaped, line feeds included. */
@@ -43,7 +45,7 @@ export function terminalLines(text: string): string {
 
 /** JSON text for a terminal or a pipe: the same value when parsed, with no raw control that a terminal obeys. */
 export function jsonForTerminal(json: string): string {
-  return json.replace(JSON_UNSAFE, (ch) => `\\u${hex(ch.charCodeAt(0), 4).toLowerCase()}`);
+  return json.replace(JSON_UNSAFE, escapeControl);
 }
 
 /** True when the text holds a character that terminalField would escape. */

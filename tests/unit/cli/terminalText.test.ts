@@ -4,6 +4,7 @@
 // bidi formatting characters, and Unicode's line and paragraph separators (U+2028, U+2029).
 import { describe, expect, it } from "vitest";
 import { escapeControl, hasControls, jsonForTerminal, terminalField, terminalLines } from "../../../src/cli/terminalText.ts";
+import { guardConsole } from "../../../src/cli/safeConsole.ts";
 
 // ECMA-48 8.3.41 EL (erase in line) and 8.3.22 CUU (cursor up): the sequences that hide a line of output
 const ERASE_LINE = "\x1b[2K";
@@ -36,7 +37,7 @@ describe("terminal-safe text", () => {
   });
 
   it("escapes C1 controls (ECMA-48 5.3: 0x80-0x9F, e.g. 0x9B is a one-byte CSI) and DEL", () => {
-    expect(terminalField("a\u009b2Kb\u007f")).toBe("a\\x9B2Kb\\x7F");
+    expect(terminalField("a\u009b2Kb\u007f")).toBe("a\\u009B2Kb\\u007F");
     for (let c = 0x80; c <= 0x9f; c++) expect(isInert(terminalField(String.fromCharCode(c)), false)).toBe(true);
   });
 
@@ -76,5 +77,19 @@ describe("terminal-safe text", () => {
     // ordinary JSON is unchanged, byte for byte
     const plain = JSON.stringify({ a: "Käserei", b: [1, 2.5], c: null }, null, 2);
     expect(jsonForTerminal(plain)).toBe(plain);
+  });
+
+  it("escapes everything printed through the console while a command runs, and restores the console after", () => {
+    const printed: string[] = [];
+    const target = { log: (t: string) => void printed.push(t), info: (t: string) => void printed.push(t), warn: (t: string) => void printed.push(t), error: (t: string) => void printed.push(t) };
+    const original = target.log;
+    const restore = guardConsole(target as unknown as Console);
+    target.log("FAIL", `Q1${ERASE_LINE}\rPASS`);
+    target.error(JSON.stringify({ name: "x\u202ey" }, null, 2));
+    restore();
+    expect(printed[0]).toBe("FAIL Q1\\x1B[2K\\x0DPASS");
+    expect(JSON.parse(printed[1])).toEqual({ name: "x\u202ey" });
+    expect(isInert(printed[1], true)).toBe(true);
+    expect(target.log).toBe(original);
   });
 });

@@ -5,7 +5,7 @@
 import * as fsp from "node:fs/promises";
 import { existsSync } from "node:fs";
 import { join } from "node:path";
-import { atomicWriteFile, describeFsError, type AtomicWriteFs, type WriteOutcome } from "./atomicWrite.ts";
+import { atomicWriteFile, describeFsError, removeLeftOverTemps, type AtomicWriteFs, type WriteOutcome } from "./atomicWrite.ts";
 import { addRecent, dropMissing, parseRecent, serializeRecent } from "./recentList.ts";
 import { LIMITS } from "./limits.ts";
 
@@ -76,7 +76,10 @@ export function createFileStore(options: FileStoreOptions): FileStore {
         throw new Error(`Could not open "${path}": the file is ${size_bytes} bytes, more than the ${LIMITS.projectFile_bytes}-byte limit for a project`);
       }
       try {
-        return await fsp.readFile(path, "utf8");
+        const text = await fsp.readFile(path, "utf8");
+        // temp files an interrupted save of this project left beside it (the next save also removes them)
+        void removeLeftOverTemps(path).catch(() => undefined);
+        return text;
       } catch (err) {
         throw new Error(`Could not open "${path}": ${describeFsError(err)}`, { cause: err });
       }

@@ -7,6 +7,7 @@ export { sweepDeviceCurrents, sweepDeviceCurrentsInto } from "./fault/sweepDevic
 export { runLoadFlow } from "./loadflow/runLoadFlow.ts";
 export { loadCurrents } from "./loadflow/loadCurrents.ts";
 export { voltageFactor, transformerKT, generatorKG, peakFactor, breakingFactorMu, thermalFactorM } from "./iec60909/factors.ts";
+export { engineConventions, type EngineConvention } from "./conventions.ts";
 export { handleRequest, createHandlerState, type HandlerState } from "./rpc/handleRequest.ts";
 export { transferables } from "./rpc/protocol.ts";
 export type { EngineRequest, EngineResponse, EngineEvent } from "./rpc/protocol.ts";

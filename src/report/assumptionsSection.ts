@@ -1,7 +1,8 @@
-// Assumptions: the calculation method and edition, the voltage factors used, the inverter models, the study
-// settings and the coordination criteria, all read from the project.
+// Assumptions: the calculation method and edition, the voltage factors used, the inverter models, the engine's
+// conventions where the standard leaves a choice, the study settings and the coordination criteria, all read from
+// the project.
 import type { Project } from "../model/schema.ts";
-import { voltageFactor } from "../engine/index.ts";
+import { engineConventions, voltageFactor } from "../engine/index.ts";
 import { escapeHtml } from "./escapeHtml.ts";
 import { formatNumber } from "./formatNumber.ts";
 import { htmlTable } from "./htmlTable.ts";
@@ -47,6 +48,8 @@ export function assumptionsSection(project: Project): string {
 ${htmlTable(["Nominal voltage", classic ? "Prefault voltage, max (pu)" : "cmax", classic ? "Prefault voltage, min (pu)" : "cmin"], cRows, { className: "narrow", columnClasses: ["", "num", "num"] })}
 <h3>Inverter-based sources</h3>
 <p>Two models are computed for every fault. The IEC 60909 full-size converter superposition treats each converter as a positive-sequence current source at its fault-current limit. Islet's refined voltage-dependent model iterates each converter's reactive current on its terminal voltage (k-factor, current limit, and a voltage-source model for grid-forming units). The protection checks use the <strong>${escapeHtml(used)}</strong>.</p>
+<h3>Conventions where the standard leaves a choice</h3>
+${engineConventions(s.method).map((x) => `<p class="convention"><strong>${escapeHtml(x.topic)}.</strong> ${escapeHtml(x.text)}</p>`).join("\n")}
 <h3>Study settings</h3>
 ${kv(settings)}
 <h3>Coordination criteria</h3>

@@ -50,8 +50,9 @@ export function formatProgress(f: ProgressFigures): string {
 }
 
 /**
- * Time left from the rate so far: the counts are cumulative over the run (the study's phases share one count of
- * fault cases), so elapsed x (total - done) / done. Nothing before a second has passed or a case is done.
+ * Time left from the rate so far: `done` cases in `elapsed_ms` since the count started (the study's phases share
+ * one cumulative count of fault cases), so elapsed x (total - done) / done. Nothing before a second has passed or
+ * a case is done.
  */
 export function estimateLeft_ms(done: number, total: number, elapsed_ms: number): number | null {
   if (total <= 0 || done <= 0 || elapsed_ms < 1000) return null;
@@ -66,6 +67,8 @@ export class ProgressLine {
   private lastDrawn_ms: number;
   private shown = false;
   private drawn = 0;
+  /** Where the current count started (its first update): the rate leaves out the loading before it. */
+  private countStart: { t_ms: number; done: number; total: number } | null = null;
 
   constructor(options: ProgressLineOptions) {
     this.options = options;
@@ -83,10 +86,14 @@ export class ProgressLine {
   /** Notes progress; draws only when the last drawing is at least minInterval_ms old. */
   update(phase: string, done: number, total: number): void {
     const t = this.options.now();
+    // a new total is a new count (a report's timelines after its study)
+    if (this.countStart === null || this.countStart.total !== total) this.countStart = { t_ms: t, done, total };
     if (t - this.lastDrawn_ms < this.minInterval_ms) return;
     this.lastDrawn_ms = t;
     const elapsed_ms = t - this.start_ms;
-    let text = formatProgress({ label: this.options.label, phase, done, total, elapsed_ms, left_ms: estimateLeft_ms(done, total, elapsed_ms) });
+    const c = this.countStart;
+    const left_ms = estimateLeft_ms(done - c.done, total - c.done, t - c.t_ms);
+    let text = formatProgress({ label: this.options.label, phase, done, total, elapsed_ms, left_ms });
     const width = this.options.columns?.();
     // one column short of the width: a terminal that wraps at the last column would push the cursor to a new line
     if (width && width > 1 && text.length > width - 1) text = text.slice(0, width - 1);

@@ -57,12 +57,19 @@ describe("progress line", () => {
     expect(screenLine(term.writes)).toBe("");
   });
 
-  it("shows the phase, the cases done of total, elapsed time and the time left from the rate so far", () => {
+  it("shows the phase, the cases done of total, elapsed time and the time left from the rate since the count began", () => {
     const term = terminal();
+    // 4 s of loading before the first case: not part of the rate
+    term.advance(4_000);
+    term.line.update("fault cases", 0, 5_000);
     term.advance(10_000);
     term.line.update("fault cases", 1_250, 5_000);
     // 1,250 cases in 10 s: 3,750 left at the same rate take 30 s
-    expect(screenLine(term.writes)).toBe("islet check: fault cases 1,250 of 5,000 (25%), 0:10 elapsed, about 0:30 left");
+    expect(screenLine(term.writes)).toBe("islet check: fault cases 1,250 of 5,000 (25%), 0:14 elapsed, about 0:30 left");
+    // a new count (another total) starts a new rate: no estimate until a second of it has passed
+    term.advance(300);
+    term.line.update("timelines", 1, 4);
+    expect(screenLine(term.writes)).toBe("islet check: timelines 1 of 4 (25%), 0:14 elapsed");
     expect(estimateLeft_ms(1_250, 5_000, 10_000)).toBe(30_000);
     expect(estimateLeft_ms(0, 5_000, 10_000)).toBeNull();
     expect(estimateLeft_ms(10, 5_000, 500)).toBeNull();
@@ -84,6 +91,7 @@ describe("progress line", () => {
     expect(progressFor("islet study", { ...pipe, isTTY: true }, true)).toBe(silentProgress);
     let t = 0;
     const tty = progressFor("islet study", { isTTY: true, columns: 100, write: (s: string) => void writes.push(s) }, false, () => t);
+    tty.update("bus faults", 0, 10);
     t = 1000;
     tty.update("bus faults", 5, 10);
     tty.clear();

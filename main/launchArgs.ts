@@ -30,6 +30,14 @@ export function parseLaunchArgs(argv: readonly string[], defaultApp: boolean, cw
   return { file, demo, dev };
 }
 
+/**
+ * Whether DevTools and the reload items are on: in an unpackaged build (a developer's checkout) always, in a
+ * packaged app never; it ignores --dev, so a user cannot be talked into opening a console on the studio.
+ */
+export function developerToolsAllowed(isPackaged: boolean, _request: LaunchRequest): boolean {
+  return !isPackaged;
+}
+
 /** The first thing the studio is told to do: open the given file, else the demo on request or on first start. */
 export function startupCommand(request: LaunchRequest, firstStart: boolean, refFor: (path: string) => FileRef): MenuCommand | null {
   if (request.file) return { openRecent: refFor(request.file) };

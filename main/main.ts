@@ -12,14 +12,14 @@ import { electronFileDialogs } from "./dialogs.ts";
 import { createFileStore } from "./fileStore.ts";
 import { fileRefFor, registerIpcHandlers } from "./ipc.ts";
 import { createPdfPrinter } from "./pdfPrinter.ts";
-import { parseLaunchArgs, startupCommand } from "./launchArgs.ts";
+import { developerToolsAllowed, parseLaunchArgs, startupCommand } from "./launchArgs.ts";
 import { installMenu } from "./menu.ts";
 import { registerAppScheme, serveAppProtocol } from "./protocol.ts";
 import { createStudioWindow, lockDownContents } from "./window.ts";
 
 const defaultApp = Boolean(process.defaultApp);
 const launch = parseLaunchArgs(process.argv, defaultApp, process.cwd());
-const dev = !app.isPackaged || launch.dev;
+const dev = developerToolsAllowed(app.isPackaged, launch);
 const isMac = process.platform === "darwin";
 
 app.setName(APP_NAME);

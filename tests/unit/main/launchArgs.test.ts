@@ -2,7 +2,7 @@
 // command line). argv layout: Electron docs, process.defaultApp (argv[1] is the app path then).
 import { describe, expect, it } from "vitest";
 import { resolve } from "node:path";
-import { parseLaunchArgs, startupCommand } from "../../../main/launchArgs.ts";
+import { developerToolsAllowed, parseLaunchArgs, startupCommand } from "../../../main/launchArgs.ts";
 
 const ref = (p: string) => ({ name: p.split("/").pop()!, key: p });
 
@@ -36,5 +36,17 @@ describe("startup command", () => {
   });
   it("leaves a later start to the studio (recovery offer or empty project)", () => {
     expect(startupCommand({ file: null, demo: false, dev: false }, false, ref)).toBeNull();
+  });
+});
+
+describe("developer tools", () => {
+  // hardening report, item 14: a packaged app still honoured --dev (DevTools and the reload menu)
+  it("are never on in a packaged app, --dev or not", () => {
+    expect(developerToolsAllowed(true, parseLaunchArgs(["/opt/Islet/islet", "--dev"], false, "/"))).toBe(false);
+    expect(developerToolsAllowed(true, parseLaunchArgs(["/opt/Islet/islet"], false, "/"))).toBe(false);
+  });
+  it("are on in an unpackaged build", () => {
+    expect(developerToolsAllowed(false, parseLaunchArgs(["/usr/bin/electron", ".", "--dev"], true, "/w"))).toBe(true);
+    expect(developerToolsAllowed(false, parseLaunchArgs(["/usr/bin/electron", "."], true, "/w"))).toBe(true);
   });
 });

@@ -7,6 +7,8 @@ import type { Project } from "../../src/model/schema.ts";
 import type { ClearingTimeline, StudyResult } from "../../src/study/types.ts";
 import { failureTimelineCases } from "../../src/report/failureTimelineCases.ts";
 import { commitPendingEdits } from "../app/pendingEdits.ts";
+import { validationOf } from "../store/validation.ts";
+import { messageText } from "../inspector/messageText.ts";
 
 let client: StudyClient | null = null;
 
@@ -20,6 +22,12 @@ export async function runFullStudy(): Promise<void> {
   const { doc, revision } = useDocumentStore.getState();
   const store = useStudyStore.getState();
   if (store.running) return;
+  // the study needs a valid project: say which element and field stop it, in the studio's words
+  const errors = validationOf(doc).filter((m) => m.severity === "error");
+  if (errors.length > 0) {
+    useSessionStore.getState().notify("error", `The study cannot run: the project has ${errors.length} error${errors.length === 1 ? "" : "s"}. Select the element to fix it in Properties.`, errors.map((m) => messageText(m, doc)), { topic: "study" });
+    return;
+  }
   const { requestId, result } = client.call({ kind: "full", project: doc }, (progress) => useStudyStore.getState().set({ running: { requestId, progress } }));
   store.set({ running: { requestId, progress: null } });
   const response = await result;

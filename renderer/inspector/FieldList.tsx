@@ -1,8 +1,9 @@
 // Renders a list of field specs against a value (or several values: "mixed" where they differ),
 // recursing into groups, lists (relay functions), variants (fuse curves) and device locations.
-import type { FieldSpec } from "./fieldModel.ts";
+import { fieldApplies, type FieldSpec } from "./fieldModel.ts";
 import { Row, MIXED, type FieldValue, type RowContext } from "./FieldRow.tsx";
 import { relayFunctionSchema } from "../../src/model/schema.ts";
+import { optionLabel } from "../../src/model/fieldLabels.ts";
 
 /** Starting values when the user adds an optional group; all generic round figures. */
 const GROUP_STARTS: Record<string, Record<string, unknown>> = {
@@ -31,6 +32,7 @@ export function FieldList({ specs, values, path, ctx }: Props) {
   return (
     <>
       {specs.map((spec) => {
+        if (!fieldApplies(spec.key, values)) return null;
         const p = [...path, spec.key];
         const value = pick(values, spec.key);
         if (spec.type === "group") {
@@ -67,7 +69,7 @@ export function FieldList({ specs, values, path, ctx }: Props) {
               {value.map((item, i) => (
                 <fieldset key={i} className="field-group nested" data-field={`${p.join(".")}.${i}`}>
                   <legend>
-                    {String((item as Record<string, unknown>).ansi ?? i + 1)} · {String((item as Record<string, unknown>).id ?? "")}
+                    {optionLabel("ansi", String((item as Record<string, unknown>).ansi ?? i + 1))} · {String((item as Record<string, unknown>).id ?? "")}
                     <button className="link-button" onClick={() => ctx.commit(p, value.filter((_, j) => j !== i))}>
                       remove
                     </button>
@@ -97,7 +99,7 @@ export function FieldList({ specs, values, path, ctx }: Props) {
           return (
             <fieldset key={spec.key} className="field-group" data-field={p.join(".")}>
               <legend>{spec.label}</legend>
-              <Row spec={{ type: "choice", key: spec.discriminator, label: "Form", help: spec.help, options: Object.keys(spec.variants), optional: false }} path={[...p, spec.discriminator]} value={tag || MIXED} ctx={{ ...ctx, commit: (_path, v) => ctx.commit(p, v === "parametric" ? { kind: "parametric", family: "general-purpose" } : { kind: v, melt: [[200, 10], [2000, 0.01]], clear: [[220, 10], [2200, 0.01]] }) }} />
+              <Row spec={{ type: "choice", key: spec.discriminator, label: "Curve form", help: spec.help, options: Object.keys(spec.variants), optional: false }} path={[...p, spec.discriminator]} value={tag || MIXED} ctx={{ ...ctx, commit: (_path, v) => ctx.commit(p, v === "parametric" ? { kind: "parametric", family: "general-purpose" } : { kind: v, melt: [[200, 10], [2000, 0.01]], clear: [[220, 10], [2200, 0.01]] }) }} />
               {tag === "parametric" && <FieldList specs={spec.variants[tag]} values={[value]} path={p} ctx={ctx} />}
               {tag === "points" && <p className="field-note">{((value as { melt?: unknown[] }).melt ?? []).length} melting points; edit the points in the project file.</p>}
             </fieldset>
@@ -124,8 +126,8 @@ export function FieldList({ specs, values, path, ctx }: Props) {
               </select>
               {branch && (
                 <select className="field-input" aria-label="End" value={at?.end ?? "from"} onChange={(e) => ctx.commit([...p, "end"], e.target.value)}>
-                  <option value="from">from end</option>
-                  <option value="to">to end</option>
+                  <option value="from">{host?.kind === "transformer" ? "from end (HV)" : "from end"}</option>
+                  <option value="to">{host?.kind === "transformer" ? "to end (LV)" : "to end"}</option>
                 </select>
               )}
             </Row>

@@ -3,6 +3,7 @@ import { useEffect, useState, type ReactNode } from "react";
 import type { Element } from "../../src/model/schema.ts";
 import type { Message } from "../../src/model/messages.ts";
 import type { FieldSpec } from "./fieldModel.ts";
+import { optionLabel } from "../../src/model/fieldLabels.ts";
 
 export const MIXED = Symbol("mixed");
 export type FieldValue = unknown | typeof MIXED;
@@ -13,17 +14,19 @@ export interface RowContext {
   elements: Element[];
   hosts: Element[];
   messagesAt(path: string): Message[];
+  /** A message as shown: field labels in place of keys. */
+  messageText(m: Message): string;
   commit(path: (string | number)[], value: unknown): void;
   readOnlyId: boolean;
 }
 
-function Messages({ list }: { list: Message[] }) {
+function Messages({ list, text }: { list: Message[]; text(m: Message): string }) {
   if (list.length === 0) return null;
   return (
     <ul className="field-messages">
       {list.map((m, i) => (
         <li key={i} className={`msg msg-${m.severity}`} data-testid="field-message">
-          {m.text}
+          {text(m)}
         </li>
       ))}
     </ul>
@@ -148,7 +151,7 @@ export function Row({ spec, path, value, ctx, children }: { spec: FieldSpec; pat
           {(value === MIXED || value === undefined) && <option value="">{value === MIXED ? "mixed" : "not set"}</option>}
           {spec.options.map((o) => (
             <option key={String(o)} value={String(o)}>
-              {String(o)}
+              {optionLabel(spec.key, o)}
             </option>
           ))}
         </select>
@@ -171,7 +174,7 @@ export function Row({ spec, path, value, ctx, children }: { spec: FieldSpec; pat
         {control}
         {spec.type === "number" && spec.unit && <span className="field-unit">{spec.unit}</span>}
       </div>
-      <Messages list={msgs} />
+      <Messages list={msgs} text={ctx.messageText} />
     </div>
   );
 }

@@ -11,6 +11,7 @@ import type { DocChange } from "../store/changes.ts";
 import { fieldsOfKind, type FieldSpec } from "./fieldModel.ts";
 import { FieldList } from "./FieldList.tsx";
 import { overloadWarnings } from "./overloadNote.ts";
+import { messageText } from "./messageText.ts";
 import { TextInput, type RowContext } from "./FieldRow.tsx";
 import { addElement, deviceLocationOn } from "../canvas/editCommands.ts";
 import { kindName } from "../canvas/newElement.ts";
@@ -69,6 +70,7 @@ export function Inspector() {
       elements: doc.elements,
       hosts: doc.elements.filter((e) => e.kind !== "bus" && !isProtectiveDevice(e)),
       readOnlyId: true,
+      messageText: (m) => messageText(m, doc),
       messagesAt: (path) => messages.filter((m) => m.elementId !== undefined && ids.includes(m.elementId) && m.field === path),
       commit: (path, value) => {
         const changes: DocChange[] = ids.map((id) => ({ type: "setField", id, path, value }));
@@ -114,7 +116,7 @@ export function Inspector() {
         <ul className="field-messages block">
           {general.map((m, i) => (
             <li key={i} className={`msg msg-${m.severity}`}>
-              {m.text}
+              {messageText(m, doc)}
             </li>
           ))}
         </ul>

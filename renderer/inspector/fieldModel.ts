@@ -16,6 +16,7 @@ import {
   lvBreakerSchema,
   type ElementKind,
 } from "../../src/model/schema.ts";
+import { fieldLabel } from "../../src/model/fieldLabels.ts";
 
 export const KIND_SCHEMAS: Record<ElementKind, z.ZodType> = {
   bus: busSchema,
@@ -206,16 +207,74 @@ export function fieldSpec(key: string, schema: z.ZodType): FieldSpec | null {
   }
 }
 
-export function fieldsOf(schema: z.ZodType): FieldSpec[] {
+/** The fields of an object schema; an element's own `kind` is not a field (a nested one, such as an
+ * earthing's kind, is). */
+export function fieldsOf(schema: z.ZodType, top = false): FieldSpec[] {
   const out: FieldSpec[] = [];
   for (const [key, s] of Object.entries(shapeOf(schema))) {
-    if (key === "kind") continue;
+    if (key === "kind" && top) continue;
     const spec = fieldSpec(key, s);
     if (spec) out.push(spec);
   }
   return out;
 }
 
+/** Human labels (src/model/fieldLabels.ts) over the ones derived from the schema. */
+function relabel(kind: ElementKind, specs: FieldSpec[], path: string[]): FieldSpec[] {
+  return specs.map((spec) => {
+    const p = [...path, spec.key];
+    const label = fieldLabel(kind, p) ?? spec.label;
+    if (spec.type === "group") return { ...spec, label, fields: relabel(kind, spec.fields, p) };
+    if (spec.type === "list") return { ...spec, label, item: relabel(kind, spec.item, p) };
+    if (spec.type === "variant") return { ...spec, label, variants: Object.fromEntries(Object.entries(spec.variants).map(([k, v]) => [k, relabel(kind, v, p)])) };
+    return { ...spec, label };
+  });
+}
+
+const kindFields = new Map<ElementKind, FieldSpec[]>();
+
 export function fieldsOfKind(kind: ElementKind): FieldSpec[] {
-  return fieldsOf(KIND_SCHEMAS[kind]);
+  let specs = kindFields.get(kind);
+  if (!specs) kindFields.set(kind, (specs = relabel(kind, fieldsOf(KIND_SCHEMAS[kind], true), [])));
+  return specs;
+}
+
+type Record_ = Record<string, unknown>;
+/** Fields that apply only in some settings, by key, judged on the record that holds them. */
+const APPLIES: Record<string, (holder: Record_) => boolean> = {
+  // an earthing impedance only for resistance or reactance earthing
+  z_ohm: (h) => h.kind === "resistance" || h.kind === "reactance",
+  // a grid-following unit injects reactive and negative-sequence current; a grid-forming one is a source behind an impedance
+  kFactor: (h) => h.control !== "grid-forming",
+  negSeq: (h) => h.control !== "grid-forming",
+  zForming_pu: (h) => h.control === "grid-forming",
+  k2: (h) => h.mode === "k-factor",
+  // relay functions: a definite-time delay or an inverse curve's multiplier; restraint for 51V, direction for 67/67N
+  multiplier: (h) => h.curve !== "definite-time" || !("ansi" in h),
+  delay_s: (h) => !("ansi" in h) || h.curve === "definite-time" || h.ansi === "50" || h.ansi === "50N",
+  reset: (h) => !("ansi" in h) || String(h.curve).startsWith("ieee"),
+  restraint: (h) => !("ansi" in h) || h.ansi === "51V",
+  direction: (h) => !("ansi" in h) || h.ansi === "67" || h.ansi === "67N",
+  rca_deg: (h) => !("ansi" in h) || h.ansi === "67" || h.ansi === "67N",
+};
+
+/** Whether field `key` applies to at least one of the records holding it. */
+export function fieldApplies(key: string, holders: readonly unknown[]): boolean {
+  const rule = APPLIES[key];
+  if (!rule) return true;
+  return holders.some((h) => !h || typeof h !== "object" || rule(h as Record_));
+}
+
+/** The on-screen label of the field at a dotted path such as "functions.1.pickup_A", if the kind has it. */
+export function labelAtPath(kind: ElementKind, path: string): string | undefined {
+  let specs: FieldSpec[] = fieldsOfKind(kind);
+  let label: string | undefined;
+  for (const part of path.split(".")) {
+    if (/^\d+$/.test(part)) continue;
+    const spec = specs.find((s) => s.key === part);
+    if (!spec) return undefined;
+    label = spec.label;
+    specs = spec.type === "group" ? spec.fields : spec.type === "list" ? spec.item : spec.type === "variant" ? Object.values(spec.variants).flat() : [];
+  }
+  return label;
 }

@@ -78,9 +78,14 @@ const yieldNow = () => new Promise<void>((resolve) => setImmediate(resolve));
  * cancelled, a browser closed under it) the exit code is 130. After an interrupt one line on stderr says so.
  */
 export async function runSession(name: string, options: SessionOptions, body: (session: CliSession) => Promise<number>): Promise<number> {
-  const progress = progressFor(`islet ${name}`, options.progressStream ?? process.stderr, options.quiet === true, options.now);
-  const out = consoleOutput(progress);
   const controller = new AbortController();
+  const line = progressFor(`islet ${name}`, options.progressStream ?? process.stderr, options.quiet === true, options.now);
+  // after Ctrl+C the line stays erased: the run is stopping, its count no longer matters
+  const progress: ProgressSink = {
+    update: (phase, done, total) => void (controller.signal.aborted || line.update(phase, done, total)),
+    clear: () => line.clear(),
+  };
+  const out = consoleOutput(progress);
   const cleanups = new Set<() => void>();
   const session: CliSession = {
     name,

@@ -66,7 +66,8 @@ export function cancelFullStudy(): void {
   if (running && client) client.cancel(running.requestId);
 }
 
-/** A matrix cell was chosen: show that case's fault on the one-line. */
+/** A matrix cell was chosen: show that case's fault on the one-line. The selection (the device being
+ * tuned in the time-current pane) is kept. */
 export function selectCase(caseId: string, scenarioId: string): void {
   const full = useStudyStore.getState().full;
   const c = full?.cases.find((x) => x.faultCase.id === caseId)?.faultCase;
@@ -77,6 +78,5 @@ export function selectCase(caseId: string, scenarioId: string): void {
     faultType: c.faultType,
     faultLimit: c.limit,
     faultTarget: loc.kind === "bus" ? { kind: "bus", bus: loc.bus } : { kind: "line", line: loc.line, pct: loc.pct },
-    selection: [],
   });
 }

@@ -8,7 +8,7 @@
 // unit's LV node (solved on the unit's own variant model).
 import type { Project } from "../../model/schema.ts";
 import type { CompileOptions, CompiledNetwork, EngineMessage, FaultLocation, FaultOptions, FaultResult, FaultType, NetworkNode } from "../types.ts";
-import type { Model } from "../network/model.ts";
+import type { Model, Seq } from "../network/model.ts";
 import { compileNetwork } from "../network/compileNetwork.ts";
 import { createEngineCache, type EngineCache } from "../network/engineCache.ts";
 import { assignIslands } from "../network/assignIslands.ts";
@@ -17,6 +17,8 @@ import { sequenceSystem, zColumn, type SequenceSystem, type Variant } from "../n
 import { solveFault, type EngineInternal } from "../fault/solveFault.ts";
 import type { ComplexVec } from "../fault/solveLinearFault.ts";
 import { updatedSystem } from "./updatedSystem.ts";
+import { unitColumns } from "../fault/compactFault.ts";
+import { applyLowRankColumn } from "../network/lowRankUpdate.ts";
 
 export type { OpenEnd };
 
@@ -99,6 +101,24 @@ export function reopenedSet(ctx: ReopenContext, ends: readonly OpenEnd[]): Reope
   return set;
 }
 
+/** A cache map whose entries (keys matching `pattern`) are made when first asked for. */
+class LazyMap<V> extends Map<string, V> {
+  constructor(
+    private readonly make: (key: string) => V,
+    private readonly pattern: RegExp,
+  ) {
+    super();
+  }
+  override get(key: string): V | undefined {
+    let v = super.get(key);
+    if (v === undefined && this.pattern.test(key)) {
+      v = this.make(key);
+      super.set(key, v);
+    }
+    return v;
+  }
+}
+
 /** The opened model on the base model's nodes, and its systems on the base factorization. */
 function openedNetwork(ctx: ReopenContext, ends: OpenEnd[]): CompiledNetwork {
   const { model: base, cache: baseCache } = ctx.base.internal as EngineInternal;
@@ -108,12 +128,29 @@ function openedNetwork(ctx: ReopenContext, ends: OpenEnd[]): CompiledNetwork {
   assignIslands(model);
   const cache: EngineCache = createEngineCache();
   cache.ordering = baseCache.ordering;
-  const variants: Variant[] = model.shunts.some((s) => s.refinedOnly) ? ["iec", "refined"] : ["iec"];
-  for (const variant of variants)
-    for (const seq of [0, 1, 2] as const) {
-      const sys0 = sequenceSystem(base, baseCache, seq, variant);
-      cache.systems.set(`${seq}:${variant}`, updatedSystem(base, model, sys0, variant, (sys, node) => baseColumn(ctx, sys, node)));
+  // Each sequence system on first use (a study using the IEC converter model never needs the refined variant):
+  // sequenceSystem finds it in the cache, so nothing is ever factorized for the opened network.
+  cache.systems = new LazyMap((key) => {
+    const [seq, variant] = key.split(":") as [string, Variant];
+    const sys0 = sequenceSystem(base, baseCache, Number(seq) as Seq, variant);
+    return updatedSystem(base, model, sys0, variant, (sys, node) => baseColumn(ctx, sys, node));
+  }, /^[012]:(iec|refined)$/);
+  // Columns at the converters' nodes: the base network's (kept with it), corrected by each sequence's update.
+  cache.unitColumns = new LazyMap((key) => {
+    const variant = key.slice("units:".length) as Variant;
+    const baseCols = unitColumns(base, baseCache, variant);
+    const cols: ComplexVec[][] = [[], [], []];
+    for (const s of [1, 2] as const) {
+      const sys = sequenceSystem(model, cache, s, variant);
+      for (const u of model.inverters) {
+        const j = base.inverters.findIndex((x) => x.element === u.element);
+        const col = { re: baseCols[s][j].re.slice(), im: baseCols[s][j].im.slice() };
+        if (sys.update) applyLowRankColumn(sys.update, u.node, col.re, col.im);
+        cols[s].push(col);
+      }
     }
+    return cols;
+  }, /^units:(iec|refined)$/);
   const messages: EngineMessage[] = [];
   for (let i = 0; i < model.islandLive.length; i++) {
     if (model.islandLive[i]) continue;

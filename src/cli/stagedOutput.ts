@@ -34,7 +34,8 @@ export class StagedOutput {
   readonly stagingDir: string;
   private readonly createdOut: boolean;
   private readonly names: string[] = [];
-  private finished = false;
+  private committed = false;
+  private discarded = false;
 
   constructor(outDir: string) {
     this.outDir = outDir;
@@ -48,6 +49,8 @@ export class StagedOutput {
 
   /** Writes `name` (a path relative to the output folder) into the staging folder. */
   write(name: string, data: string | Uint8Array): void {
+    // after discard (a second Ctrl+C) nothing may be written again
+    if (this.discarded) return;
     const path = join(this.stagingDir, name);
     mkdirSync(dirname(path), { recursive: true });
     writeFileSync(path, data);
@@ -64,14 +67,14 @@ export class StagedOutput {
       paths.push(target);
     }
     rmSync(this.stagingDir, { recursive: true, force: true });
-    this.finished = true;
+    this.committed = true;
     return paths;
   }
 
   /** Removes the staging folder, and the output folder if this run made it and it is empty. Synchronous. */
   discard(): void {
-    if (this.finished) return;
-    this.finished = true;
+    if (this.committed) return;
+    this.discarded = true;
     rmSync(this.stagingDir, { recursive: true, force: true });
     if (this.createdOut) {
       try {

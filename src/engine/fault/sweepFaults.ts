@@ -399,6 +399,7 @@ function* sweepBusSteps(network: CompiledNetwork, plan: SweepPlan, arrays: Sweep
           inj_pu[o + 5] = inj2.im[l];
         }
       }
+      // A sweep without the three-phase fault has only the sources' bolted I"k for ip (converters not counted).
       if (ik3 < 0) ik3 = (c / Math.hypot(z1.re, z1.im)) * iBase_kA;
       // The voltage sources' share of the three-phase I"k (every converter removed), which alone carries kappa.
       let zS: Cx | null = z1;

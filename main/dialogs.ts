@@ -1,6 +1,6 @@
 // Native file dialogs, attached to the studio window. The project filter is ".islet".
 import { dialog, type BrowserWindow, type FileFilter } from "electron";
-import { join } from "node:path";
+import { resolve } from "node:path";
 import type { FileDialogs } from "./ipc.ts";
 
 export const PROJECT_FILTER: FileFilter = { name: "Islet project", extensions: ["islet"] };
@@ -21,7 +21,7 @@ export function electronFileDialogs(getWindow: () => BrowserWindow | null, defau
     async chooseProjectSavePath(suggestedName) {
       const options = {
         title: "Save project",
-        defaultPath: join(defaultFolder(), suggestedName),
+        defaultPath: resolve(defaultFolder(), suggestedName), // a full path (asking again on a corrected name) stays as it is
         filters: [PROJECT_FILTER],
         properties: ["showOverwriteConfirmation" as const, "createDirectory" as const],
       };
@@ -32,7 +32,7 @@ export function electronFileDialogs(getWindow: () => BrowserWindow | null, defau
     async chooseExportPath(suggestedName, extension) {
       const options = {
         title: "Export",
-        defaultPath: join(defaultFolder(), suggestedName),
+        defaultPath: resolve(defaultFolder(), suggestedName), // a full path (asking again on a corrected name) stays as it is
         filters: exportFilters(extension),
         properties: ["showOverwriteConfirmation" as const, "createDirectory" as const],
       };

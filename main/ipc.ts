@@ -1,6 +1,7 @@
 // The main-process side of the HostApi: one IPC channel per call, every argument checked.
 // The renderer can only read or write files the user picked in a dialog, opened from the
 // recent list or passed on the command line: a file key is never trusted on its own.
+import { existsSync } from "node:fs";
 import { basename, extname } from "node:path";
 import type { FileRef, OpenedFile, SaveResult } from "../src/model/hostContract.ts";
 import { CHANNELS } from "./channels.ts";
@@ -46,6 +47,8 @@ export interface IpcDeps {
   warn(message: string): void;
   /** Prints report HTML to PDF bytes (the desktop's hidden print window); without it the call is refused. */
   printPdf?: PdfPrinter;
+  /** Whether a file exists (default: node:fs existsSync); decides when a name with an added extension needs asking. */
+  pathExists?(path: string): boolean;
 }
 
 export function isAppFrameUrl(url: string | undefined | null): boolean {
@@ -56,11 +59,38 @@ export function fileRefFor(path: string): FileRef {
   return { name: basename(path), key: path };
 }
 
-/** A suggested export name reduced to a plain file name (no folders, no control characters). */
+/** Names Windows reserves for devices, with or without an extension ("NUL", "con.txt"): such a file cannot be made. */
+const RESERVED_DEVICE_NAME = /^(con|prn|aux|nul|com[0-9¹²³]|lpt[0-9¹²³])(\.|$)/i;
+/**
+ * Characters no file name gets: path and wildcard characters, C0 and C1 controls, and the invisible format
+ * characters (bidirectional embeddings, overrides and isolates, marks, zero-width characters, BOM) that can
+ * make "report‮fdp.exe" read as another name.
+ */
+// eslint-disable-next-line no-control-regex
+const UNSAFE_CHARS = /[\u0000-\u001f\u007f-\u009f<>:"/\\|?*\u061c\u180e\u200b-\u200f\u202a-\u202e\u2060-\u2064\u2066-\u206f\ufeff\ufff9-\ufffb]/g;
+
+/** A suggested export name reduced to a plain file name (no folders, no control or format characters, no device name). */
 export function safeFileName(suggested: string, fallback: string): string {
-  // eslint-disable-next-line no-control-regex
-  const cleaned = suggested.replace(/[\u0000-\u001f<>:"/\\|?*]/g, "_").replace(/^[.\s]+|[.\s]+$/g, "");
-  return cleaned.length > 0 ? cleaned : fallback;
+  const cleaned = suggested.replace(UNSAFE_CHARS, "_").replace(/^[.\s]+|[.\s]+$/g, "");
+  if (cleaned.length === 0) return fallback;
+  return RESERVED_DEVICE_NAME.test(cleaned) ? `_${cleaned}` : cleaned;
+}
+
+/** The extension each export type gets, whatever the suggested name says. */
+export const EXPORT_EXTENSIONS: Readonly<Record<string, string>> = {
+  "text/csv": "csv",
+  "text/html": "html",
+  "text/plain": "txt",
+  "application/json": "json",
+  "application/pdf": "pdf",
+  "image/svg+xml": "svg",
+  "image/png": "png",
+};
+
+/** `name` with its extension (if any) replaced by `ext`. */
+export function withExtension(name: string, ext: string): string {
+  const current = extname(name);
+  return `${current ? name.slice(0, -current.length) : name}.${ext}`;
 }
 
 export function withProjectExtension(path: string): string {
@@ -78,6 +108,23 @@ export function registerIpcHandlers(ipcMain: IpcMainLike, deps: IpcDeps): IpcReg
   const allowFile = (path: string) => {
     if (!isAllowed(path)) allowed.push(path);
   };
+
+  const pathExists = deps.pathExists ?? existsSync;
+
+  /**
+   * The path to write for a name the user chose in a save dialog, `ext` added when missing. The dialog confirmed
+   * overwriting only the name as typed: when the name with the extension is another existing file, the dialog is
+   * shown again on that name (and confirms it), so no file is overwritten unasked. Null when the user cancels.
+   */
+  async function confirmedWithExtension(chosen: string | null, ext: string, askAgain: (path: string) => Promise<string | null>): Promise<string | null> {
+    for (let k = 0; chosen !== null && k < 5; k++) {
+      if (extname(chosen).toLowerCase() === `.${ext}`) return chosen;
+      const withExt = `${chosen}.${ext}`;
+      if (!pathExists(withExt)) return withExt;
+      chosen = await askAgain(withExt);
+    }
+    return null;
+  }
 
   function handle(channel: string, call: string, fn: (...args: unknown[]) => Promise<unknown>): void {
     ipcMain.handle(channel, (event, ...args) => {
@@ -128,12 +175,13 @@ export function registerIpcHandlers(ipcMain: IpcMainLike, deps: IpcDeps): IpcReg
       target = file.key;
     } else {
       // A file the user never chose here is treated like "Save as": ask, never guess a path.
-      const chosen = await deps.dialogs.chooseProjectSavePath(withProjectExtension(safeFileName(file?.name ?? "", "untitled")));
+      const ask = (name: string) => deps.dialogs.chooseProjectSavePath(name);
+      const chosen = await confirmedWithExtension(await ask(withProjectExtension(safeFileName(file?.name ?? "", "untitled"))), PROJECT_EXTENSION.slice(1), ask);
       if (chosen === null) {
         deps.onSaveFinished(false);
         return { ok: false, cancelled: true };
       }
-      target = withProjectExtension(chosen);
+      target = chosen;
     }
     const outcome = await deps.store.saveProject(target, text);
     if (!outcome.ok) {
@@ -171,10 +219,14 @@ export function registerIpcHandlers(ipcMain: IpcMainLike, deps: IpcDeps): IpcReg
   handle(CHANNELS.clearAutosave, "clearAutosave", () => deps.store.clearAutosave());
 
   handle(CHANNELS.exportFile, "exportFile", async (nameArg, dataArg, mimeArg) => {
-    const suggested = safeFileName(checkString("exportFile", "suggestedName", nameArg, LIMITS.name_chars), "export");
+    const name = safeFileName(checkString("exportFile", "suggestedName", nameArg, LIMITS.name_chars), "export");
     const data = checkExportData("exportFile", "data", dataArg);
-    checkString("exportFile", "mime", mimeArg, LIMITS.mime_chars);
-    const path = await deps.dialogs.chooseExportPath(suggested, extname(suggested).slice(1));
+    const mime = checkString("exportFile", "mime", mimeArg, LIMITS.mime_chars);
+    // the declared type decides the extension; a suggested "plot.exe" for an image/png is written as plot.png
+    const ext = Object.hasOwn(EXPORT_EXTENSIONS, mime) ? EXPORT_EXTENSIONS[mime] : null;
+    if (ext === null) throw new ArgumentError(`exportFile: mime "${mime.slice(0, 60)}" is not a type the studio exports (${Object.keys(EXPORT_EXTENSIONS).join(", ")})`);
+    const ask = (suggested: string) => deps.dialogs.chooseExportPath(suggested, ext);
+    const path = await confirmedWithExtension(await ask(withExtension(name, ext)), ext, ask);
     if (path === null) return false;
     const outcome = await deps.store.writeExport(path, data);
     if (!outcome.ok) throw new Error(outcome.message);
@@ -182,21 +234,18 @@ export function registerIpcHandlers(ipcMain: IpcMainLike, deps: IpcDeps): IpcReg
   });
 
   handle(CHANNELS.exportReportPdf, "exportReportPdf", async (nameArg, htmlArg) => {
-    const suggested = withPdfExtension(safeFileName(checkString("exportReportPdf", "suggestedName", nameArg, LIMITS.name_chars), "report.pdf"));
+    const suggested = withExtension(safeFileName(checkString("exportReportPdf", "suggestedName", nameArg, LIMITS.name_chars), "report.pdf"), "pdf");
     const html = checkString("exportReportPdf", "html", htmlArg, LIMITS.reportHtml_chars);
     if (!deps.printPdf) throw new Error("exportReportPdf: printing to PDF is not available in this window");
     // print first: a failed print never leaves the user with a half-chosen file
     const pdf = await printReportPdf(html, deps.printPdf);
-    const path = await deps.dialogs.chooseExportPath(suggested, "pdf");
+    const ask = (name: string) => deps.dialogs.chooseExportPath(name, "pdf");
+    const path = await confirmedWithExtension(await ask(suggested), "pdf", ask);
     if (path === null) return false;
-    const outcome = await deps.store.writeExport(withPdfExtension(path), pdf);
+    const outcome = await deps.store.writeExport(path, pdf);
     if (!outcome.ok) throw new Error(outcome.message);
     return true;
   });
 
   return { allowFile };
-}
-
-export function withPdfExtension(path: string): string {
-  return extname(path).toLowerCase() === ".pdf" ? path : `${path}.pdf`;
 }

@@ -31,7 +31,10 @@ export interface ReopenContext {
   readonly sets: Map<string, ReopenedSet>;
   /** Base Z' columns at nodes, per base sequence system. */
   readonly columns: WeakMap<SequenceSystem, Map<number, ComplexVec>>;
-  /** How many faults each path answered, and why the fresh compile was used. */
+  /**
+   * How many faults the update answered (fast) and how many it did not (reference: a fresh compile, or a line
+   * point's split network factorized afresh), with the reasons and their counts.
+   */
   readonly stats: { fast: number; reference: number; reasons: Record<string, number> };
 }
 
@@ -165,10 +168,17 @@ function openedNetwork(ctx: ReopenContext, ends: OpenEnd[]): CompiledNetwork {
 /** Why a fault of an updated set still needs the fresh compile (null: the update answers it). */
 export function faultFallback(ctx: ReopenContext, location: FaultLocation): string | null {
   const { model } = ctx.base.internal as EngineInternal;
-  const k = location.kind === "bus" ? model.busNode.get(location.bus) : undefined;
-  if (k !== undefined && model.inUnit?.has(k)) return `fault at bus ${location.kind === "bus" ? location.bus : ""}, inside a power station unit (the unit's own corrections)`;
-  return null;
+  if (!model.inUnit) return null;
+  if (location.kind === "bus") {
+    const k = model.busNode.get(location.bus);
+    return k !== undefined && model.inUnit.has(k) ? `fault at bus ${location.bus}, inside a power station unit (the unit's own corrections)` : null;
+  }
+  const b = model.branches.find((x) => x.element === location.line);
+  return b && (model.inUnit.has(b.from) || model.inUnit.has(b.to)) ? `fault along line ${location.line}, at a power station unit's node (the unit's own corrections)` : null;
 }
+
+/** The reason recorded for a line point answered on the opened network (its split copy is factorized afresh). */
+export const LINE_POINT = "line point (the opened network split there is factorized afresh, as solveFault does for any line point)";
 
 function countPath(ctx: ReopenContext, reason: string | null): void {
   if (reason === null) ctx.stats.fast++;
@@ -180,12 +190,14 @@ function countPath(ctx: ReopenContext, reason: string | null): void {
 
 /**
  * One fault with the given ends open: the FaultResult solveFault gives on the fresh compile with those ends open,
- * from the base factorization. A fault point along a line splits the opened network there, as solveFault does.
+ * from the base factorization. A fault point along a line splits the opened network there and factorizes the split
+ * network, as solveFault does for every line point (counted in stats.reasons, not a fresh compile).
  */
 export function solveReopened(ctx: ReopenContext, ends: readonly OpenEnd[], location: FaultLocation, type: FaultType, options: FaultOptions = {}): FaultResult {
   const set = reopenedSet(ctx, ends);
   const reason = set.fallback ?? faultFallback(ctx, location);
-  countPath(ctx, reason);
+  const linePoint = location.kind === "line" && location.pct > 0 && location.pct < 100;
+  countPath(ctx, reason ?? (linePoint ? LINE_POINT : null));
   if (reason === null && set.network) return solveFault(set.network, location, type, options);
   const r = solveFault(referenceNetwork(ctx, set), location, type, options);
   r.messages.push({ level: "info", code: "reopen-fresh-compile", text: `Re-solved by a fresh compile of the network: ${reason}` });

@@ -125,6 +125,7 @@ describe("a ring opened at one end of a line", () => {
     expect(r.ikss_kA).toBeCloseTo((1.1 * 11) / (Math.sqrt(3) * mag(z)), 9);
     for (const x of end(r, "L3", "to")!.seq_A) expect(x.mag).toBe(0);
     expect(end(r, "L3", "from")!.phase_A[0].mag).toBeCloseTo(r.ikss_kA * 1000, 6);
+    expect(Object.keys(ctx.stats.reasons).some((x) => x.startsWith("line point"))).toBe(true);
   });
 
   it("opens a switch by a fresh compile and says so", () => {
@@ -208,5 +209,41 @@ describe("an opened set that leaves a section without a source", () => {
     expect(() => solveReopened(ctx, [{ element: "nope", end: "from" }], { kind: "bus", bus: "A" }, "3ph")).toThrow(/nope/);
     const bad = compileNetwork(p, { limit: "max", openEnds: [{ element: "Q", end: "from" }] });
     expect(bad.ok).toBe(false);
+  });
+});
+
+describe("a power station unit with an opened end", () => {
+  // Generator 10 MVA 11 kV on G, unit transformer YNd11 34.5/11 kV to Q, a 500 MVA grid at Q, and a cable from Q
+  // to a load bus F (data as in powerStationUnit.test.ts). A fault at G is solved with the unit's own factors
+  // (IEC 60909-0:2016, 6.7), which the update of the outside model cannot give: a fresh compile answers it.
+  const p = buildProject([
+    bus("Q", 33),
+    bus("G", 11),
+    bus("F", 33),
+    { kind: "generator", id: "G1", bus: "G", sr_MVA: 10, ur_kV: 11, cosPhi: 0.8, xdss_pu: 0.15, x2_pu: 0.15, x0_pu: 0.1, rx: 0.05, unit: { transformer: "T1" } },
+    { kind: "transformer", id: "T1", hvBus: "Q", lvBus: "G", sr_MVA: 10, urHv_kV: 34.5, urLv_kV: 11, uk_pct: 10, ur_pct: 0.6, vectorGroup: "YNd11", earthingHv: { kind: "solid" } },
+    { kind: "grid", id: "NET", bus: "Q", skMax_MVA: 500, skMin_MVA: 400, rx: 0.1 },
+    cable("L1", "Q", "F", 4),
+  ]);
+  const ctx = createReopenContext(p, { limit: "max" });
+  const ends: OpenEnd[] = [{ element: "L1", end: "from" }];
+  const fresh = compileNetwork(p, { limit: "max", openEnds: ends });
+  if (!fresh.ok) throw new Error("compile");
+
+  it("answers a fault inside the unit by a fresh compile, and one outside it by the update, both as the fresh compile does", () => {
+    for (const type of ["3ph", "LG"] as const) {
+      const inside = solveReopened(ctx, ends, { kind: "bus", bus: "G" }, type);
+      expect(inside.messages.some((m) => m.code === "reopen-fresh-compile" && m.text.includes("power station unit"))).toBe(true);
+      expect(inside.ikss_kA).toBeCloseTo(solveFault(fresh.network, { kind: "bus", bus: "G" }, type).ikss_kA, 12);
+      const outside = solveReopened(ctx, ends, { kind: "bus", bus: "Q" }, type);
+      expect(outside.messages.some((m) => m.code === "reopen-fresh-compile")).toBe(false);
+      expect(outside.ikss_kA).toBeCloseTo(solveFault(fresh.network, { kind: "bus", bus: "Q" }, type).ikss_kA, 12);
+    }
+    expect(ctx.stats.reference).toBe(2);
+    expect(ctx.stats.fast).toBe(2);
+    const sweep = sweepReopened(ctx, ends, { types: ["3ph"] });
+    const g = sweep.busIds.indexOf("G");
+    expect(sweep.ikss_kA[g]).toBeCloseTo(solveFault(fresh.network, { kind: "bus", bus: "G" }, "3ph").ikss_kA, 12);
+    expect(sweep.ikss_kA[sweep.busIds.indexOf("F")]).toBe(0); // the opened cable leaves F without a source
   });
 });

@@ -12,7 +12,8 @@ import { OneLineCanvas } from "../canvas/OneLineCanvas.tsx";
 import { Palette } from "../canvas/Palette.tsx";
 import { Inspector } from "../inspector/Inspector.tsx";
 import { OperatingModes } from "../modes/OperatingModes.tsx";
-import { addElement, deviceLocationOn, isProtectiveKind } from "../canvas/editCommands.ts";
+import { addElement, deviceLocationOn, isProtectiveKind, newPartSize } from "../canvas/editCommands.ts";
+import { freeSpot } from "../canvas/freeSpot.ts";
 import { useDocumentStore } from "../store/documentStore.ts";
 import { useSessionStore } from "../store/sessionStore.ts";
 import { PaneSplitter } from "./PaneSplitter.tsx";
@@ -29,9 +30,12 @@ function Workspace({ panes }: { panes: PaneEntry[] }) {
       addElement(kind, { x: 0, y: 0 }, host ? deviceLocationOn(host, false) : null);
       return;
     }
+    // near the selected part (beside it), else the view's centre; then the nearest free spot
+    const { doc } = useDocumentStore.getState();
+    const near = useSessionStore.getState().selection.map((id) => doc.layout[id]).find((p) => p !== undefined);
     const el = document.querySelector(".canvas-wrap")?.getBoundingClientRect();
-    const p = flow.screenToFlowPosition({ x: (el?.left ?? 0) + (el?.width ?? 800) / 2, y: (el?.top ?? 0) + (el?.height ?? 600) / 2 });
-    addElement(kind, { x: Math.round(p.x / 10) * 10, y: Math.round(p.y / 10) * 10 });
+    const want = near ? { x: near.x + (near.w ?? 0) / 2 + 80, y: near.y + 80 } : flow.screenToFlowPosition({ x: (el?.left ?? 0) + (el?.width ?? 800) / 2, y: (el?.top ?? 0) + (el?.height ?? 600) / 2 });
+    addElement(kind, freeSpot(doc, want, newPartSize(kind)));
   };
   return (
     <div className="workspace">

@@ -23,11 +23,12 @@ import type { NodePlace } from "../store/changes.ts";
 import type { OneLineEdge, OneLineNode } from "./flowTypes.ts";
 import { stableItems } from "./stableItems.ts";
 import { toFlow, terminalFields } from "./toFlow.ts";
-import { BusNode } from "./nodes/BusNode.tsx";
+import { BusNode, BUS_HEIGHT } from "./nodes/BusNode.tsx";
 import { BranchNode } from "./nodes/BranchNode.tsx";
 import { ShuntNode } from "./nodes/ShuntNode.tsx";
 import { TieEdge } from "./TieEdge.tsx";
-import { addElement, deviceLocationOn, isProtectiveKind } from "./editCommands.ts";
+import { addElement, deviceLocationOn, isProtectiveKind, newPartSize } from "./editCommands.ts";
+import { freeSpot } from "./freeSpot.ts";
 import { PALETTE_DRAG_TYPE } from "./Palette.tsx";
 
 const nodeTypes: NodeTypes = { bus: BusNode, branch: BranchNode, shunt: ShuntNode };
@@ -159,6 +160,7 @@ export function OneLineCanvas() {
     if (e.dataTransfer.types.includes(PALETTE_DRAG_TYPE)) {
       e.preventDefault();
       e.dataTransfer.dropEffect = "copy";
+      setPlacing(true);
     }
   }, []);
 
@@ -167,6 +169,7 @@ export function OneLineCanvas() {
       const kind = e.dataTransfer.getData(PALETTE_DRAG_TYPE) as ElementKind;
       if (!kind) return;
       e.preventDefault();
+      setPlacing(false);
       const p = flow.screenToFlowPosition({ x: e.clientX, y: e.clientY });
       const snapped = { x: Math.round(p.x / GRID) * GRID, y: Math.round(p.y / GRID) * GRID };
       if (isProtectiveKind(kind)) {
@@ -181,18 +184,34 @@ export function OneLineCanvas() {
         addElement(kind, snapped, deviceLocationOn(host, lower));
         return;
       }
-      addElement(kind, snapped);
+      // dropped on a bus: tied to it, hung below it (a grid feeder above it), on free ground
+      const doc = useDocumentStore.getState().doc;
+      const size = newPartSize(kind);
+      const bus = kind === "bus" ? undefined : flow.getIntersectingNodes({ x: p.x - 2, y: p.y - 2, width: 4, height: 4 }).find((n) => n.type === "bus");
+      if (bus) {
+        const place = doc.layout[bus.id];
+        const offset = BUS_HEIGHT / 2 + size.h / 2 + 30;
+        const want = { x: snapped.x, y: (place?.y ?? snapped.y) + (kind === "grid" ? -offset : offset) };
+        addElement(kind, freeSpot(doc, want, size), null, bus.id);
+        return;
+      }
+      addElement(kind, freeSpot(doc, snapped, size));
     },
     [flow],
   );
+  const connecting = useStore((s) => s.connection.inProgress);
+  const [placing, setPlacing] = useState(false);
 
   return (
     <div
       ref={wrapRef}
-      className={`canvas-wrap${far ? " lod-far" : ""}${tiny ? " lod-tiny" : ""}${textScale > DETAIL_SCALE ? " lod-names" : ""}`}
+      className={`canvas-wrap${far ? " lod-far" : ""}${tiny ? " lod-tiny" : ""}${textScale > DETAIL_SCALE ? " lod-names" : ""}${placing || connecting ? " is-placing" : ""}`}
       style={{ "--text-scale": textScale } as CSSProperties}
       data-testid="one-line"
       onDragOver={onDragOver}
+      onDragLeave={(e) => {
+        if (!e.currentTarget.contains(e.relatedTarget as Node | null)) setPlacing(false);
+      }}
       onDrop={onDrop}
     >
       <ReactFlow<OneLineNode>

@@ -7,7 +7,7 @@ import { useSessionStore } from "../store/sessionStore.ts";
 import type { DocChange, NodePlace } from "../store/changes.ts";
 import { newElement, nextId } from "./newElement.ts";
 import { withRatedDefaults } from "../../src/protection/defaultSettings.ts";
-import { isBranchLike, terminalFields } from "./toFlow.ts";
+import { isBranchLike, nodeSize, terminalFields } from "./toFlow.ts";
 
 const PROTECTIVE: ElementKind[] = ["relay", "fuse", "lvbreaker"];
 
@@ -15,8 +15,9 @@ export function isProtectiveKind(kind: ElementKind): boolean {
   return PROTECTIVE.includes(kind);
 }
 
-/** Adds an element; devices go at the given location. Returns the new id (null when refused). */
-export function addElement(kind: ElementKind, place: NodePlace, at: DeviceLocation | null = null): string | null {
+/** Adds an element; devices go at the given location; `tieTo` connects the new element's first
+ * terminal to that bus (a part dropped on a bus). Returns the new id (null when refused). */
+export function addElement(kind: ElementKind, place: NodePlace, at: DeviceLocation | null = null, tieTo: string | null = null): string | null {
   const { doc, applyChanges } = useDocumentStore.getState();
   const session = useSessionStore.getState();
   if (isProtectiveKind(kind) && !at) {
@@ -24,11 +25,18 @@ export function addElement(kind: ElementKind, place: NodePlace, at: DeviceLocati
     return null;
   }
   // a protective device starts from the protected element's rating where it has one
-  const { device: element, basis } = withRatedDefaults(newElement(kind, doc, at), doc);
+  const { device: created, basis } = withRatedDefaults(newElement(kind, doc, at), doc);
+  const terminal = tieTo ? terminalFields(created).a : undefined;
+  const element = terminal ? ({ ...created, [terminal]: tieTo } as Element) : created;
   applyChanges([{ type: "addElement", element, place: at ? undefined : place }], { undoable: true });
   session.set({ selection: [element.id] });
   if (basis) session.notify("info", `${element.name}: starting settings from the rating: ${basis}. Check them against the study.`, undefined, { topic: "defaults" });
   return element.id;
+}
+
+/** The drawn size of a new part of this kind (upright). */
+export function newPartSize(kind: ElementKind): { w: number; h: number } {
+  return nodeSize({ kind } as Element);
 }
 
 /** Where a device dropped on or added to `host` sits: the top end for a branch unless `lower`. */

@@ -8,6 +8,7 @@ import { ElementSymbol, BRANCH_BOX } from "../symbols/ElementSymbol.tsx";
 import { DeviceStack } from "./DeviceStack.tsx";
 import { FlowArrow } from "./FlowArrow.tsx";
 import { fmt } from "./formatting.ts";
+import { isOpen } from "./openTerminal.ts";
 
 function BranchNodeView({ data, selected }: NodeProps<BranchFlowNode>) {
   const { element, colorA, colorB, devicesA, devicesB, caption, detail, flow, marks, selectedDevices, horizontal, faulted, ikss_kA } = data;
@@ -39,8 +40,8 @@ function BranchNodeView({ data, selected }: NodeProps<BranchFlowNode>) {
           ⚡ I&quot;k {fmt(ikss_kA, 4)} kA
         </span>
       )}
-      <Handle id="a" type="source" position={horizontal ? Position.Left : Position.Top} className="terminal-handle" />
-      <Handle id="b" type="source" position={horizontal ? Position.Right : Position.Bottom} className="terminal-handle" />
+      <Handle id="a" type="source" position={horizontal ? Position.Left : Position.Top} className={`terminal-handle${isOpen(element, "a") ? " is-open" : ""}`} title={isOpen(element, "a") ? "Not connected: drag to a bus" : undefined} />
+      <Handle id="b" type="source" position={horizontal ? Position.Right : Position.Bottom} className={`terminal-handle${isOpen(element, "b") ? " is-open" : ""}`} title={isOpen(element, "b") ? "Not connected: drag to a bus" : undefined} />
     </div>
   );
 }

@@ -6,6 +6,7 @@ import type { ShuntFlowNode } from "../flowTypes.ts";
 import { ElementSymbol, SHUNT_BOX } from "../symbols/ElementSymbol.tsx";
 import { DeviceStack } from "./DeviceStack.tsx";
 import { FlowArrow } from "./FlowArrow.tsx";
+import { isOpen } from "./openTerminal.ts";
 
 function ShuntNodeView({ data, selected }: NodeProps<ShuntFlowNode>) {
   const { element, colorA, devicesA, caption, detail, flow, marks, selectedDevices, down } = data;
@@ -21,7 +22,7 @@ function ShuntNodeView({ data, selected }: NodeProps<ShuntFlowNode>) {
         <span className="caption-name">{caption}</span>
         <span className="caption-detail">{detail}</span>
       </div>
-      <Handle id="a" type="source" position={down ? Position.Bottom : Position.Top} className="terminal-handle" />
+      <Handle id="a" type="source" position={down ? Position.Bottom : Position.Top} className={`terminal-handle${isOpen(element, "a") ? " is-open" : ""}`} title={isOpen(element, "a") ? "Not connected: drag to a bus" : undefined} />
     </div>
   );
 }

@@ -12,6 +12,8 @@ export interface CliOutput {
   print(text: string): void;
   /** A value as indented JSON on stdout (terminal-safe, same value when parsed). */
   json(value: unknown): void;
+  /** A value as one line of JSON on stdout (JSON Lines; terminal-safe, same value when parsed). */
+  jsonLine(value: unknown): void;
   /** Lines on stderr. */
   error(text: string): void;
 }
@@ -63,6 +65,10 @@ export function consoleOutput(progress: ProgressSink = { update() {}, clear() {}
     json(value) {
       progress.clear();
       console.log(jsonForTerminal(JSON.stringify(value, null, 2)));
+    },
+    jsonLine(value) {
+      progress.clear();
+      console.log(jsonForTerminal(JSON.stringify(value)));
     },
     error(text) {
       progress.clear();

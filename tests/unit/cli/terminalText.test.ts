@@ -5,6 +5,8 @@
 import { describe, expect, it } from "vitest";
 import { escapeControl, hasControls, jsonForTerminal, terminalField, terminalLines } from "../../../src/cli/terminalText.ts";
 import { guardConsole } from "../../../src/cli/safeConsole.ts";
+import { consoleOutput } from "../../../src/cli/session.ts";
+import { vi } from "vitest";
 
 // ECMA-48 8.3.41 EL (erase in line) and 8.3.22 CUU (cursor up): the sequences that hide a line of output
 const ERASE_LINE = "\x1b[2K";
@@ -91,5 +93,21 @@ describe("terminal-safe text", () => {
     expect(JSON.parse(printed[1])).toEqual({ name: "x\u202ey" });
     expect(isInert(printed[1], true)).toBe(true);
     expect(target.log).toBe(original);
+  });
+
+  it("prints JSON Lines one value a line, inert and parsing back to the same values", () => {
+    const lines: string[] = [];
+    const spy = vi.spyOn(console, "log").mockImplementation((t: string) => void lines.push(t));
+    try {
+      const out = consoleOutput();
+      const a = { kind: "verdict", device: `Q1\r${ERASE_LINE}\u202e`, t_s: 0.25 };
+      out.jsonLine(a);
+      out.jsonLine({ kind: "totals", fail: 0 });
+      expect(lines).toHaveLength(2);
+      for (const l of lines) expect(isInert(l, false)).toBe(true);
+      expect(lines.map((l) => JSON.parse(l))).toEqual([a, { kind: "totals", fail: 0 }]);
+    } finally {
+      spy.mockRestore();
+    }
   });
 });

@@ -3,15 +3,21 @@
 // fault type and device location in a few complex operations. The result has the sweep's form (types.ts
 // SweepResult), read with sweepDeviceCurrents / sweepDeviceCurrentsInto:
 //   I_d,s(b, t) = -X_s[k_b, d] If_s(b, t) + sum_j injMap[d, j, s] inj_s(b, t, j),   X_s[k, d] = c_d^T Z'_s[:, k]
-// (reciprocity), with the IEC 60909 full-size-converter injections in closed form. Faults the closed form does not
-// cover are solved one at a time on the same update and kept as overrides: the refined converter model, islands of
-// current sources only, undetermined faults; faults at a power station unit's LV node go to the fresh compile.
+// (reciprocity), with the IEC 60909 full-size-converter injections in closed form and the refined converter model
+// iterating on each island's units through their closed-form response, as the all-bus sweep does. Faults the closed
+// form does not cover are solved one at a time on the same update and kept as overrides: islands of current sources
+// only, undetermined faults; faults at a power station unit's LV node go to the fresh compile.
 import type { EngineMessage, FaultType, InverterModel, SweepResult } from "../types.ts";
 import { FAULT_TYPES, TRANSFER_BLOCK } from "../types.ts";
 import type { Cx } from "../network/model.ts";
 import { sequenceSystem, zColumn, type SequenceSystem } from "../network/sequenceSystem.ts";
 import { deviceCombination, type Combination } from "../fault/deviceCombination.ts";
-import { unitColumns } from "../fault/compactFault.ts";
+import { compactUnits, loadFaultColumns, responseFromAffine, unitBlock, unitColumns } from "../fault/compactFault.ts";
+import { FaultAffine, faultMagnitudesOf } from "../fault/faultAffine.ts";
+import { FaultCoupledResponse } from "../inverter/unitResponse.ts";
+import { InjectionWork, iterateInjections } from "../inverter/refinedIteration.ts";
+import type { ComplexVec } from "../fault/solveLinearFault.ts";
+import type { Model } from "../network/model.ts";
 import { faultEquations, type SeqView } from "../fault/faultEquations.ts";
 import { faultMagnitudes } from "../fault/faultCurrentMagnitude.ts";
 import { voltageFactor } from "../iec60909/factors.ts";
@@ -119,6 +125,10 @@ export function sweepReopened(ctx: ReopenContext, ends: readonly OpenEnd[], opti
   const overrides: SweepResult["deviceData"]["overrides"] = [];
   const injR = new Float64Array(J);
   const injI = new Float64Array(J);
+  const islands = new Map<number, IslandUnits>();
+  const aff = new FaultAffine();
+  const seq = new Float64Array(6);
+  const mags = { ikss: 0, maxPhase: 0 };
 
   for (let b = 0; b < B; b++) {
     const k = model.busNode.get(busIds[b]);
@@ -156,8 +166,7 @@ export function sweepReopened(ctx: ReopenContext, ends: readonly OpenEnd[], opti
         overrides.push({ b, t, seq_A });
       });
     };
-    const closedForm = used === "iec" || J === 0;
-    if (!closedForm || sys[1].floating[sys[1].comp[k]] || sys[2].floating[sys[2].comp[k]] || faultFallback(ctx, location) !== null) {
+    if (sys[1].floating[sys[1].comp[k]] || sys[2].floating[sys[2].comp[k]] || faultFallback(ctx, location) !== null) {
       oneByOne();
       continue;
     }
@@ -214,6 +223,52 @@ export function sweepReopened(ctx: ReopenContext, ends: readonly OpenEnd[], opti
       { floating: false, e: { re: 0, im: 0 }, z: z[2] as Cx },
     ];
     let undetermined = false;
+    if (used === "refined" && J > 0) {
+      // The refined converter model: each fault iterates on its island's units only, through the closed-form
+      // response of the unit voltages (unitResponse.ts), as the all-bus sweep does.
+      let isl = islands.get(node.island);
+      if (!isl) {
+        isl = islandUnits(model, node.island, colU);
+        islands.set(node.island, isl);
+      }
+      loadFaultColumns(isl.response, colU, isl.unitIdx, k);
+      const Jl = isl.unitIdx.length;
+      const z0 = z[0];
+      types.forEach((type, t) => {
+        aff.load(type, z0, z1, z[2] as Cx, zf);
+        if (!aff.consistent) undetermined = true;
+        isl.vpre.fill(c);
+        const report = Jl > 0 ? iterateInjections(isl.units, responseFromAffine(isl.response, aff, c, isl.g), isl.vpre, isl.work) : null;
+        if (report && !report.converged) messages.push({ level: "warning", code: "inverter-not-converged", text: `${type} fault at bus ${busIds[b]}: the refined inverter iteration did not converge` });
+        const w = isl.work;
+        // E1 = c + sum Z1[k, u] x1_u, E2 = sum Z2[k, u] x2_u
+        let er1 = c;
+        let ei1 = 0;
+        let er2 = 0;
+        let ei2 = 0;
+        const r = isl.response;
+        for (let l = 0; l < Jl; l++) {
+          er1 += r.z1r[l] * w.x1r[l] - r.z1i[l] * w.x1i[l];
+          ei1 += r.z1r[l] * w.x1i[l] + r.z1i[l] * w.x1r[l];
+          er2 += r.z2r[l] * w.x2r[l] - r.z2i[l] * w.x2i[l];
+          ei2 += r.z2r[l] * w.x2i[l] + r.z2i[l] * w.x2r[l];
+        }
+        aff.apply(er1, ei1, er2, ei2, seq);
+        faultMagnitudesOf(type, seq, mags);
+        ikss_kA[b * T + t] = mags.ikss * iBase_kA;
+        maxPhase_kA[b * T + t] = mags.maxPhase * iBase_kA;
+        faultSeq_pu.set(seq, (b * T + t) * 6);
+        for (let l = 0; l < Jl; l++) {
+          const o = ((b * T + t) * J + isl.unitIdx[l]) * 6;
+          inj_pu[o + 2] = w.x1r[l];
+          inj_pu[o + 3] = w.x1i[l];
+          inj_pu[o + 4] = w.x2r[l];
+          inj_pu[o + 5] = w.x2i[l];
+        }
+      });
+      if (undetermined) oneByOne();
+      continue;
+    }
     types.forEach((type, t) => {
       const fp = faultEquations(type, views, zf);
       if (!fp.consistent) undetermined = true;
@@ -259,4 +314,20 @@ export function sweepReopened(ctx: ReopenContext, ends: readonly OpenEnd[], opti
     },
     messages,
   };
+}
+
+/** An island's converters and the workspace their iteration reuses for every bus and fault type. */
+interface IslandUnits {
+  unitIdx: number[];
+  units: ReturnType<typeof compactUnits>;
+  response: FaultCoupledResponse;
+  work: InjectionWork;
+  vpre: Float64Array;
+  g: Float64Array;
+}
+
+function islandUnits(model: Model, island: number, colU: ComplexVec[][]): IslandUnits {
+  const unitIdx = model.inverters.map((u, j) => (model.nodes[u.node].island === island ? j : -1)).filter((j) => j >= 0);
+  const J = unitIdx.length;
+  return { unitIdx, units: compactUnits(model, unitIdx), response: new FaultCoupledResponse(J, unitBlock(model, unitIdx, colU)), work: new InjectionWork(J), vpre: new Float64Array(J), g: new Float64Array(8) };
 }

@@ -7,6 +7,10 @@ import { TimeCurrentView } from "../analysis/TimeCurrentView.tsx";
 import { useStudyStore } from "../fault/studyStore.ts";
 import { useSessionStore } from "../store/sessionStore.ts";
 import { selectCase } from "../fault/studyCommands.ts";
+import { useCallback } from "react";
+import type { MatrixRow } from "../../src/study/types.ts";
+import { useDocumentStore } from "../store/documentStore.ts";
+import { rowGroupByName, rowLabelByName } from "./caseNames.ts";
 
 function ChainView() {
   const { caseResult, caseVerdicts, caseError } = useStudyStore();
@@ -26,7 +30,20 @@ function ChainView() {
 
 function VerdictView() {
   const { full, caseResult } = useStudyStore();
-  return <VerdictPane matrix={full?.matrix ?? null} verdicts={full?.verdicts ?? []} selectedCaseId={caseResult?.faultCase.id ?? null} onSelectCase={selectCase} />;
+  const doc = useDocumentStore((s) => s.doc);
+  // names, with the id beside them; stable per document so the pane's grouping memo holds
+  const labelOfRow = useCallback((row: MatrixRow) => rowLabelByName(doc, row), [doc]);
+  const groupOfRow = useCallback((row: MatrixRow) => rowGroupByName(doc, row), [doc]);
+  return (
+    <VerdictPane
+      matrix={full?.matrix ?? null}
+      verdicts={full?.verdicts ?? []}
+      selectedCaseId={caseResult?.faultCase.id ?? null}
+      onSelectCase={selectCase}
+      labelOfRow={labelOfRow}
+      groupOfRow={groupOfRow}
+    />
+  );
 }
 
 export function studioPanes(): PaneEntry[] {

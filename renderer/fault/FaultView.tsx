@@ -3,10 +3,13 @@
 import { useFaultStore } from "./faultStore.ts";
 import { useSessionStore } from "../store/sessionStore.ts";
 import { fmt } from "../canvas/nodes/formatting.ts";
+import { useDocumentStore } from "../store/documentStore.ts";
+import { nameWithId } from "../app/caseNames.ts";
 
 export function FaultView() {
   const { overlay, result, status, error } = useFaultStore();
   const target = useSessionStore((s) => s.faultTarget);
+  const doc = useDocumentStore((s) => s.doc);
   if (!target) return <p className="pane-empty">Select a bus (or a cable) and press F, or use "Fault here", to see the fault currents on the one-line.</p>;
   if (status === "error") return <p className="pane-empty msg-error">{error}</p>;
   // while a recalculation runs the previous figures stay up, so the pane does not flicker on every edit
@@ -40,7 +43,7 @@ export function FaultView() {
         <tbody>
           {result.buses.map((b) => (
             <tr key={b.bus}>
-              <td>{b.bus}</td>
+              <td>{nameWithId(doc, b.bus)}</td>
               <td>{b.energized ? `${fmt(Math.min(...b.phase_pu.map((p) => p.mag)) * 100)} %` : "not energised"}</td>
             </tr>
           ))}

@@ -19,6 +19,8 @@ export interface VerdictPaneProps {
   selectedCaseId?: string | null;
   /** A cell was clicked: select this case (and scenario) on the canvas and in every pane. */
   onSelectCase?: (caseId: string, scenarioId: string) => void;
+  /** A row's label (default: the study's label); the studio passes one with element names. */
+  labelOfRow?: (row: MatrixRow) => string;
   /** How rows are grouped (default: by the location part of the row id, i.e. the faulted bus or line). */
   groupOfRow?: (row: MatrixRow) => { key: string; label: string };
   /** Filters to start with (default: every status and every kind). */
@@ -52,6 +54,7 @@ export function VerdictPane(props: VerdictPaneProps) {
   const { height: viewport } = useElementSize(scrollRef);
 
   const byId = useMemo(() => new Map(verdicts.map((v) => [v.id, v])), [verdicts]);
+  const rowLabel = (row: MatrixRow) => props.labelOfRow?.(row) ?? row.label;
   const shown = useMemo(
     () => (matrix ? buildShownMatrix(matrix, byId, { statuses, kinds }, props.groupOfRow) : null),
     [matrix, byId, statuses, kinds, props.groupOfRow],
@@ -193,11 +196,11 @@ export function VerdictPane(props: VerdictPaneProps) {
                   </div>
                 ) : (
                   <div key={`r:${item.row.row.id}`} className="verdict-row" style={gridStyle} role="row">
-                    <div className="verdict-case-label" title={item.row.row.label}>
-                      {item.row.row.label}
+                    <div className="verdict-case-label" title={rowLabel(item.row.row)}>
+                      {rowLabel(item.row.row)}
                     </div>
                     {item.row.cells.map((cell, k) => (
-                      <MatrixCellButton key={matrix.scenarios[k].id} cell={cell} scenarioName={matrix.scenarios[k].name} caseLabel={item.row.row.label} selected={cell !== null && cell.caseId === selectedCaseId} onSelect={onSelectCase} />
+                      <MatrixCellButton key={matrix.scenarios[k].id} cell={cell} scenarioName={matrix.scenarios[k].name} caseLabel={rowLabel(item.row.row)} selected={cell !== null && cell.caseId === selectedCaseId} onSelect={onSelectCase} />
                     ))}
                   </div>
                 ),
@@ -224,7 +227,7 @@ export function VerdictPane(props: VerdictPaneProps) {
             ) : (
               <>
                 <h3>
-                  {selectedRow?.label ?? selectedCell.caseId} — {selectedScenario?.name ?? selectedCell.scenario}
+                  {selectedRow ? rowLabel(selectedRow) : selectedCell.caseId} — {selectedScenario?.name ?? selectedCell.scenario}
                 </h3>
                 {details.kept.length === 0 ? <div className="ap-empty">No verdict of this case matches the filters.</div> : null}
                 {details.kept.map((v) => (

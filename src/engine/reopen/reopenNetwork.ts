@@ -27,10 +27,12 @@ export interface ReopenContext {
   readonly project: Project;
   readonly options: CompileOptions;
   readonly base: CompiledNetwork;
-  /** Opened sets seen so far, by openSetKey. */
+  /** Opened sets kept, by openSetKey, least recently used first (at most `maxSets`). */
   readonly sets: Map<string, ReopenedSet>;
-  /** Base Z' columns at nodes, per base sequence system. */
-  readonly columns: WeakMap<SequenceSystem, Map<number, ComplexVec>>;
+  readonly maxSets: number;
+  /** Base Z' columns at nodes, by "system index:node", least recently used first (at most `maxColumns`). */
+  readonly columns: Map<string, ComplexVec>;
+  readonly maxColumns: number;
   /**
    * How many faults the update answered (fast) and how many it did not (reference: a fresh compile, or a line
    * point's split network factorized afresh), with the reasons and their counts.
@@ -49,30 +51,48 @@ export interface ReopenedSet {
   reference: CompiledNetwork | null;
 }
 
-/** A context for re-solves of `base`, which must be compileNetwork(project, options) (without openEnds). */
-export function createReopenContext(project: Project, options: CompileOptions, base?: CompiledNetwork): ReopenContext {
+/** Memory the cached base columns may take (each is 16 bytes per node). */
+const COLUMN_BUDGET_BYTES = 256 * 2 ** 20;
+/** Opened sets kept at once (each holds its updated systems: a few columns and a copy of w per sequence). */
+const MAX_SETS = 256;
+
+/**
+ * A context for re-solves of `base`, which must be compileNetwork(project, options) (without openEnds). The caches
+ * are bounded (least recently used go first): `limits` overrides how many opened sets and base columns are kept.
+ */
+export function createReopenContext(project: Project, options: CompileOptions, base?: CompiledNetwork, limits: { maxSets?: number; maxColumns?: number } = {}): ReopenContext {
   let net = base;
   if (!net) {
     const r = compileNetwork(project, { ...options, openEnds: undefined });
     if (!r.ok) throw new Error(r.errors.map((e) => e.text).join("; "));
     net = r.network;
   }
-  return { project, options: { ...options, openEnds: undefined }, base: net, sets: new Map(), columns: new WeakMap(), stats: { fast: 0, reference: 0, reasons: {} } };
+  const n = Math.max(1, net.nodes.length);
+  const maxColumns = limits.maxColumns ?? Math.max(64, Math.floor(COLUMN_BUDGET_BYTES / (16 * n)));
+  return { project, options: { ...options, openEnds: undefined }, base: net, sets: new Map(), maxSets: limits.maxSets ?? MAX_SETS, columns: new Map(), maxColumns, stats: { fast: 0, reference: 0, reasons: {} } };
+}
+
+/** Marks a cache entry as just used (a Map keeps insertion order), and drops the oldest beyond `max`. */
+function touch<V>(map: Map<string, V>, key: string, value: V, max: number): V {
+  map.delete(key);
+  map.set(key, value);
+  while (map.size > max) map.delete(map.keys().next().value as string);
+  return value;
 }
 
 /** The base column Z'[:, node] of a base system, cached. */
 function baseColumn(ctx: ReopenContext, sys: SequenceSystem, node: number): ComplexVec {
-  let m = ctx.columns.get(sys);
-  if (!m) {
-    m = new Map();
-    ctx.columns.set(sys, m);
-  }
-  let col = m.get(node);
-  if (!col) {
-    col = zColumn(sys, node);
-    m.set(node, col);
-  }
-  return col;
+  const key = `${systemIds.get(sys) ?? registerSystem(sys)}:${node}`;
+  return touch(ctx.columns, key, ctx.columns.get(key) ?? zColumn(sys, node), ctx.maxColumns);
+}
+
+/** A number per base sequence system, for the column keys (systems are never copied). */
+const systemIds = new WeakMap<SequenceSystem, number>();
+let nextSystemId = 1;
+function registerSystem(sys: SequenceSystem): number {
+  const id = nextSystemId++;
+  systemIds.set(sys, id);
+  return id;
 }
 
 /** The fresh compile of an opened set (the reference path), cached with the set. */
@@ -89,7 +109,7 @@ export function referenceNetwork(ctx: ReopenContext, set: ReopenedSet): Compiled
 export function reopenedSet(ctx: ReopenContext, ends: readonly OpenEnd[]): ReopenedSet {
   const key = openSetKey(ends);
   const hit = ctx.sets.get(key);
-  if (hit) return hit;
+  if (hit) return touch(ctx.sets, key, hit, ctx.maxSets);
   const list = [...new Map(ends.map((e) => [`${e.element}|${e.end}`, { element: e.element, end: e.end }])).values()];
   const byId = new Map(ctx.project.elements.map((e) => [e.id, e]));
   for (const e of list) if (!byId.has(e.element)) throw new Error(`Opened end ${e.element} (${e.end}): unknown element`);
@@ -100,8 +120,7 @@ export function reopenedSet(ctx: ReopenContext, ends: readonly OpenEnd[]): Reope
   } else {
     set = { key, ends: list, network: openedNetwork(ctx, list), fallback: null, reference: null };
   }
-  ctx.sets.set(key, set);
-  return set;
+  return touch(ctx.sets, key, set, ctx.maxSets);
 }
 
 /** A cache map whose entries (keys matching `pattern`) are made when first asked for. */

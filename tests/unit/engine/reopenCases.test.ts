@@ -139,6 +139,20 @@ describe("a ring opened at one end of a line", () => {
     expect(qctx.stats.reference).toBe(1);
   });
 
+  it("gives the same answers with caches bounded to one opened set and two base columns", () => {
+    // Eviction must never change a value: every re-solve against a fresh compile with the same ends open.
+    const small = createReopenContext(p, { limit: "max" }, ctx.base, { maxSets: 1, maxColumns: 2 });
+    const sets: OpenEnd[][] = [[{ element: "L3", end: "to" }], [{ element: "L1", end: "from" }], [{ element: "L2", end: "to" }, { element: "L3", end: "from" }]];
+    for (let round = 0; round < 2; round++)
+      for (const s of sets) {
+        const f = compileNetwork(p, { limit: "max", openEnds: s });
+        if (!f.ok) throw new Error("compile");
+        for (const b of ["A", "B", "C"]) expect(solveReopened(small, s, { kind: "bus", bus: b }, "LG").ikss_kA).toBeCloseTo(solveFault(f.network, { kind: "bus", bus: b }, "LG").ikss_kA, 12);
+      }
+    expect(small.sets.size).toBe(1);
+    expect(small.columns.size).toBeLessThanOrEqual(2);
+  });
+
   it("gives the same currents in the opened-set sweep", () => {
     const sweep = sweepReopened(ctx, ends, { types: ["3ph", "LG"] });
     const c = sweep.busIds.indexOf("C");

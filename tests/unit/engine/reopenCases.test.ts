@@ -137,6 +137,10 @@ describe("a ring opened at one end of a line", () => {
     expect(r.ikss_kA).toBeCloseTo((1.1 * 11) / (Math.sqrt(3) * mag(add(ZQ, add(zLine(1.5), zLine(3))) as MComplex)), 9);
     expect(r.messages.some((m) => m.code === "reopen-fresh-compile" && m.text.includes("switch S"))).toBe(true);
     expect(qctx.stats.reference).toBe(1);
+    // The opened-set sweep of that set is the sweep of the fresh compile.
+    const sweep = sweepReopened(qctx, [{ element: "S", end: "from" }], { types: ["3ph"] });
+    expect(sweep.ikss_kA[sweep.busIds.indexOf("B")]).toBeCloseTo(r.ikss_kA, 12);
+    expect(sweep.messages.some((m) => m.code === "reopen-fresh-compile")).toBe(true);
   });
 
   it("gives the same answers with caches bounded to one opened set and two base columns", () => {

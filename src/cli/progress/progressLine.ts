@@ -52,11 +52,11 @@ export function formatProgress(f: ProgressFigures): string {
 /**
  * Time left from the rate so far: `done` cases in `elapsed_ms` since the count started (the study's phases share
  * one cumulative count of fault cases), so elapsed x (total - done) / done. Nothing before a second has passed or
- * a case is done.
+ * a case is done, nor once all are.
  */
 export function estimateLeft_ms(done: number, total: number, elapsed_ms: number): number | null {
-  if (total <= 0 || done <= 0 || elapsed_ms < 1000) return null;
-  if (done >= total) return 0;
+  // with every case done the rest of the phase (verdicts, timelines) has no count to go by
+  if (total <= 0 || done <= 0 || done >= total || elapsed_ms < 1000) return null;
   return (elapsed_ms * (total - done)) / done;
 }
 

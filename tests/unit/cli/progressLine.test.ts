@@ -73,6 +73,7 @@ describe("progress line", () => {
     expect(estimateLeft_ms(1_250, 5_000, 10_000)).toBe(30_000);
     expect(estimateLeft_ms(0, 5_000, 10_000)).toBeNull();
     expect(estimateLeft_ms(10, 5_000, 500)).toBeNull();
+    expect(estimateLeft_ms(5_000, 5_000, 60_000)).toBeNull();
     expect(formatProgress({ label: "islet report", phase: "printing the PDF", done: 0, total: 0, elapsed_ms: 75_000, left_ms: null })).toBe("islet report: printing the PDF, 1:15 elapsed");
     expect(formatDuration(3_723_000)).toBe("1:02:03");
   });

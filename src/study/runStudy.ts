@@ -99,7 +99,7 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
       if (dev && !scenario.outOfService.includes(d) && !scenario.outOfService.includes(dev.at.element) && elements.get(dev.at.element) === undefined)
         warn(`${d}: located at ${dev.at.element} (${dev.at.end}), which is not in the project`);
     }
-    const ctx: JudgeContext = { net, model, criteria: project.criteria, elements, devices: net.devices, sides: sp.sides };
+    const ctx: JudgeContext = { net, isolation: sp.isolation, model, criteria: project.criteria, elements, devices: net.devices, sides: sp.sides };
     const loadLost = loadLostMemo(net);
     const limits = limitsOf(scenario);
     const sensLimit: FaultLimit = limits.includes("min") ? "min" : "max";

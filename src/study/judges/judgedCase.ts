@@ -3,7 +3,7 @@
 import type { Criteria, Element, ProtectiveDevice } from "../../model/schema.ts";
 import type { DeviceModel } from "../deviceModel.ts";
 import type { ProtectedSide } from "../deviceSides.ts";
-import type { IsolationPlan } from "../operation/expectedIsolation.ts";
+import type { IsolationContext, IsolationPlan } from "../operation/expectedIsolation.ts";
 import type { SimulationOutcome } from "../operation/simulateCase.ts";
 import type { ScenarioNetwork } from "../scenarioNetwork.ts";
 import type { DeviceResponse, FaultCase } from "../types.ts";
@@ -29,6 +29,7 @@ export interface JudgedCase {
 
 export interface JudgeContext {
   net: ScenarioNetwork;
+  isolation: IsolationContext;
   model: DeviceModel;
   criteria: Criteria;
   elements: ReadonlyMap<string, Element>;

@@ -9,6 +9,7 @@ import { verdictId } from "../keys.ts";
 import { pairCti_s } from "../verdicts/selectivity.ts";
 import type { Verdict, VerdictStatus } from "../types.ts";
 import { fmtA, fmtS, round } from "../verdicts/format.ts";
+import { zoneAcross } from "../operation/zones.ts";
 import { deviceWords, named, type JudgeContext, type JudgedCase } from "./judgedCase.ts";
 
 const directActing = (kind: string | undefined): boolean => kind === "lvbreaker" || kind === "fuse";
@@ -22,14 +23,14 @@ function mechanism(ctx: JudgeContext, c: JudgedCase, id: string): { sympathetic:
     return { sympathetic: false, why: `disconnects ${named(ctx, element.id)} for a fault outside its zone: loss of generation` };
   const backupOf = c.failures.find((f) => f.plan.devices.includes(id));
   const side = ctx.sides.get(id) ?? "both";
-  const faultSide = c.plan.zones.length > 0 && ctx.net.edges[ctx.net.deviceEdge.get(id)!] ? sideOfFault(ctx, c, id) : "both";
+  const faultSide = sideOfFault(ctx, c, id);
   const earthElement = r?.operatingElement === "ground-fault" || (device.kind === "relay" && device.functions.find((f) => f.id === r?.operatingElement)?.quantity === "residual");
   if (earthElement && element?.kind === "transformer") {
     const earthed = device.at.end === "to" ? element.earthingLv : element.earthingHv;
     if (earthed && earthed.kind !== "isolated")
       return { sympathetic: false, why: `its earth-fault element opens ${named(ctx, element.id)}, removing that winding's earth from the faulted system` };
   }
-  if (side !== "both" && faultSide !== "both" && side !== faultSide)
+  if (side !== "both" && side !== faultSide)
     return { sympathetic: true, why: `trips on current flowing back to the fault from the healthy side it protects (${fmtA(r?.iPhase_A ?? 0)}); a directional element would restrain it` };
   if (backupOf) {
     const primary = c.plan.devices.filter((d) => ctx.net.deviceEdge.get(d) === backupOf.edge);
@@ -38,34 +39,29 @@ function mechanism(ctx: JudgeContext, c: JudgedCase, id: string): { sympathetic:
   return { sympathetic: false, why: `is outside the expected isolation` };
 }
 
-/** Which side of an unwanted device's location the fault lies on: the faulted zone's side. */
-function sideOfFault(ctx: JudgeContext, c: JudgedCase, id: string): "element" | "bus" | "both" {
-  const edge = ctx.net.edges[ctx.net.deviceEdge.get(id)!];
-  // the device's element end reaches the fault without crossing the device: the fault is on the element side
-  return elementSideHoldsFault(ctx, c, edge.index) ? "element" : "bus";
-}
-
-function elementSideHoldsFault(ctx: JudgeContext, c: JudgedCase, edgeIndex: number): boolean {
+/** Which side of an unwanted device's location the fault lies on: where the fault's zone is reached from. */
+function sideOfFault(ctx: JudgeContext, c: JudgedCase, id: string): "element" | "bus" {
+  const edgeIndex = ctx.net.deviceEdge.get(id)!;
   const edge = ctx.net.edges[edgeIndex];
-  const target = faultNodeOf(c);
-  const seen = new Set<string>([edge.elementKey]);
-  const queue = [edge.elementKey];
+  const zones = ctx.isolation.zones;
+  const target = zones.zoneOf.get(c.fc.location.kind === "bus" ? `b:${c.fc.location.bus}` : `e:${c.fc.location.line}`);
+  // walk the zone graph from the element side without crossing the device's own edge
+  const start = zones.zoneOf.get(edge.elementKey)!;
+  const seen = new Set<number>([start]);
+  const queue = [start];
   for (let q = 0; q < queue.length; q++) {
-    if (queue[q] === target) return true;
-    for (const i of ctx.net.adjacency.get(queue[q]) ?? []) {
-      if (i === edgeIndex) continue;
-      const e = ctx.net.edges[i];
-      const next = queue[q] === e.busKey ? e.elementKey : e.busKey;
+    if (queue[q] === target) return "element";
+    for (const e of zones.rim[queue[q]]) {
+      if (e === edgeIndex) continue;
+      const next = zoneAcross(zones, ctx.net, e, queue[q]);
       if (!seen.has(next)) {
         seen.add(next);
         queue.push(next);
       }
     }
   }
-  return false;
+  return "bus";
 }
-
-const faultNodeOf = (c: JudgedCase): string => (c.fc.location.kind === "bus" ? `b:${c.fc.location.bus}` : `e:${c.fc.location.line}`);
 
 export function judgeSelectivity(ctx: JudgeContext, c: JudgedCase): Verdict[] {
   const out: Verdict[] = [];

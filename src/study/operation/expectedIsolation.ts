@@ -169,3 +169,41 @@ export function backupDevices(plan: IsolationPlan, failure: IsolationPlan): stri
   const own = new Set(plan.devices);
   return failure.devices.filter((d) => !own.has(d));
 }
+
+/**
+ * The live sources still connected to zone `start` with the boundary edges `open` open. Devices open only
+ * their own edges, which are zone boundaries, so connectivity is a walk over the zone graph (a hundred
+ * zones where the network graph has thousands of nodes).
+ */
+export function liveFeeding(ctx: IsolationContext, start: number, open: ReadonlySet<number>): string[] {
+  const found: string[] = [...(ctx.liveIn.get(start) ?? [])];
+  const seen = new Set<number>([start]);
+  const queue = [start];
+  for (let q = 0; q < queue.length; q++) {
+    for (const edge of ctx.zones.rim[queue[q]]) {
+      if (open.has(edge)) continue;
+      const next = zoneAcross(ctx.zones, ctx.net, edge, queue[q]);
+      if (seen.has(next)) continue;
+      seen.add(next);
+      queue.push(next);
+      const live = ctx.liveIn.get(next);
+      if (live) found.push(...live);
+    }
+  }
+  return found;
+}
+
+/** The zones connected to zone `start` with no device open. */
+export function zonesConnected(ctx: IsolationContext, start: number): Set<number> {
+  const seen = new Set<number>([start]);
+  const queue = [start];
+  for (let q = 0; q < queue.length; q++)
+    for (const edge of ctx.zones.rim[queue[q]]) {
+      const next = zoneAcross(ctx.zones, ctx.net, edge, queue[q]);
+      if (!seen.has(next)) {
+        seen.add(next);
+        queue.push(next);
+      }
+    }
+  return seen;
+}

@@ -15,7 +15,7 @@ import type { ScenarioNetwork } from "../scenarioNetwork.ts";
 import type { DeviceReading, FaultSnapshot, OpenEnd } from "../studySolver.ts";
 import type { DeviceResponse } from "../types.ts";
 import type { WithstandFn } from "../withstand.ts";
-import { energisingFeeding } from "./supply.ts";
+import { liveFeeding, type IsolationContext } from "./expectedIsolation.ts";
 
 export type OperationAction = "trip" | "open" | "melt" | "clear" | "stuck";
 
@@ -56,7 +56,11 @@ export interface SimulationOutcome {
 
 export interface SimulationInput {
   net: ScenarioNetwork;
-  faultNode: string;
+  /** The scenario's zone graph and the zone the fault lies in (isolation is decided on zones). */
+  isolation: IsolationContext;
+  faultZone: number;
+  /** Whether the fault is already separated from every energising source it can be (no source connected). */
+  isolatedAtStart: boolean;
   model: DeviceModel;
   horizon_s: number;
   /** Energising sources no device can separate from the fault (their feed is the utility's to clear). */
@@ -68,11 +72,43 @@ export interface SimulationInput {
   recordCurrents?: boolean;
 }
 
+/**
+ * The first network state of a case, worked out once and shared by the case's simulations (the normal one
+ * and each stuck-breaker variant run alike until the first opening): from rest at constant current every
+ * element travels linearly, so the devices operate in the order of their nominal times, and each element's
+ * withstand is used at a constant rate.
+ */
+export interface FirstState {
+  snap: FaultSnapshot;
+  /** Devices that operate at these currents, by nominal trip time (s from fault inception). */
+  order: { id: string; trip_s: number; clearing_s: number }[];
+  /** Withstand use per second of each device edge at these currents. */
+  rates: { edge: number; element: string; end: "from" | "to" | "terminal"; rate: number; i_A: number }[];
+}
+
+export function firstState(net: ScenarioNetwork, snap: FaultSnapshot, responses: ReadonlyMap<string, DeviceResponse>, withstand: WithstandFn): FirstState {
+  const order: FirstState["order"] = [];
+  for (const [id, r] of responses) if (r.tOperate_s !== null && net.deviceEdge.has(id)) order.push({ id, trip_s: r.tOperate_s, clearing_s: r.tClear_s ?? r.tOperate_s });
+  order.sort((a, b) => a.trip_s - b.trip_s);
+  const rates: FirstState["rates"] = [];
+  const seen = new Set<number>();
+  for (const id in snap.readings) {
+    const edge = net.deviceEdge.get(id);
+    if (edge === undefined || seen.has(edge)) continue;
+    seen.add(edge);
+    const i = phaseMax(snap.readings[id]);
+    if (!(i > 0)) continue;
+    const e = net.edges[edge];
+    const t = withstand(net.elements.get(e.element), e.end, i);
+    if (Number.isFinite(t) && t > 0) rates.push({ edge, element: e.element, end: e.end, rate: 1 / t, i_A: i });
+  }
+  return { snap, order, rates };
+}
+
+type NetEdgeKey = number;
+
 const NO_CURRENT: Measurement = { phase_A: [0, 0, 0], residual_A: 0, negative_A: 0 };
 const EPS = 1e-9;
-
-/** An answer timed from rest, less the time already spent at the same currents. */
-const shifted = (r: { trip_s: number; clearing_s: number }, t_s: number) => ({ trip_s: r.trip_s - t_s, clearing_s: r.clearing_s - t_s });
 
 /** Device currents of a state above 1 % of its largest, rounded to 0.1 A. */
 function stateCurrents(snap: FaultSnapshot): { device: string; i_A: number }[] {
@@ -94,14 +130,14 @@ export class CaseSimulation {
   private isolatedAt: number | null = null;
   private finished = false;
   private resolves = 0;
-  /** While in the first state (from rest, currents constant): the devices' nominal answers there. */
-  private firstState: ReadonlyMap<string, DeviceResponse> | null = null;
-  private readonly use = new Map<string, WithstandUse>();
+
+  /** Withstand use per device edge (a series element carries one current at both ends). */
+  private readonly use = new Map<NetEdgeKey, WithstandUse>();
   private readonly stuck: ReadonlySet<number>;
 
   constructor(private readonly input: SimulationInput) {
     this.stuck = input.stuck ?? new Set();
-    if (this.isIsolated()) {
+    if (input.isolatedAtStart) {
       this.isolatedAt = 0;
       this.finished = true;
     }
@@ -112,8 +148,8 @@ export class CaseSimulation {
   }
 
   private isIsolated(): boolean {
-    const { net, faultNode, outOfReach } = this.input;
-    return energisingFeeding(net, faultNode, this.open).every((s) => outOfReach.includes(s));
+    const { isolation, faultZone, outOfReach } = this.input;
+    return liveFeeding(isolation, faultZone, this.open).every((s) => outOfReach.includes(s));
   }
 
   private measured(snap: FaultSnapshot, id: string): Measurement {
@@ -127,10 +163,8 @@ export class CaseSimulation {
     this.steps.push(s);
   }
 
-  /** Leaves the first state: every device's travel after this.t seconds at the first state's currents. */
+  /** Every device's travel after this.t seconds at the first state's currents (from rest). */
   private leaveFirstState(snap: FaultSnapshot): void {
-    if (!this.firstState) return;
-    this.firstState = null;
     const { net, model } = this.input;
     for (const id in snap.readings) {
       if (this.tripped.has(id)) continue;
@@ -140,40 +174,107 @@ export class CaseSimulation {
     }
   }
 
+  private useRates(first: FirstState, dt: number): void {
+    if (!(dt > 0)) return;
+    for (const r of first.rates) {
+      if (this.open.has(r.edge)) continue;
+      let u = this.use.get(r.edge);
+      if (!u) this.use.set(r.edge, (u = { element: r.element, end: r.end, used: 0, peak_A: 0 }));
+      u.used += dt * r.rate;
+      if (r.i_A > u.peak_A) u.peak_A = r.i_A;
+    }
+  }
+
+  /** Opens the breakers due by this.t; true when one opened. */
+  private openDue(snap: FaultSnapshot): boolean {
+    const { net } = this.input;
+    let opened = false;
+    const still: { device: string; at_s: number }[] = [];
+    for (const p of this.pending) {
+      if (p.at_s > this.t + EPS) {
+        still.push(p);
+        continue;
+      }
+      const device = net.devices.get(p.device)!;
+      const edge = net.deviceEdge.get(p.device)!;
+      if (this.open.has(edge)) continue;
+      if (this.stuck.has(edge)) {
+        this.step({ device: p.device, t_s: this.t, action: "stuck", element: device.at.element }, snap);
+        continue;
+      }
+      this.open.add(edge);
+      this.openEnds.push({ element: device.at.element, end: device.at.end });
+      opened = true;
+      this.step({ device: p.device, t_s: this.t, action: device.kind === "fuse" ? "clear" : "open", element: device.at.element }, snap);
+    }
+    this.pending = still;
+    return opened;
+  }
+
+  /** The first state, from its shared plan: devices trip in the order of their nominal times. */
+  private runFirstState(first: FirstState): OpenEnd[] | null {
+    const { net, horizon_s } = this.input;
+    let k = 0;
+    for (;;) {
+      while (k < first.order.length && this.tripped.has(first.order[k].id)) k++;
+      const nextTrip = k < first.order.length ? first.order[k].trip_s : Infinity;
+      const nextOpen = this.pending.reduce((m, p) => Math.min(m, p.at_s), Infinity);
+      const tNext = Math.min(nextTrip, nextOpen);
+      if (!(tNext <= horizon_s)) {
+        this.useRates(first, horizon_s - this.t);
+        this.finished = true;
+        return null;
+      }
+      this.useRates(first, tNext - this.t);
+      for (; k < first.order.length && first.order[k].trip_s <= tNext + EPS; k++) {
+        const o = first.order[k];
+        if (this.tripped.has(o.id)) continue;
+        this.tripped.set(o.id, tNext);
+        this.step({ device: o.id, t_s: tNext, action: net.devices.get(o.id)!.kind === "fuse" ? "melt" : "trip", element: null }, first.snap);
+        this.pending.push({ device: o.id, at_s: tNext + Math.max(0, o.clearing_s - o.trip_s) });
+      }
+      this.t = tNext;
+      if (!this.openDue(first.snap)) continue;
+      if (this.isIsolated()) {
+        this.isolatedAt = this.t;
+        this.finished = true;
+        return null;
+      }
+      this.leaveFirstState(first.snap);
+      return [...this.openEnds];
+    }
+  }
+
   /** Adds dt at this state's currents to the withstand use of every element a device measures. */
   private useWithstand(snap: FaultSnapshot, dt: number): void {
     if (!(dt > 0)) return;
     const { net, withstand } = this.input;
-    const seen = new Set<string>();
+    const seen = new Set<NetEdgeKey>();
     for (const id in snap.readings) {
-      const device = net.devices.get(id);
       const edge = net.deviceEdge.get(id);
-      if (!device || edge === undefined || this.open.has(edge)) continue;
-      const key = `${device.at.element}\u0000${device.at.end}`;
-      if (seen.has(key)) continue;
-      seen.add(key);
+      if (edge === undefined || this.open.has(edge) || seen.has(edge)) continue;
+      seen.add(edge);
       const i = phaseMax(snap.readings[id]);
       if (!(i > 0)) continue;
-      const t = withstand(net.elements.get(device.at.element), device.at.end, i);
+      const e = net.edges[edge];
+      const t = withstand(net.elements.get(e.element), e.end, i);
       if (!Number.isFinite(t)) continue;
-      let u = this.use.get(key);
-      if (!u) this.use.set(key, (u = { element: device.at.element, end: device.at.end, used: 0, peak_A: 0 }));
+      let u = this.use.get(edge);
+      if (!u) this.use.set(edge, (u = { element: e.element, end: e.end, used: 0, peak_A: 0 }));
       u.used += dt / t;
       if (i > u.peak_A) u.peak_A = i;
     }
   }
 
   /**
-   * Advances through the state `snap` describes. `responses` (first state only, optional) are the devices'
-   * nominal answers there: from rest at constant current every element travels linearly, so the time left
-   * is the nominal time less the time spent, and no accumulation is needed unless the case goes on past
-   * the first state. Returns the element ends open in the next state, or null when the case is finished.
+   * Advances through the state `snap` describes, or, at the start, through the case's shared first state.
+   * Returns the element ends open in the next state, or null when the case is finished.
    */
-  advance(snap: FaultSnapshot, responses?: ReadonlyMap<string, DeviceResponse>): OpenEnd[] | null {
+  advance(snap: FaultSnapshot | FirstState): OpenEnd[] | null {
     if (this.finished) return null;
+    if ("order" in snap) return this.runFirstState(snap);
+    this.resolves++;
     const { net, model, horizon_s } = this.input;
-    if (this.t === 0 && this.steps.length === 0 && responses) this.firstState = responses;
-    else this.resolves++;
     for (let guard = 0; guard < 4 * net.devices.size + 8; guard++) {
       // time still needed by every device that has not tripped, at this state's currents
       const left = new Map<string, { trip_s: number; clearing_s: number }>();
@@ -184,12 +285,7 @@ export class CaseSimulation {
         if (this.tripped.has(id)) continue;
         const device = net.devices.get(id) as ProtectiveDevice | undefined;
         if (!device || !net.deviceEdge.has(id)) continue;
-        const r = this.firstState?.get(id);
-        const res = r
-          ? { trip_s: (r.tOperate_s ?? Infinity) - this.t, clearing_s: (r.tClear_s ?? Infinity) - this.t }
-          : this.firstState
-            ? shifted(model.timeToOperate(initialTravel(), device, this.measured(snap, id)), this.t)
-            : model.timeToOperate(this.travel.get(id) ?? initialTravel(), device, this.measured(snap, id));
+        const res = model.timeToOperate(this.travel.get(id) ?? initialTravel(), device, this.measured(snap, id));
         if (!Number.isFinite(res.trip_s)) continue;
         left.set(id, res);
         nextTrip = Math.min(nextTrip, this.t + Math.max(0, res.trip_s));
@@ -203,16 +299,14 @@ export class CaseSimulation {
       }
       const dt = tNext - this.t;
       this.useWithstand(snap, dt);
-      if (!this.firstState)
-        for (const id of candidates) {
-          if (this.tripped.has(id)) continue;
-          const device = net.devices.get(id);
-          if (!device || !net.deviceEdge.has(id)) continue;
-          this.travel.set(id, model.accumulate(this.travel.get(id) ?? initialTravel(), device, this.measured(snap, id), dt));
-        }
+      for (const id of candidates) {
+        if (this.tripped.has(id)) continue;
+        const device = net.devices.get(id);
+        if (!device || !net.deviceEdge.has(id)) continue;
+        this.travel.set(id, model.accumulate(this.travel.get(id) ?? initialTravel(), device, this.measured(snap, id), dt));
+      }
       for (const [id, res] of left) {
-        const operated = !this.firstState && this.travel.get(id)?.operated;
-        if (!(operated || this.t + res.trip_s <= tNext + EPS)) continue;
+        if (!(this.travel.get(id)?.operated || this.t + res.trip_s <= tNext + EPS)) continue;
         const device = net.devices.get(id)!;
         this.tripped.set(id, tNext);
         this.travel.delete(id);
@@ -220,33 +314,12 @@ export class CaseSimulation {
         this.pending.push({ device: id, at_s: tNext + Math.max(0, res.clearing_s - res.trip_s) });
       }
       this.t = tNext;
-      let opened = false;
-      const still: { device: string; at_s: number }[] = [];
-      for (const p of this.pending) {
-        if (p.at_s > this.t + EPS) {
-          still.push(p);
-          continue;
-        }
-        const device = net.devices.get(p.device)!;
-        const edge = net.deviceEdge.get(p.device)!;
-        if (this.open.has(edge)) continue;
-        if (this.stuck.has(edge)) {
-          this.step({ device: p.device, t_s: this.t, action: "stuck", element: device.at.element }, snap);
-          continue;
-        }
-        this.open.add(edge);
-        this.openEnds.push({ element: device.at.element, end: device.at.end });
-        opened = true;
-        this.step({ device: p.device, t_s: this.t, action: device.kind === "fuse" ? "clear" : "open", element: device.at.element }, snap);
-      }
-      this.pending = still;
-      if (!opened) continue;
+      if (!this.openDue(snap)) continue;
       if (this.isIsolated()) {
         this.isolatedAt = this.t;
         this.finished = true;
         return null;
       }
-      this.leaveFirstState(snap);
       return [...this.openEnds];
     }
     this.finished = true;

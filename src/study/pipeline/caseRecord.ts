@@ -4,9 +4,7 @@
 import type { ScenarioNetwork } from "../scenarioNetwork.ts";
 import { backupDevices } from "../operation/expectedIsolation.ts";
 import type { SimulationOutcome } from "../operation/simulateCase.ts";
-import { followingSources } from "../operation/sources.ts";
-import { deenergised, energisingFeeding } from "../operation/supply.ts";
-import { elementNode, reachable } from "../scenarioNetwork.ts";
+import { deenergised } from "../operation/supply.ts";
 import type { CaseOperation, CaseResult, ChainLink, DeviceResponse, FaultChains, OperationStep, Verdict } from "../types.ts";
 import { judgeBackup } from "../judges/backup.ts";
 import type { FailureCase, JudgeContext, JudgedCase } from "../judges/judgedCase.ts";
@@ -73,8 +71,6 @@ export function caseRecord(ctx: JudgeContext, c: SimulatedCase, atSensitivityLim
       : [];
   const expectedEdges = new Set(c.lp.plan.edges);
   const unwanted = [...c.outcome.tripped.keys()].filter((d) => !expectedEdges.has(net.deviceEdge.get(d) ?? -1));
-  const node = c.fc.location.kind === "bus" ? `b:${c.fc.location.bus}` : `e:${c.fc.location.line}`;
-  const seen = reachable(net, node, new Set());
   const operation: CaseOperation = {
     zoneBuses: c.lp.zoneBuses,
     ideal: c.lp.plan.devices,
@@ -84,9 +80,9 @@ export function caseRecord(ctx: JudgeContext, c: SimulatedCase, atSensitivityLim
     })),
     restrained: c.lp.plan.restrained,
     outOfReach: c.lp.plan.outOfReach,
-    selfCeasing: followingSources(net).filter((s) => seen.has(elementNode(s))),
+    selfCeasing: c.lp.selfCeasing,
     operations: steps(c.outcome),
-    isolated_s: c.iFault_A >= 1 ? c.outcome.isolated_s : energisingFeeding(net, node, new Set()).length === 0 ? 0 : null,
+    isolated_s: c.iFault_A >= 1 || c.lp.isolatedAtStart ? c.outcome.isolated_s : null,
     unwanted,
     loadLost_kW: round1(loadLost(c.outcome.openEdges)),
     idealLoadLost_kW: round1(loadLost(c.lp.plan.edges)),
@@ -109,12 +105,26 @@ export function caseRecord(ctx: JudgeContext, c: SimulatedCase, atSensitivityLim
   const result: CaseResult = {
     faultCase: c.fc,
     iFault_A: c.iFault_A,
-    responses: [...c.responses.values()],
+    responses: keptResponses(c),
     chains: chainsOf(c, failures, net),
     operation,
     verdictIds: verdicts.map((v) => v.id),
   };
   return { result, verdicts };
+}
+
+/**
+ * The responses a case keeps: every device that picks up, takes part in the isolation or its backups, or
+ * carries at least KEEP_SHARE of the largest device current; the rest carry rounding residue of remote
+ * infeeds and would only multiply a large study's memory.
+ */
+const KEEP_SHARE = 0.01;
+function keptResponses(c: SimulatedCase): DeviceResponse[] {
+  let peak = 0;
+  for (const r of c.responses.values()) if (r.iPhase_A > peak) peak = r.iPhase_A;
+  const out: DeviceResponse[] = [];
+  for (const r of c.responses.values()) if (r.pickedUp || r.role !== "none" || r.iPhase_A >= KEEP_SHARE * peak || c.outcome.tripped.has(r.device)) out.push(r);
+  return out;
 }
 
 function setRole(c: SimulatedCase, device: string, role: DeviceResponse["role"], sources: string[]): void {

@@ -3,7 +3,7 @@
 import type { Project } from "../../model/schema.ts";
 import type { DeviceModel } from "../deviceModel.ts";
 import { deviceResponse } from "../deviceResponse.ts";
-import { CaseSimulation } from "../operation/simulateCase.ts";
+import { CaseSimulation, firstState } from "../operation/simulateCase.ts";
 import { deenergised } from "../operation/supply.ts";
 import type { StudySolver } from "../studySolver.ts";
 import type { CaseResult, ClearingTimeline, DeviceResponse, TimelineEvent } from "../types.ts";
@@ -24,12 +24,12 @@ export function replayTimeline(args: {
   const fc = result.faultCase;
   const lp = sp.plans.get(fc.faultType)![index];
   const horizon_s = project.criteria.horizon_s;
-  const sim = new CaseSimulation({ net: sp.net, faultNode: sp.nodes[index], model, horizon_s, outOfReach: lp.plan.outOfReach, withstand: args.withstand, recordCurrents: true });
+  const sim = new CaseSimulation({ net: sp.net, isolation: sp.isolation, faultZone: lp.faultZone, isolatedAtStart: lp.isolatedAtStart, model, horizon_s, outOfReach: lp.plan.outOfReach, withstand: args.withstand, recordCurrents: true });
   let snap = solver.solveOne(sp.scenario, fc.location, fc.faultType, fc.limit, []);
   const responses = new Map<string, DeviceResponse>();
   for (const id in snap.readings) if (sp.net.deviceEdge.has(id)) responses.set(id, deviceResponse(sp.net.devices.get(id)!, snap.readings[id], model));
   if (snap.iFault_A >= 1)
-    for (let open = sim.advance(snap, responses); open; open = sim.advance(snap)) snap = solver.solveOne(sp.scenario, fc.location, fc.faultType, fc.limit, open);
+    for (let open = sim.advance(firstState(sp.net, snap, responses, args.withstand)); open; open = sim.advance(snap)) snap = solver.solveOne(sp.scenario, fc.location, fc.faultType, fc.limit, open);
   const outcome = sim.outcome();
   const final = deenergised(sp.net, new Set(outcome.openEdges));
   const ideal = deenergised(sp.net, new Set(lp.plan.edges));

@@ -4,9 +4,10 @@
 import type { Project, Scenario } from "../../model/schema.ts";
 import { deviceSides, type ProtectedSide } from "../deviceSides.ts";
 import { faultLocations } from "../faultCases.ts";
-import { expectedIsolation, isolationContext, isolationWithFailure, type IsolationContext, type IsolationPlan } from "../operation/expectedIsolation.ts";
+import { expectedIsolation, isolationContext, isolationWithFailure, liveFeeding, zonesConnected, type IsolationContext, type IsolationPlan } from "../operation/expectedIsolation.ts";
+import { followingSources } from "../operation/sources.ts";
 import { protectionZones } from "../operation/zones.ts";
-import { scenarioNetwork, type ScenarioNetwork } from "../scenarioNetwork.ts";
+import { elementNode, scenarioNetwork, type ScenarioNetwork } from "../scenarioNetwork.ts";
 import { faultNode } from "../sourcePaths.ts";
 import type { FaultLocation, FaultType, StudyOptions } from "../types.ts";
 
@@ -16,6 +17,12 @@ export interface LocationPlan {
   failures: IsolationPlan[];
   /** Buses of the faulted zone. */
   zoneBuses: string[];
+  /** The zone the fault lies in (-1: a location outside the scenario's network). */
+  faultZone: number;
+  /** True when no energising source is connected to the fault, or only ones no device can separate. */
+  isolatedAtStart: boolean;
+  /** Grid-following converters connected to the fault: they cease to energise on their own protection. */
+  selfCeasing: string[];
 }
 
 export interface ScenarioPlan {
@@ -51,7 +58,16 @@ export function planScenario(project: Project, scenario: Scenario, types: readon
         let lp = byNode.get(node);
         if (!lp) {
           const plan = expectedIsolation(isolation, node, type);
-          lp = { plan, failures: plan.edges.map((edge) => isolationWithFailure(isolation, plan, edge, type)), zoneBuses: zoneBusesOf(isolation, plan) };
+          const faultZone = isolation.zones.zoneOf.get(node) ?? -1;
+          const connected = faultZone >= 0 ? zonesConnected(isolation, faultZone) : new Set<number>();
+          lp = {
+            plan,
+            failures: plan.edges.map((edge) => isolationWithFailure(isolation, plan, edge, type)),
+            zoneBuses: zoneBusesOf(isolation, plan),
+            faultZone,
+            isolatedAtStart: faultZone < 0 || liveFeeding(isolation, faultZone, new Set()).every((s) => plan.outOfReach.includes(s)),
+            selfCeasing: followingSources(net).filter((s) => connected.has(isolation.zones.zoneOf.get(elementNode(s)) ?? -1)),
+          };
           byNode.set(node, lp);
         }
         return lp;

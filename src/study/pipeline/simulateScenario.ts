@@ -7,7 +7,7 @@ import type { DeviceModel } from "../deviceModel.ts";
 import { deviceResponse } from "../deviceResponse.ts";
 import { caseId, caseLabel } from "../faultCases.ts";
 import { openSetKey } from "../keys.ts";
-import { CaseSimulation, type SimulationOutcome } from "../operation/simulateCase.ts";
+import { CaseSimulation, firstState, type SimulationOutcome } from "../operation/simulateCase.ts";
 import type { FaultSnapshot, OpenEnd, StudySolver } from "../studySolver.ts";
 import type { DeviceResponse, FaultCase, FaultLimit, FaultLocation, FaultType } from "../types.ts";
 import type { WithstandFn } from "../withstand.ts";
@@ -80,13 +80,13 @@ export async function simulateScenario(input: SimulateInput): Promise<SimulatedC
     const responses = new Map<string, DeviceResponse>();
     for (const id in snap.readings) if (net.deviceEdge.has(id)) responses.set(id, deviceResponse(net.devices.get(id)!, snap.readings[id], model));
     for (const id of lp.plan.devices) if (!responses.has(id)) responses.set(id, deviceResponse(net.devices.get(id)!, undefined, model));
-    const node = sp.nodes[i];
-    const normal = new CaseSimulation({ net, faultNode: node, model, horizon_s, outOfReach: lp.plan.outOfReach, withstand });
-    const failures = lp.plan.edges.map((edge, k) => new CaseSimulation({ net, faultNode: node, model, horizon_s, outOfReach: lp.failures[k].outOfReach, stuck: new Set([edge]), withstand }));
+    const normal = new CaseSimulation({ net, isolation: sp.isolation, faultZone: lp.faultZone, isolatedAtStart: lp.isolatedAtStart, model, horizon_s, outOfReach: lp.plan.outOfReach, withstand });
+    const failures = lp.plan.edges.map((edge, k) => new CaseSimulation({ net, isolation: sp.isolation, faultZone: lp.faultZone, isolatedAtStart: lp.isolatedAtStart, model, horizon_s, outOfReach: lp.failures[k].outOfReach, stuck: new Set([edge]), withstand }));
     // a fault that draws no current (an earth fault on an isolated-neutral section) is left to other protection
     if (snap.iFault_A >= 1) {
-      wait(normal.advance(snap, responses), normal, i);
-      for (const f of failures) wait(f.advance(snap, responses), f, i);
+      const first = firstState(net, snap, responses, withstand);
+      wait(normal.advance(first), normal, i);
+      for (const f of failures) wait(f.advance(first), f, i);
     }
     sims.push({ normal, failures });
     cases.push({ index: i, fc, iFault_A: snap.iFault_A, responses, lp, outcome: normal.outcome(), failureOutcomes: [], messages: snap.messages });

@@ -1,5 +1,6 @@
 // Public API of the fault engine. Everything else under src/engine is internal and may change.
 export * from "./types.ts";
+export { EngineFailure, failureMessage, NOT_SOLVED, OUT_OF_RANGE } from "./engineFailure.ts";
 export { compileNetwork } from "./network/compileNetwork.ts";
 export { solveFault } from "./fault/solveFault.ts";
 export { sweepFaults, sweepFaultsAsync, planSweep, allocateSweep, sweepTransfers, sweepBuses, assembleSweep, counter, SWEEP_CHUNK, type Claim, type SweepPlan, type SweepArrays, type SweepPartOutcome } from "./fault/sweepFaults.ts";

@@ -1,7 +1,7 @@
 // The fault table: I"k per bus and fault type, ip and X/R, for every scenario and every IEC 60909 limit the
 // scenario asks for. Read from the engine's all-bus sweep (the same engine the study uses).
 import type { Project } from "../model/schema.ts";
-import { compileNetwork, sweepFaults, FAULT_TYPES, type FaultType, type Limit } from "../engine/index.ts";
+import { compileNetwork, sweepFaults, EngineFailure, FAULT_TYPES, type FaultType, type Limit } from "../engine/index.ts";
 
 export interface FaultRow {
   scenario: string;
@@ -35,7 +35,15 @@ export function faultTable(project: Project): FaultTable {
         for (const e of compiled.errors) messages.push(`Scenario ${scenario.id} "${scenario.name}" (${limit}): ${e.text}`);
         continue;
       }
-      const sweep = sweepFaults(compiled.network, { types: [...FAULT_TYPES], buses: inService.map((b) => b.id), devices: [] });
+      let sweep: ReturnType<typeof sweepFaults>;
+      try {
+        sweep = sweepFaults(compiled.network, { types: [...FAULT_TYPES], buses: inService.map((b) => b.id), devices: [] });
+      } catch (err) {
+        // a network the engine could not solve gets no rows (never zeros), only the message naming the buses
+        if (!(err instanceof EngineFailure)) throw err;
+        messages.push(`Scenario ${scenario.id} "${scenario.name}" (${limit}): ${err.message}`);
+        continue;
+      }
       for (const m of sweep.messages)
         if (m.level !== "info") messages.push(`Scenario ${scenario.id} "${scenario.name}" (${limit}): ${m.text}`);
       const T = sweep.types.length;

@@ -16,6 +16,7 @@ import { inverterUnit } from "../elements/inverterUnit.ts";
 import { inv } from "../complex.ts";
 import { assignIslands } from "./assignIslands.ts";
 import { createEngineCache } from "./engineCache.ts";
+import { stampRangeErrors } from "./stampRange.ts";
 import { openStamps, openedBranch } from "./openEnds.ts";
 
 function err(text: string, element?: string): EngineMessage {
@@ -225,6 +226,8 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
     devices.push({ element: e.at.element, end: e.at.end });
   }
   const model: Model = { nodes, branches, shunts, inverters, busNode, baseMVA: opts.baseMVA, devices, islandLive: [] };
+  const rangeErrors = stampRangeErrors(model, new Map(project.elements.map((e) => [e.id, e] as const)), opts.baseMVA);
+  if (rangeErrors.length > 0) return { ok: false, errors: rangeErrors };
   const openEnds = (options.openEnds ?? []).filter((o) => !openSwitches.has(o.element));
   if (openEnds.length > 0) {
     try {

@@ -5,7 +5,8 @@
 import type { Model, Seq } from "./model.ts";
 import type { EngineCache } from "./engineCache.ts";
 import { minimumDegree, type Ordering } from "../sparse/minimumDegree.ts";
-import { factorLdlt, solveLdlt, type LdltFactor, type SymmetricTriplets } from "../sparse/ldlt.ts";
+import { factorLdlt, solveLdlt, SingularPivot, type LdltFactor, type SymmetricTriplets } from "../sparse/ldlt.ts";
+import { EngineFailure } from "../engineFailure.ts";
 import { applyLowRank, applyLowRankColumn, type LowRankUpdate } from "./lowRankUpdate.ts";
 
 export type Variant = "iec" | "refined";
@@ -22,6 +23,25 @@ export interface SequenceSystem {
   wim: Float64Array;
   /** A low-rank change of the factored matrix (element ends opened, see src/engine/reopen): Z' = Z - W H W^T. */
   update?: LowRankUpdate;
+}
+
+const SEQUENCE_NAMES = ["zero", "positive", "negative"] as const;
+
+/** The factorisation, or an EngineFailure naming the buses at the failing node and the elements meeting there. */
+function factorOrFail(a: SymmetricTriplets, model: Model, cache: EngineCache, seq: Seq): LdltFactor {
+  try {
+    return factorLdlt(a, modelOrdering(model, cache));
+  } catch (err) {
+    const node = err instanceof SingularPivot ? err.node : -1;
+    const buses = node >= 0 ? model.nodes[node].buses : [];
+    const elements = [...new Set([...model.branches.filter((b) => b.from === node || b.to === node), ...model.shunts.filter((x) => x.node === node)].map((x) => x.element))];
+    const where = buses.length ? ` at bus ${buses.join(", ")}${elements.length ? ` (elements there: ${elements.join(", ")})` : ""}` : "";
+    throw new EngineFailure(
+      `The ${SEQUENCE_NAMES[seq]}-sequence network could not be solved${where}: its equations are singular or overflow in floating point; check the impedances and ratings of those elements and meta.baseMVA`,
+      buses,
+      elements,
+    );
+  }
 }
 
 function modelOrdering(model: Model, cache: EngineCache): Ordering {
@@ -118,7 +138,7 @@ export function sequenceSystem(model: Model, cache: EngineCache, seq: Seq, varia
   }
   const { comp, floating, refs } = sequenceComponents(model, seq, variant);
   for (let c = 0; c < refs.length; c++) if (floating[c]) put(refs[c], refs[c], 1, 0);
-  const factor = factorLdlt(a, modelOrdering(model, cache));
+  const factor = factorOrFail(a, model, cache, seq);
   const wre = new Float64Array(n);
   const wim = new Float64Array(n);
   for (let c = 0; c < refs.length; c++) {

@@ -27,6 +27,16 @@ export interface LdltFactor {
 }
 
 /** Numeric factorisation on the ordering's pattern. Throws with the pivot index when a pivot vanishes. */
+/** A zero, NaN or overflowing pivot: the matrix is singular (or beyond floating point) at `node` (original index). */
+export class SingularPivot extends Error {
+  readonly node: number;
+  constructor(node: number) {
+    super(`singular pivot at node ${node}`);
+    this.node = node;
+    this.name = "SingularPivot";
+  }
+}
+
 export function factorLdlt(a: SymmetricTriplets, ordering: Ordering): LdltFactor {
   const { n } = a;
   const { inv, colPtr, rowIdx } = ordering;
@@ -96,7 +106,7 @@ export function factorLdlt(a: SymmetricTriplets, ordering: Ordering): LdltFactor
     const dr = wre[j];
     const di = wim[j];
     const mag2 = dr * dr + di * di;
-    if (!(mag2 > 0) || !Number.isFinite(mag2)) throw new Error(`singular pivot at node ${ordering.perm[j]}`);
+    if (!(mag2 > 0) || !Number.isFinite(mag2)) throw new SingularPivot(ordering.perm[j]);
     dre[j] = dr;
     dim[j] = di;
     wre[j] = 0;

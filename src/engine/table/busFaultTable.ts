@@ -4,6 +4,7 @@ import type { Project } from "../../model/schema.ts";
 import { FAULT_TYPES, CAUTION, type CompileOptions, type CompileResult, type CompiledNetwork, type EngineMessage, type Limit, type ResolvedOptions, type FaultType, type SweepOptions, type SweepResult } from "../types.ts";
 import { compileNetwork } from "../network/compileNetwork.ts";
 import { sweepFaults } from "../fault/sweepFaults.ts";
+import { EngineFailure, NOT_SOLVED, failureMessage } from "../engineFailure.ts";
 
 export interface BusFaultRow {
   bus: string;
@@ -59,7 +60,18 @@ export function busFaultRun(project: Project, task: BusFaultTask, c: CompileResu
     sw.types.forEach((t, ti) => (ikss[t] = sw.ikss_kA[b * T + ti]));
     return { bus, un_kV: unOf.get(bus) ?? 0, ikss_kA: ikss, ip_kA: sw.ip_kA[b], xr: sw.xr[b] };
   });
-  return { scenario: c.network.scenario, scenarioName: task.scenarioName, limit: task.limit, ok: true, options: sw.options, buses, messages: [...c.network.messages, ...sw.messages] };
+  // A figure the engine could not compute stays NaN (null in JSON, "-" in the table), and the run says which buses.
+  const unsolved = buses.filter((r) => ![...Object.values(r.ikss_kA), r.ip_kA, r.xr].every(Number.isFinite)).map((r) => r.bus);
+  const failed: EngineMessage[] = unsolved.length
+    ? [{ level: "error", code: NOT_SOLVED, text: `Buses ${unsolved.join(", ")}: the engine could not compute their fault currents (the result is not a finite number); check the impedances and ratings around them and meta.baseMVA`, element: unsolved[0] }]
+    : [];
+  return { scenario: c.network.scenario, scenarioName: task.scenarioName, limit: task.limit, ok: failed.length === 0, options: sw.options, buses, messages: [...failed, ...c.network.messages, ...sw.messages] };
+}
+
+/** The run of a network the solvers could not solve: no figures, the failure naming the buses and elements. */
+function unsolvedRun(task: BusFaultTask, c: CompileResult, err: EngineFailure): BusFaultRun {
+  const scenario = c.ok ? c.network.scenario : (task.scenarioId ?? "");
+  return { scenario, scenarioName: task.scenarioName, limit: task.limit, ok: false, options: null, buses: [], messages: [failureMessage(err)] };
 }
 
 /** Runs every (scenario, limit) pair, or the one scenario asked for. Throws only on an unknown scenario id. */
@@ -67,7 +79,12 @@ export function busFaultTable(project: Project, scenarioId?: string): BusFaultTa
   // One network at a time: built, swept, reduced to its rows, let go.
   const runs = busFaultTasks(project, scenarioId).map((task) => {
     const c = compileNetwork(project, task.compile);
-    return busFaultRun(project, task, c, c.ok ? sweepFaults(c.network, BUS_TABLE_SWEEP) : null);
+    try {
+      return busFaultRun(project, task, c, c.ok ? sweepFaults(c.network, BUS_TABLE_SWEEP) : null);
+    } catch (err) {
+      if (err instanceof EngineFailure) return unsolvedRun(task, c, err);
+      throw err;
+    }
   });
   return { caution: CAUTION, runs };
 }
@@ -77,7 +94,12 @@ export async function busFaultTableWith(project: Project, scenarioId: string | u
   const runs: BusFaultRun[] = [];
   for (const task of busFaultTasks(project, scenarioId)) {
     const c = compileNetwork(project, task.compile);
-    runs.push(busFaultRun(project, task, c, c.ok ? await sweep(task, c.network) : null));
+    try {
+      runs.push(busFaultRun(project, task, c, c.ok ? await sweep(task, c.network) : null));
+    } catch (err) {
+      if (!(err instanceof EngineFailure)) throw err;
+      runs.push(unsolvedRun(task, c, err));
+    }
   }
   return { caution: CAUTION, runs };
 }

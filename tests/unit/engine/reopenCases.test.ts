@@ -3,7 +3,7 @@
 // update of the base factorization) is checked against a hand calculation (IEC 60909-0:2016, 6.2 and 6.3, with
 // complex arithmetic from mathjs) and against a fresh compile with the ends open.
 import { describe, expect, it } from "vitest";
-import { complex, abs, add, multiply, type Complex as MComplex } from "mathjs";
+import { complex, abs, add, divide, multiply, type Complex as MComplex } from "mathjs";
 import { compileNetwork, createReopenContext, solveFault, solveReopened, sweepDeviceCurrents, sweepReopened, transformerKT, type FaultResult, type OpenEnd } from "../../../src/engine/index.ts";
 import { buildProject, bus, type RawElement } from "./helpers/projectBuilder.ts";
 
@@ -72,7 +72,7 @@ describe("a Dyn11 transformer opened at each end, with a second infeed on its LV
     // Z1 = Z2 = ZQ2 || (ZQ + ZT), both referred to 0.4 kV (ZQ from 250 MVA at 11 kV, scaled by (0.4/11)^2).
     const ZQ = multiply(feeder(1.1, 11, 250, 0.1), (0.4 / 11) ** 2) as MComplex;
     const zs = add(ZQ, ZT) as MComplex;
-    const z1 = (multiply(ZQ2, zs) as MComplex).div(add(ZQ2, zs) as MComplex);
+    const z1 = divide(multiply(ZQ2, zs) as MComplex, add(ZQ2, zs) as MComplex) as MComplex;
     const i1 = (3 * 1.1 * 0.4) / (Math.sqrt(3) * mag(add(multiply(2, z1), ZT) as MComplex));
     expect(solveReopened(ctx, [], { kind: "bus", bus: "LV" }, "LG").ikss_kA).toBeCloseTo(i1, 9);
   });

@@ -36,6 +36,11 @@ export interface StudyHooks {
   isCancelled?: () => boolean;
   /** Lets the host breathe between batches of cases (a worker reads its messages here). */
   yieldNow?: () => Promise<void>;
+  /**
+   * Each scenario's cases and verdicts as soon as the scenario is done (for writing them out while the study
+   * goes on). With StudyOptions.keepResults false the result then holds no cases or verdicts of its own.
+   */
+  onScenario?: (part: { scenario: string; cases: CaseResult[]; verdicts: Verdict[]; warnings: string[] }) => void | Promise<void>;
 }
 
 /** Collects verdicts once each (a project whose ids can repeat keeps the first verdict under an id). */
@@ -92,8 +97,12 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
   const total = plans.reduce((n, sp) => n + sp.locations.length * limitsOf(sp.scenario).length * types.length, 0);
   let done = 0;
 
+  const keep = options.keepResults !== false;
+  let warned = 0;
   for (const sp of plans) {
     const { scenario, net } = sp;
+    const firstCase = cases.length;
+    const firstVerdict = book.list.length;
     for (const d of net.idleDevices) {
       const dev = net.devices.get(d);
       if (dev && !scenario.outOfService.includes(d) && !scenario.outOfService.includes(dev.at.element) && elements.get(dev.at.element) === undefined)
@@ -166,6 +175,15 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
       timelines.push(replayTimeline({ project, sp, index: resultIndex[k], result: scenarioResults[k], solver, model, withstand }));
       hooks.onProgress?.(done, total, "timelines");
       await hooks.yieldNow?.();
+    }
+    if (hooks.onScenario) {
+      await hooks.onScenario({ scenario: scenario.id, cases: cases.slice(firstCase), verdicts: book.list.slice(firstVerdict), warnings: warnings.slice(warned) });
+      warned = warnings.length;
+    }
+    if (!keep) {
+      cases.length = firstCase;
+      caseCounts.length = firstCase;
+      book.list.length = firstVerdict;
     }
   }
   hooks.onProgress?.(total, total, "verdicts");

@@ -249,6 +249,8 @@ export interface StudyOptions {
   timelineCases?: string[];
   /** Only these fault locations (keys.locationKey), e.g. one case's. */
   locationKeys?: string[];
+  /** False: the result keeps no cases or verdicts (they went to StudyHooks.onScenario). Default true. */
+  keepResults?: boolean;
 }
 
 /** The whole study. */

@@ -5,6 +5,8 @@ import type { CliCommand } from "../command.ts";
 import { readTextFile } from "../fileIo.ts";
 import { loadProject } from "../../model/projectFile.ts";
 import { studyProject } from "../../study/studyProject.ts";
+import { jsonLinesWriter } from "../jsonLines.ts";
+import { caseLine, headerLine, summaryLine, verdictLine, VerdictTally } from "./checkLines.ts";
 import { FAULT_TYPES, STUDY_CAUTION, VERDICT_KINDS, type FaultType, type StudyOptions, type StudyResult, type Verdict } from "../../study/types.ts";
 
 const USAGE = "Usage: islet check FILE [--scenario ID] [--bus ID] [--fault 3ph|LL|LG|LLG] [--json]";
@@ -42,58 +44,6 @@ export function parseCheckArgs(args: readonly string[]): { ok: true; value: Chec
   return { ok: true, value: out };
 }
 
-/** The machine-readable report (shape documented in README.md, section "islet check output"). */
-export function checkJson(file: string, result: StudyResult) {
-  const failed = result.verdicts.filter((v) => v.status === "fail").length;
-  return {
-    ok: failed === 0,
-    file,
-    project: result.project,
-    caution: result.caution,
-    summary: {
-      cases: result.cases.length,
-      verdicts: result.verdicts.length,
-      failed,
-      warned: result.verdicts.filter((v) => v.status === "warn").length,
-      totals: result.matrix.totals,
-    },
-    cases: result.cases.map((c) => ({
-      id: c.faultCase.id,
-      scenario: c.faultCase.scenario,
-      location: c.faultCase.location,
-      faultType: c.faultCase.faultType,
-      limit: c.faultCase.limit,
-      label: c.faultCase.label,
-      iFault_A: c.iFault_A,
-      devices: c.responses
-        .filter((r) => r.iPhase_A > 0 || r.iResidual_A > 0 || r.role !== "none")
-        .map((r) => ({
-          device: r.device,
-          role: r.role,
-          current_A: r.iPhase_A,
-          residual_A: r.iResidual_A,
-          negative_A: r.iNegative_A,
-          direction: r.direction,
-          pickedUp: r.pickedUp,
-          operatingElement: r.operatingElement,
-          tOperate_s: r.tOperate_s,
-          tClear_s: r.tClear_s,
-          tClearMin_s: r.tClearMin_s,
-          tClearMax_s: r.tClearMax_s,
-        })),
-      chains: c.chains.paths.map((p) => ({
-        source: p.source,
-        links: p.links.map((l) => ({ device: l.device, role: l.role, depth: l.depth, current_A: l.current_A, tClear_s: l.tClear_s, marginToNext_s: l.marginToNext_s })),
-      })),
-      idealIsolation: c.chains.idealIsolation,
-      verdicts: c.verdictIds,
-    })),
-    verdicts: result.verdicts,
-    timelines: result.timelines,
-    warnings: result.warnings,
-  };
-}
-
 function humanReport(file: string, result: StudyResult): string[] {
   const lines: string[] = [];
   const scen = result.matrix.scenarios.length;
@@ -108,7 +58,7 @@ function humanReport(file: string, result: StudyResult): string[] {
     lines.push(`  ${k.padEnd(11)} ${t.fail} fail, ${t.warn} warn, ${t.pass} pass`);
   }
   if (result.timelines.length) {
-    lines.push("Clearing timelines (worst case of each scenario):");
+    lines.push("Clearing timelines of the cases that matter (no isolation, unwanted operations, slowest per zone):");
     for (const tl of result.timelines) {
       const label = result.cases.find((c) => c.faultCase.id === tl.caseId)?.faultCase.label ?? tl.caseId;
       lines.push(`  ${label}: ${tl.summary}`);
@@ -156,9 +106,35 @@ export const checkCommand: CliCommand = {
     if (a.scenarios.length) options.scenarios = a.scenarios;
     if (a.buses.length) options.buses = a.buses;
     if (a.faults.length) options.faultTypes = a.faults;
+    if (a.json) {
+      // JSON Lines, each scenario's lines written as soon as it is done
+      const out = jsonLinesWriter();
+      const tally = new VerdictTally();
+      let warnings = 0;
+      await out.write(headerLine(a.file, project.meta.name, STUDY_CAUTION));
+      const done = await studyProject(
+        project,
+        { ...options, keepResults: false },
+        {
+          onScenario: async (part) => {
+            for (const c of part.cases) {
+              tally.cases++;
+              await out.write(caseLine(c));
+            }
+            for (const v of part.verdicts) await out.write(verdictLine(v));
+            tally.add(part.verdicts);
+            for (const w of part.warnings) await out.write({ type: "warning", text: w });
+            warnings += part.warnings.length;
+          },
+        },
+      );
+      // settings problems found while studying come last (the device models report them as they meet them)
+      for (const w of done.warnings.slice(warnings)) await out.write({ type: "warning", text: w });
+      await out.write(summaryLine(tally, done.warnings.length));
+      return tally.failed > 0 ? 1 : 0;
+    }
     const result = await studyProject(project, options);
-    if (a.json) console.log(JSON.stringify(checkJson(a.file, result), null, 2));
-    else for (const line of humanReport(a.file, result)) console.log(line);
+    for (const line of humanReport(a.file, result)) console.log(line);
     return result.verdicts.some((v) => v.status === "fail") ? 1 : 0;
   },
 };

@@ -19,7 +19,7 @@ afterEach(() => vi.restoreAllMocks());
 describe("islet check", () => {
   it("reads repeated filters and refuses unknown options and fault types", () => {
     const a = parseCheckArgs(["f.islet", "--scenario", "s1", "--bus", "B1", "--bus", "B2", "--fault", "lg", "--json"]);
-    expect(a.ok && a.value).toEqual({ file: "f.islet", json: true, scenarios: ["s1"], buses: ["B1", "B2"], faults: ["LG"] });
+    expect(a.ok && a.value).toMatchObject({ file: "f.islet", json: true, scenarios: ["s1"], buses: ["B1", "B2"], faults: ["LG"] });
     expect(parseCheckArgs(["f.islet", "--fault", "2ph"]).ok).toBe(false);
     expect(parseCheckArgs(["f.islet", "--colour"]).ok).toBe(false);
     expect(parseCheckArgs(["--json"]).ok).toBe(false);
@@ -41,23 +41,40 @@ describe("islet check", () => {
     expect(io.err.join("\n")).toMatch(/scenario no-such-scenario is not in/);
   });
 
-  it("prints JSON with every device's current, pickup state, times and role, and exits 1 exactly when a verdict fails", async () => {
+  it("streams JSON Lines: a header, one line per case with its expected and simulated operation, the verdicts and a summary; exit 1 exactly when a verdict fails", async () => {
     const io = capture();
+    const written: string[] = [];
+    vi.spyOn(process.stdout, "write").mockImplementation(((chunk: string) => {
+      written.push(String(chunk));
+      return true;
+    }) as typeof process.stdout.write);
     const code = await checkCommand.run([DEMO, "--scenario", "grid-all", "--bus", "LV-A", "--fault", "3ph", "--json"]);
-    const json = JSON.parse(io.out.join("\n"));
-    expect(code).toBe(json.summary.failed > 0 ? 1 : 0);
-    expect(json.ok).toBe(json.summary.failed === 0);
-    expect(json.caution).toMatch(/licensed engineer/);
-    const lvA = json.cases.find((c: { id: string }) => c.id === "grid-all|bus:LV-A|3ph|max");
+    expect(io.out).toEqual([]);
+    // one JSON object per line, each line written on its own (never one giant string)
+    expect(written.every((w) => w.endsWith("\n") && w.indexOf("\n") === w.length - 1)).toBe(true);
+    const lines = written.map((w) => JSON.parse(w));
+    expect(lines[0]).toMatchObject({ type: "header", format: "islet-check", formatVersion: 2 });
+    expect(lines[0].caution).toMatch(/licensed engineer/);
+    const summary = lines.at(-1);
+    expect(summary.type).toBe("summary");
+    expect(code).toBe(summary.failed > 0 ? 1 : 0);
+    expect(summary.ok).toBe(summary.failed === 0);
+    const cases = lines.filter((l) => l.type === "case");
+    const verdicts = lines.filter((l) => l.type === "verdict");
+    expect(summary.cases).toBe(cases.length);
+    expect(summary.verdicts).toBe(verdicts.length);
+    const lvA = cases.find((c) => c.id === "grid-all|bus:LV-A|3ph|max");
     expect(lvA.location).toEqual({ kind: "bus", bus: "LV-A" });
-    const incomer = lvA.devices.find((d: { device: string }) => d.device === "Q-T1");
-    expect(Object.keys(incomer).sort()).toEqual(
-      ["current_A", "device", "direction", "negative_A", "operatingElement", "pickedUp", "residual_A", "role", "tClearMax_s", "tClearMin_s", "tClear_s", "tOperate_s"].sort(),
-    );
-    expect(incomer.role).toBe("primary");
-    // every verdict id a case lists is in the verdict list
-    const ids = new Set(json.verdicts.map((v: { id: string }) => v.id));
-    for (const c of json.cases) for (const id of c.verdicts) expect(ids.has(id)).toBe(true);
+    for (const field of ["ideal", "backups", "operations", "isolated_s", "unwanted", "loadLost_kW", "idealLoadLost_kW"]) expect(lvA).toHaveProperty(field);
+    // the board's two sections are one zone (the coupler has no protection): the incomers of both transformers and
+    // the breakers of the genset and the grid-forming battery bound it; the grid-following PV ceases on its own
+    expect(lvA.zoneBuses.sort()).toEqual(["LV-A", "LV-B"]);
+    expect([...lvA.ideal].sort()).toEqual(["Q-BESS", "Q-GEN", "Q-T1", "Q-T2"]);
+    expect(lvA.selfCeasing).toEqual(["INV-PV"]);
+    for (const op of lvA.operations) expect(typeof op.device === "string" && typeof op.t_s === "number").toBe(true);
+    // every verdict id a case lists is in the verdict lines
+    const ids = new Set(verdicts.map((v) => v.id));
+    for (const c of cases) for (const id of c.verdicts) expect(ids.has(id)).toBe(true);
   });
 
   it("prints the caution line in the human report", async () => {

@@ -1,0 +1,16 @@
+// Writes JSON Lines to a stream one object at a time, waiting for the stream to drain when its buffer is
+// full, so that a large study's output never piles up in memory.
+import type { Writable } from "node:stream";
+
+export interface JsonLinesWriter {
+  write(line: object): Promise<void>;
+}
+
+export function jsonLinesWriter(out: Writable = process.stdout): JsonLinesWriter {
+  return {
+    write(line) {
+      const ok = out.write(`${JSON.stringify(line)}\n`);
+      return ok ? Promise.resolve() : new Promise((resolve) => out.once("drain", () => resolve()));
+    },
+  };
+}

@@ -5,8 +5,6 @@ import type { ElementKind } from "./schema.ts";
 
 /** Labels by `kind.path`, then by `path` alone. Only where the schema's description does not read well. */
 const FIELD_LABELS: Record<string, string> = {
-  "grid.skMax_MVA": 'Short-circuit power S"k max',
-  "grid.skMin_MVA": 'Short-circuit power S"k min',
   "grid.rx": "R/X of the grid",
   "grid.z0z1": "Z0/Z1 of the grid (0: no zero-sequence path)",
   "grid.r0x0": "R0/X0 of the grid",

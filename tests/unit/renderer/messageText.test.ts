@@ -5,7 +5,7 @@ import { newProject } from "../../../src/model/projectFile.ts";
 import type { Project } from "../../../src/model/schema.ts";
 
 describe("model messages in the studio's words", () => {
-  it("names the element and the field's label, not its key", () => {
+  it("names the element and the field by its label, with its key after it", () => {
     const p = newProject("m") as Project;
     (p.elements as unknown[]).push(
       { kind: "bus", id: "B1", un_kV: 0.4 },
@@ -14,7 +14,7 @@ describe("model messages in the studio's words", () => {
     );
     const m = validateProject(p).find((x) => x.field === "length_km");
     expect(m?.text).toContain("length_km"); // the model keeps the key (files, command line)
-    expect(messageText(m!, p)).toBe('Cable C12 "Dock feeder": Route length must be > 0 (got -3)');
+    expect(messageText(m!, p)).toBe('Cable C12 "Dock feeder": Route length (length_km) must be > 0 (got -3)');
   });
 
   it("leaves a message without a field, or on an unknown element, as it is", () => {

@@ -83,7 +83,8 @@ describe("terminal-safe text", () => {
 
   it("escapes everything printed through the console while a command runs, and restores the console after", () => {
     const printed: string[] = [];
-    const target = { log: (t: string) => void printed.push(t), info: (t: string) => void printed.push(t), warn: (t: string) => void printed.push(t), error: (t: string) => void printed.push(t) };
+    const print = (...a: unknown[]) => void printed.push(a.join(" "));
+    const target = { log: print, info: print, warn: print, error: print };
     const original = target.log;
     const restore = guardConsole(target as unknown as Console);
     target.log("FAIL", `Q1${ERASE_LINE}\rPASS`);

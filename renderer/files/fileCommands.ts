@@ -15,13 +15,18 @@ export function isDirty(): boolean {
   return useDocumentStore.getState().revision !== useSessionStore.getState().savedRevision;
 }
 
+/** Asks whether an offered download arrived; only a yes marks the document saved. */
+function confirmDownload(name: string): boolean {
+  return window.confirm(`Is "${name}" in your downloads now?\n\nOK marks the project as saved. Cancel keeps it marked unsaved (and its recovery copy), for example when the browser blocked or failed the download.`);
+}
+
 function confirmDiscard(): boolean {
   return !isDirty() || window.confirm("Discard the unsaved changes to this project?");
 }
 
 /** Elements without a place on the one-line (imported or generated networks). */
 function missingPlaces(project: Project): boolean {
-  return project.elements.some((e) => e.kind !== "relay" && e.kind !== "fuse" && e.kind !== "lvbreaker" && !project.layout[e.id]);
+  return project.elements.some((e) => e.kind !== "relay" && e.kind !== "fuse" && e.kind !== "lvbreaker" && !Object.hasOwn(project.layout, e.id));
 }
 
 /** Makes `project` the open document: no history, nothing selected, clean unless `dirty`. */
@@ -114,6 +119,14 @@ export async function saveDocument(saveAs = false): Promise<boolean> {
     if (!result.ok) {
       if (!result.cancelled) session.notify("error", `${result.message} Your work is still open and unsaved.`);
       return false;
+    }
+    if (result.unconfirmed) {
+      // a download: the browser may still refuse it, and the page never hears. Unsaved until the user says so.
+      useSessionStore.getState().set({ file: result.file });
+      if (!confirmDownload(result.file.name)) {
+        session.notify("info", `Offered ${result.file.name} as a download. The browser does not tell the studio whether it was written, so the project stays marked unsaved and its recovery copy is kept.`);
+        return false;
+      }
     }
     useSessionStore.getState().set({ file: result.file, savedRevision: revision });
     await host.clearAutosave();

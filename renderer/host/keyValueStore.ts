@@ -4,6 +4,10 @@ export interface KeyValueStore {
   get<T>(key: string): Promise<T | undefined>;
   set(key: string, value: unknown): Promise<void>;
   delete(key: string): Promise<void>;
+  /** Keys starting with `prefix`. */
+  keys(prefix: string): Promise<string[]>;
+  /** False when IndexedDB is unavailable and values live in this page's memory only (lost with the tab). */
+  persistent(): Promise<boolean>;
 }
 
 function request<T>(r: IDBRequest<T>): Promise<T> {
@@ -47,6 +51,14 @@ export function keyValueStore(dbName = "islet-studio", storeName = "kv"): KeyVal
       const s = await tx("readwrite");
       if (s) await request(s.delete(key));
       else memory.delete(key);
+    },
+    async keys(prefix) {
+      const s = await tx("readonly");
+      const all = s ? ((await request(s.getAllKeys())) as IDBValidKey[]).filter((k): k is string => typeof k === "string") : [...memory.keys()];
+      return all.filter((k) => k.startsWith(prefix));
+    },
+    async persistent() {
+      return (await open()) !== null;
     },
   };
 }

@@ -11,7 +11,11 @@ export interface FileRef {
 }
 
 export type SaveResult =
-  | { ok: true; file: FileRef }
+  /**
+   * `unconfirmed`: the host offered the text as a browser download and cannot know it was written (the browser
+   * may refuse it); the studio keeps the document marked unsaved, and its recovery copy, until the user confirms.
+   */
+  | { ok: true; file: FileRef; unconfirmed?: true }
   | { ok: false; cancelled: true }
   | { ok: false; cancelled: false; message: string };
 
@@ -39,6 +43,8 @@ export interface HostApi {
   writeAutosave(text: string): Promise<void>;
   readAutosave(): Promise<{ text: string; savedAt: string } | null>;
   clearAutosave(): Promise<void>;
+  /** False when the host has nowhere to keep recovery copies (a browser without IndexedDB): autosave is off. */
+  autosaveAvailable?(): Promise<boolean>;
   /** Export a generated file (report, CSV, SVG, PNG) chosen by the user; returns false when cancelled. */
   exportFile(suggestedName: string, data: string | Uint8Array, mime: string): Promise<boolean>;
   /** Desktop only: print the report's HTML to PDF and save it where the user chooses; false when cancelled. */

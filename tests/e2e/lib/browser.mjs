@@ -17,6 +17,11 @@ export async function launchStudioBrowser(viewport = { width: 1366, height: 768 
     viewport,
     acceptDownloads: true,
   });
+  // Saves are read back from downloads: hide the File System Access pickers (whose native dialogs a headless
+  // browser cannot answer), so the studio takes its download path, as in browsers without the API.
+  await context.addInitScript(() => {
+    for (const name of ["showSaveFilePicker", "showOpenFilePicker"]) Object.defineProperty(window, name, { value: undefined, configurable: true });
+  });
   return {
     context,
     async close() {

@@ -50,11 +50,36 @@ async function chainStatusOf(page, deviceName) {
 }
 
 async function waitForStatus(page, deviceName, status) {
-  for (let i = 0; i < 100; i++) {
-    if ((await chainStatusOf(page, deviceName)) === status) return;
-    await page.waitForTimeout(100);
-  }
-  assert.equal(await chainStatusOf(page, deviceName), status);
+  await page.locator(".chain-step", { hasText: deviceName }).waitFor();
+  const reached = await page
+    .waitForFunction(
+      ([name, want]) => [...document.querySelectorAll(".chain-step")].some((row) => row.textContent.includes(name) && row.querySelector(".ap-status-dot")?.getAttribute("title") === want),
+      [deviceName, status],
+      { timeout: 10000 },
+    )
+    .then(() => true, () => false);
+  if (!reached) assert.equal(await chainStatusOf(page, deviceName), status);
+}
+
+/** Resolves once the studio's crash-recovery copy in IndexedDB holds `text`. */
+async function waitForAutosave(page, text) {
+  await page.waitForFunction(
+    (want) =>
+      new Promise((resolve) => {
+        const open = indexedDB.open("islet-studio", 1);
+        open.onupgradeneeded = () => open.transaction.abort(); // not there yet: never create it in the studio's place
+        open.onerror = () => resolve(false);
+        open.onsuccess = () => {
+          const db = open.result;
+          if (!db.objectStoreNames.contains("kv")) return resolve(false);
+          const all = db.transaction("kv", "readonly").objectStore("kv").getAll();
+          all.onsuccess = () => resolve(all.result.some((v) => typeof v?.text === "string" && v.text.includes(want)));
+          all.onerror = () => resolve(false);
+        };
+      }),
+    text,
+    { timeout: 20000, polling: 200 },
+  );
 }
 
 export const steps = [
@@ -240,7 +265,9 @@ export const steps = [
     async run(t) {
       const page = t.state.page;
       assert.equal(await page.getByTestId("dirty-mark").count(), 1, "unsaved marker before saving");
-      page.once("dialog", (d) => d.accept("hand-built"));
+      // the name prompt, then (a download is unconfirmed) "is it in your downloads?", answered yes
+      const answer = (d) => void (d.type() === "prompt" ? d.accept("hand-built") : d.accept());
+      page.on("dialog", answer);
       const first = await download(page, () => page.keyboard.press("Control+s"));
       assert.equal(first.suggestedFilename(), "hand-built.islet");
       const savedPath = join(t.artifacts, "hand-built.islet");
@@ -256,6 +283,8 @@ export const steps = [
       const againPath = join(t.artifacts, "hand-built-again.islet");
       await second.saveAs(againPath);
       assert.equal(await readFile(againPath, "utf8"), await readFile(savedPath, "utf8"), "saved text is identical after reopening");
+      await page.getByTestId("dirty-mark").waitFor({ state: "detached" });
+      page.off("dialog", answer);
       t.state.count = count;
     },
   },
@@ -281,7 +310,7 @@ export const steps = [
       const page = t.state.page;
       await select(page, "B3");
       await setField(page, "Name", "Dock board");
-      await page.waitForTimeout(1600); // the autosave runs a second after the last edit
+      await waitForAutosave(page, "Dock board"); // the autosave runs a second after the last edit
       await page.close(); // as if the window died
       const again = await t.context.newPage();
       t.state.page = again;

@@ -18,7 +18,8 @@ const MAX_DIFF_RATIO = 0.02;
 async function matchesReference(t, page, name) {
   const shot = join(t.artifacts, `${name}.png`);
   await page.mouse.move(0, 0);
-  await page.waitForTimeout(300);
+  // hover styles fade out: wait until no CSS transition or finite animation is still running
+  await page.waitForFunction(() => document.getAnimations().every((a) => a.playState !== "running" || a.effect?.getTiming().iterations === Infinity), null, { timeout: 10000 });
   await page.screenshot({ path: shot });
   const ref = join(t.here, "reference", `${name}.png`);
   if (process.env.ISLET_UPDATE_REFERENCE === "1" || !existsSync(ref)) {

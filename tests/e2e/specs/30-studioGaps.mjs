@@ -148,12 +148,18 @@ export const steps = [
       await page.getByTestId("tab-tcc").click();
       const host = page.getByTestId("tcc-host");
       await host.waitFor();
-      const onScreen = await page.evaluate(() => {
-        const svg = document.querySelector(".tcc-host svg.tcc-svg");
-        const ids = [...new Set([...svg.querySelectorAll("g[data-device-id]")].map((g) => g.getAttribute("data-device-id")))];
-        const r = svg.getBoundingClientRect();
-        return { ids, width: r.width, height: r.height };
-      });
+      // the plot is laid out after the pane is measured: wait until at least two devices' curves are drawn
+      // (a path of more than a few points each), never on time, so a loaded machine reads the finished plot
+      const onScreen = await (
+        await page.waitForFunction(() => {
+          const svg = document.querySelector(".tcc-host svg.tcc-svg");
+          if (!svg) return null;
+          const drawn = [...svg.querySelectorAll("g[data-device-id]")].filter((g) => [...g.querySelectorAll("path")].some((p) => (p.getAttribute("d") ?? "").split(/[LC]/).length > 4));
+          const ids = [...new Set(drawn.map((g) => g.getAttribute("data-device-id")))];
+          const r = svg.getBoundingClientRect();
+          return ids.length >= 2 && r.width > 0 ? { ids, width: r.width, height: r.height } : null;
+        }, null, { timeout: 30000 })
+      ).jsonValue();
       assert.ok(onScreen.ids.length >= 2, `the plot draws the path's devices (${onScreen.ids.join(", ")})`);
       await page.screenshot({ path: join(t.artifacts, "30-04-tcc.png") });
 

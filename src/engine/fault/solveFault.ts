@@ -108,9 +108,13 @@ function deviceEndSet(model: Model): Set<string> {
   return set;
 }
 
-export function solveFault(network: CompiledNetwork, location: FaultLocation, type: FaultType, options: FaultOptions = {}): FaultResult {
+/**
+ * `at`: the fault already placed (a model, its cache and the faulted node), for callers that build the faulted
+ * network themselves (re-solves with opened ends place a line point on the base factorization); default locateFault.
+ */
+export function solveFault(network: CompiledNetwork, location: FaultLocation, type: FaultType, options: FaultOptions = {}, at?: { model: Model; cache: EngineCache; k: number; label: string }): FaultResult {
   const opts = network.options;
-  const where = locateFault(network, location);
+  const where = at ?? locateFault(network, location);
   if ("dead" in where) return emptyResult(network, location, type, 0, 0, [{ level: "warning", code: "not-in-service", text: where.dead }]);
   const { model, cache, k, label } = where;
   const n = model.nodes.length;

@@ -23,6 +23,12 @@ export interface SequenceSystem {
   wim: Float64Array;
   /** A low-rank change of the factored matrix (element ends opened, see src/engine/reopen): Z' = Z - W H W^T. */
   update?: LowRankUpdate;
+  /**
+   * A fault point p (the last node, n - 1) on a line between nodes f and t of `inner`, joined to them by the line's
+   * halves ya and yb (zero when open); the other nodes are inner's, whose matrix already holds the line whole (or
+   * not at all when it is open): eliminating p gives exactly that. See applyZ.
+   */
+  border?: { inner: SequenceSystem; f: number; t: number; ya: { re: number; im: number }; yb: { re: number; im: number } };
 }
 
 const SEQUENCE_NAMES = ["zero", "positive", "negative"] as const;
@@ -159,8 +165,54 @@ export function sequenceSystem(model: Model, cache: EngineCache, seq: Seq, varia
   return sys;
 }
 
+/**
+ * Z' b on a bordered system (see SequenceSystem.border): with s = ya + yb, the bordered matrix [[A_o, c], [c^T, s]],
+ * c = -(ya e_f + yb e_t), has A_o - c c^T / s = A (inner's matrix), so
+ *   x_o = Z (b_o + b_p (ya e_f + yb e_t) / s),   x_p = (b_p + ya x_f + yb x_t) / s;
+ * a point with both halves open is a part of its own with its 1 pu reference shunt: x_p = b_p.
+ */
+function applyBordered(sys: SequenceSystem, bre: Float64Array, bim: Float64Array): { re: Float64Array; im: Float64Array } {
+  const { inner, f, t, ya, yb } = sys.border!;
+  const p = sys.n - 1;
+  const sr = ya.re + yb.re;
+  const si = ya.im + yb.im;
+  const s2 = sr * sr + si * si;
+  const br = bre.subarray(0, p).slice();
+  const bi = bim.subarray(0, p).slice();
+  const pr = bre[p];
+  const pi = bim[p];
+  if (s2 === 0) {
+    const x = applyZ(inner, br, bi);
+    const re = new Float64Array(sys.n);
+    const im = new Float64Array(sys.n);
+    re.set(x.re);
+    im.set(x.im);
+    re[p] = pr;
+    im[p] = pi;
+    return { re, im };
+  }
+  // q = b_p / s
+  const qr = (pr * sr + pi * si) / s2;
+  const qi = (pi * sr - pr * si) / s2;
+  br[f] += ya.re * qr - ya.im * qi;
+  bi[f] += ya.re * qi + ya.im * qr;
+  br[t] += yb.re * qr - yb.im * qi;
+  bi[t] += yb.re * qi + yb.im * qr;
+  const x = applyZ(inner, br, bi);
+  const re = new Float64Array(sys.n);
+  const im = new Float64Array(sys.n);
+  re.set(x.re);
+  im.set(x.im);
+  const nr = pr + (ya.re * x.re[f] - ya.im * x.im[f]) + (yb.re * x.re[t] - yb.im * x.im[t]);
+  const ni = pi + (ya.re * x.im[f] + ya.im * x.re[f]) + (yb.re * x.im[t] + yb.im * x.re[t]);
+  re[p] = (nr * sr + ni * si) / s2;
+  im[p] = (ni * sr - nr * si) / s2;
+  return { re, im };
+}
+
 /** Z' b for b given (returns new arrays). */
 export function applyZ(sys: SequenceSystem, bre: Float64Array, bim: Float64Array): { re: Float64Array; im: Float64Array } {
+  if (sys.border) return applyBordered(sys, bre, bim);
   const re = bre.slice();
   const im = bim.slice();
   solveLdlt(sys.factor, re, im);
@@ -173,6 +225,7 @@ export function zColumn(sys: SequenceSystem, k: number): { re: Float64Array; im:
   const re = new Float64Array(sys.n);
   const im = new Float64Array(sys.n);
   re[k] = 1;
+  if (sys.border) return applyBordered(sys, re, im);
   solveLdlt(sys.factor, re, im);
   if (sys.update) applyLowRankColumn(sys.update, k, re, im);
   return { re, im };

@@ -17,6 +17,8 @@ import { sequenceSystem, zColumn, type SequenceSystem, type Variant } from "../n
 import { solveFault, type EngineInternal } from "../fault/solveFault.ts";
 import type { ComplexVec } from "../fault/solveLinearFault.ts";
 import { updatedSystem } from "./updatedSystem.ts";
+import { LazyMap } from "./lazyMap.ts";
+import { solveLinePoint } from "./linePoint.ts";
 import { unitColumns } from "../fault/compactFault.ts";
 import { applyLowRankColumn } from "../network/lowRankUpdate.ts";
 
@@ -33,10 +35,7 @@ export interface ReopenContext {
   /** Base Z' columns at nodes, by "system index:node", least recently used first (at most `maxColumns`). */
   readonly columns: Map<string, ComplexVec>;
   readonly maxColumns: number;
-  /**
-   * How many faults the update answered (fast) and how many it did not (reference: a fresh compile, or a line
-   * point's split network factorized afresh), with the reasons and their counts.
-   */
+  /** How many faults the update answered (fast) and how many a fresh compile (reference), with the reasons. */
   readonly stats: { fast: number; reference: number; reasons: Record<string, number> };
 }
 
@@ -123,24 +122,6 @@ export function reopenedSet(ctx: ReopenContext, ends: readonly OpenEnd[]): Reope
   return touch(ctx.sets, key, set, ctx.maxSets);
 }
 
-/** A cache map whose entries (keys matching `pattern`) are made when first asked for. */
-class LazyMap<V> extends Map<string, V> {
-  constructor(
-    private readonly make: (key: string) => V,
-    private readonly pattern: RegExp,
-  ) {
-    super();
-  }
-  override get(key: string): V | undefined {
-    let v = super.get(key);
-    if (v === undefined && this.pattern.test(key)) {
-      v = this.make(key);
-      super.set(key, v);
-    }
-    return v;
-  }
-}
-
 /** The opened model on the base model's nodes, and its systems on the base factorization. */
 function openedNetwork(ctx: ReopenContext, ends: OpenEnd[]): CompiledNetwork {
   const { model: base, cache: baseCache } = ctx.base.internal as EngineInternal;
@@ -196,9 +177,6 @@ export function faultFallback(ctx: ReopenContext, location: FaultLocation): stri
   return b && (model.inUnit.has(b.from) || model.inUnit.has(b.to)) ? `fault along line ${location.line}, at a power station unit's node (the unit's own corrections)` : null;
 }
 
-/** The reason recorded for a line point answered on the opened network (its split copy is factorized afresh). */
-export const LINE_POINT = "line point (the opened network split there is factorized afresh, as solveFault does for any line point)";
-
 function countPath(ctx: ReopenContext, reason: string | null): void {
   if (reason === null) ctx.stats.fast++;
   else {
@@ -209,15 +187,13 @@ function countPath(ctx: ReopenContext, reason: string | null): void {
 
 /**
  * One fault with the given ends open: the FaultResult solveFault gives on the fresh compile with those ends open,
- * from the base factorization. A fault point along a line splits the opened network there and factorizes the split
- * network, as solveFault does for every line point (counted in stats.reasons, not a fresh compile).
+ * from the base factorization. A fault point along a line is placed on it by bordering (linePoint.ts).
  */
 export function solveReopened(ctx: ReopenContext, ends: readonly OpenEnd[], location: FaultLocation, type: FaultType, options: FaultOptions = {}): FaultResult {
   const set = reopenedSet(ctx, ends);
   const reason = set.fallback ?? faultFallback(ctx, location);
-  const linePoint = location.kind === "line" && location.pct > 0 && location.pct < 100;
-  countPath(ctx, reason ?? (linePoint ? LINE_POINT : null));
-  if (reason === null && set.network) return solveFault(set.network, location, type, options);
+  countPath(ctx, reason);
+  if (reason === null && set.network) return location.kind === "line" ? solveLinePoint(set.network, location, type, options) : solveFault(set.network, location, type, options);
   const r = solveFault(referenceNetwork(ctx, set), location, type, options);
   r.messages.push({ level: "info", code: "reopen-fresh-compile", text: `Re-solved by a fresh compile of the network: ${reason}` });
   return r;

@@ -125,7 +125,6 @@ describe("a ring opened at one end of a line", () => {
     expect(r.ikss_kA).toBeCloseTo((1.1 * 11) / (Math.sqrt(3) * mag(z)), 9);
     for (const x of end(r, "L3", "to")!.seq_A) expect(x.mag).toBe(0);
     expect(end(r, "L3", "from")!.phase_A[0].mag).toBeCloseTo(r.ikss_kA * 1000, 6);
-    expect(Object.keys(ctx.stats.reasons).some((x) => x.startsWith("line point"))).toBe(true);
   });
 
   it("opens a switch by a fresh compile and says so", () => {

@@ -67,19 +67,25 @@ describe("re-solve with opened ends by low-rank update", () => {
         const pool = candidateEnds(project);
         const busIds = Object.keys(ctx.base.busNode);
         const kv = busKv(project);
+        const lineIds = project.elements.filter((e) => e.kind === "line").map((e) => e.id);
         let checked = 0;
         fc.assert(
           fc.property(
             fc.uniqueArray(fc.integer({ min: 0, max: pool.length - 1 }), { minLength: 1, maxLength: 3 }),
             fc.array(fc.integer({ min: 0, max: busIds.length - 1 }), { minLength: 2, maxLength: 4 }),
             fc.constantFrom("iec" as const, "refined" as const),
-            (picks, busPicks, inverterModel) => {
+            fc.integer({ min: 0, max: lineIds.length - 1 }),
+            fc.integer({ min: 1, max: 99 }),
+            (picks, busPicks, inverterModel, li, pct) => {
+              // A line point too, on an opened line half the time (the fresh path splits and factorizes afresh).
+              const lineEnd = pool.find((e) => picks.some((i) => pool[i] === e) && lineIds.includes(e.element));
+              const line = lineEnd && li % 2 === 0 ? lineEnd.element : lineIds[li];
               const ends = picks.map((i) => pool[i]);
               const fresh = compileNetwork(project, { ...options, openEnds: ends });
               if (!fresh.ok) throw new Error(fresh.errors.map((e) => e.text).join("; "));
-              for (const bi of busPicks)
+              const locations = [...busPicks.map((bi) => ({ kind: "bus" as const, bus: busIds[bi] })), { kind: "line" as const, line, pct }];
+              for (const location of locations)
                 for (const type of TYPES) {
-                  const location = { kind: "bus" as const, bus: busIds[bi] };
                   const ref = solveFault(fresh.network, location, type, { inverterModel });
                   const got = solveReopened(ctx, ends, location, type, { inverterModel });
                   expect(worstPu(ref, got, kv, project.meta.baseMVA)).toBeLessThan(1e-9);
@@ -90,7 +96,7 @@ describe("re-solve with opened ends by low-rank update", () => {
           { numRuns: 25 },
         );
         expect(checked).toBeGreaterThan(150);
-        // Every fault answered by the update, none by a fresh compile (no switch opened, no power station unit).
+        // Every fault answered by the update, line points included; none by a fresh compile (no switch, no unit).
         expect(ctx.stats.reference).toBe(0);
       });
     }

@@ -15,4 +15,5 @@ export type { EngineRequest, EngineResponse, EngineEvent } from "./rpc/protocol.
 export { busFaultTable, busFaultTableWith, BUS_TABLE_SWEEP, formatBusFaultTable, type BusFaultTable, type BusFaultRun, type BusFaultRow, type BusFaultTask } from "./table/busFaultTable.ts";
 export { createReopenContext, reopenedSet, referenceNetwork, solveReopened, type ReopenContext, type ReopenedSet, type OpenEnd } from "./reopen/reopenNetwork.ts";
 export { sweepReopened, type ReopenSweepOptions } from "./reopen/reopenSweep.ts";
+export { solveLinePoint } from "./reopen/linePoint.ts";
 export { openSetKey } from "./network/openEnds.ts";

@@ -68,12 +68,15 @@ function extendColumn(col: ComplexVec, f: number, t: number, ya: Cx, yb: Cx): Co
 
 /**
  * A fault along a line of `network` (an opened network, or any compiled network) at 0 < pct < 100, solved on its
- * sequence systems without a factorization of the split network; other locations go to solveFault as they are.
+ * sequence systems without a factorization of the split network; the same result as solveFault, which factorizes
+ * the split network. Other locations (and lines at a power station unit's node) go to solveFault as they are.
  */
 export function solveLinePoint(network: CompiledNetwork, location: Extract<FaultLocation, { kind: "line" }>, type: FaultType, options: FaultOptions): FaultResult {
   const { model, cache } = network.internal as EngineInternal;
   const b = model.branches.find((x) => x.element === location.line && x.kind === "line");
-  if (!b || !b.line || !(location.pct > 0 && location.pct < 100)) return solveFault(network, location, type, options);
+  // A line at a power station unit's node is split in the unit's own variant (locateFault does that).
+  const inUnit = b && (model.inUnit?.has(b.from) || model.inUnit?.has(b.to));
+  if (!b || !b.line || inUnit || !(location.pct > 0 && location.pct < 100)) return solveFault(network, location, type, options);
   const split = splitLine(model, location.line, location.pct);
   if (!split) return solveFault(network, location, type, options);
   const halves = split.model.branches.filter((x) => x.element === location.line && x.kind === "line");

@@ -4,7 +4,7 @@
 // complex arithmetic from mathjs) and against a fresh compile with the ends open.
 import { describe, expect, it } from "vitest";
 import { complex, abs, add, divide, multiply, type Complex as MComplex } from "mathjs";
-import { compileNetwork, createReopenContext, solveFault, solveReopened, sweepDeviceCurrents, sweepReopened, transformerKT, type FaultResult, type OpenEnd } from "../../../src/engine/index.ts";
+import { compileNetwork, createReopenContext, solveFault, solveLinePoint, solveReopened, sweepDeviceCurrents, sweepReopened, transformerKT, type FaultResult, type OpenEnd } from "../../../src/engine/index.ts";
 import { buildProject, bus, type RawElement } from "./helpers/projectBuilder.ts";
 
 const mag = (z: MComplex) => abs(z) as unknown as number;
@@ -125,6 +125,17 @@ describe("a ring opened at one end of a line", () => {
     expect(r.ikss_kA).toBeCloseTo((1.1 * 11) / (Math.sqrt(3) * mag(z)), 9);
     for (const x of end(r, "L3", "to")!.seq_A) expect(x.mag).toBe(0);
     expect(end(r, "L3", "from")!.phase_A[0].mag).toBeCloseTo(r.ikss_kA * 1000, 6);
+  });
+
+  it("places a line point on any network by bordering, as solveFault's split and fresh factorization do", () => {
+    // The closed ring: solveLinePoint against solveFault (which splits the line and factorizes the split network).
+    for (const pct of [10, 40, 75])
+      for (const type of ["3ph", "LL", "LG", "LLG"] as const) {
+        const want = solveFault(ctx.base, { kind: "line", line: "L3", pct }, type);
+        const got = solveLinePoint(ctx.base, { kind: "line", line: "L3", pct }, type, {});
+        expect(got.ikss_kA).toBeCloseTo(want.ikss_kA, 12);
+        for (const e of want.branchEnds) for (let s = 0; s < 3; s++) expect(end(got, e.element, e.end)!.seq_A[s].mag).toBeCloseTo(e.seq_A[s].mag, 7);
+      }
   });
 
   it("opens a switch by a fresh compile and says so", () => {

@@ -9,8 +9,9 @@ import type { HostApi, MenuCommand } from "../../../src/model/hostContract.ts";
 import { CHANNELS } from "../../../main/channels.ts";
 import { createHostBridge, type BridgeIpc } from "../../../main/preload.ts";
 
-// Compile-time: this record must name every HostApi member and nothing else.
-const HOST_API_MEMBERS: Record<keyof HostApi, true> = {
+// Compile-time: this record must name every HostApi member and nothing else, except autosaveAvailable, which only
+// the browser host has (the desktop always keeps its recovery copy on disk).
+const HOST_API_MEMBERS: Record<Exclude<keyof HostApi, "autosaveAvailable">, true> = {
   kind: true,
   openProject: true,
   openRecent: true,

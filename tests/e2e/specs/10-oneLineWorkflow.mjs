@@ -114,6 +114,10 @@ export const steps = [
       await page.getByRole("button", { name: "+ LV breaker (to end)" }).click();
       await select(page, "T1");
       await page.getByRole("button", { name: "+ Relay (from end)" }).click();
+      // a new relay starts from the transformer's rating (1.25 x 42 A); this spec's hand figures below use a 200 A pickup on a 200/1 CT
+      await page.waitForFunction(() => document.querySelector('[data-testid="inspector-head"]')?.textContent?.includes("Relay R1"));
+      await setField(page, "CT primary rating", 200);
+      await setField(page, "Pickup", 200);
       await select(page, "C1");
       await chooseField(page, "From bus", "B2");
       await chooseField(page, "To bus", "B3");

@@ -5,6 +5,7 @@
 
 export type CsvCell = string | number | null;
 
+// eslint-disable-next-line no-control-regex -- leading controls are part of what a spreadsheet skips
 const FORMULA_START = /^[\s\x00-\x1f]*[=+\-@]|^[\t\r]/;
 
 function quote(cell: CsvCell): string {

@@ -12,6 +12,7 @@ import { csvParse } from "./csvParse.ts";
 
 const STARTS = ["=", "+", "-", "@", "\t", "\r", " =", "\t="];
 /** True when a spreadsheet would take the cell for a formula (its first non-blank character starts one). */
+// eslint-disable-next-line no-control-regex -- leading controls are part of what a spreadsheet skips
 const formulaLike = (cell: string) => /^[\s\x00-\x1f]*[=+\-@]/.test(cell) || /^[\t\r]/.test(cell);
 
 describe("CSV injection", () => {

@@ -12,9 +12,13 @@ const PHASES: Record<Parameters<NonNullable<StudyHooks["onProgress"]>>[2], strin
   timelines: "clearing timelines",
 };
 
-/** Hooks that report the study's progress to the session and stop it at Ctrl+C. `prefix` names a sub-step. */
-export function studyHooks(session: CliSession, prefix = ""): StudyHooks {
+/**
+ * Hooks that report the study's progress to the session and stop it at Ctrl+C. `prefix` names a sub-step;
+ * `extra` adds the caller's own hooks (e.g. onScenario, to write each scenario out as it is done).
+ */
+export function studyHooks(session: CliSession, prefix = "", extra: Pick<StudyHooks, "onScenario"> = {}): StudyHooks {
   return {
+    ...extra,
     onProgress: (done, total, phase) => session.progress.update(`${prefix}${PHASES[phase]}`, done, total),
     isCancelled: () => session.signal.aborted,
     yieldNow: session.yieldNow,
@@ -22,9 +26,9 @@ export function studyHooks(session: CliSession, prefix = ""): StudyHooks {
 }
 
 /** The study, or null when Ctrl+C stopped it. */
-export async function studyInSession(session: CliSession, project: Project, options: StudyOptions = {}, prefix = ""): Promise<StudyResult | null> {
+export async function studyInSession(session: CliSession, project: Project, options: StudyOptions = {}, prefix = "", extra: Pick<StudyHooks, "onScenario"> = {}): Promise<StudyResult | null> {
   try {
-    const result = await studyProject(project, options, studyHooks(session, prefix));
+    const result = await studyProject(project, options, studyHooks(session, prefix, extra));
     return session.signal.aborted ? null : result;
   } catch (err) {
     if (err instanceof StudyCancelled) return null;

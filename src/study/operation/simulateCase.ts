@@ -86,26 +86,33 @@ export interface FirstState {
   rates: { edge: number; element: string; end: "from" | "to" | "terminal"; rate: number; i_A: number }[];
 }
 
+/** Per element a device measures: the largest current over its device edges not in `open` (a faulted cable's two halves differ). */
+function elementCurrents(net: ScenarioNetwork, snap: FaultSnapshot, open: ReadonlySet<number>): Map<string, { edge: number; i_A: number }> {
+  const out = new Map<string, { edge: number; i_A: number }>();
+  for (const id in snap.readings) {
+    const edge = net.deviceEdge.get(id);
+    if (edge === undefined || open.has(edge)) continue;
+    const i = phaseMax(snap.readings[id]);
+    if (!(i > 0)) continue;
+    const element = net.edges[edge].element;
+    const known = out.get(element);
+    if (!known || i > known.i_A) out.set(element, { edge, i_A: i });
+  }
+  return out;
+}
+
 export function firstState(net: ScenarioNetwork, snap: FaultSnapshot, responses: ReadonlyMap<string, DeviceResponse>, withstand: WithstandFn): FirstState {
   const order: FirstState["order"] = [];
   for (const [id, r] of responses) if (r.tOperate_s !== null && net.deviceEdge.has(id)) order.push({ id, trip_s: r.tOperate_s, clearing_s: r.tClear_s ?? r.tOperate_s });
   order.sort((a, b) => a.trip_s - b.trip_s);
   const rates: FirstState["rates"] = [];
-  const seen = new Set<number>();
-  for (const id in snap.readings) {
-    const edge = net.deviceEdge.get(id);
-    if (edge === undefined || seen.has(edge)) continue;
-    seen.add(edge);
-    const i = phaseMax(snap.readings[id]);
-    if (!(i > 0)) continue;
+  for (const [element, { edge, i_A }] of elementCurrents(net, snap, new Set())) {
     const e = net.edges[edge];
-    const t = withstand(net.elements.get(e.element), e.end, i);
-    if (Number.isFinite(t) && t > 0) rates.push({ edge, element: e.element, end: e.end, rate: 1 / t, i_A: i });
+    const t = withstand(net.elements.get(element), e.end, i_A);
+    if (Number.isFinite(t) && t > 0) rates.push({ edge, element, end: e.end, rate: 1 / t, i_A });
   }
   return { snap, order, rates };
 }
-
-type NetEdgeKey = number;
 
 const NO_CURRENT: Measurement = { phase_A: [0, 0, 0], residual_A: 0, negative_A: 0 };
 const EPS = 1e-9;
@@ -131,8 +138,8 @@ export class CaseSimulation {
   private finished = false;
   private resolves = 0;
 
-  /** Withstand use per device edge (a series element carries one current at both ends). */
-  private readonly use = new Map<NetEdgeKey, WithstandUse>();
+  /** Withstand use per element (a series element carries one current, in per unit, at both ends). */
+  private readonly use = new Map<string, WithstandUse>();
   private readonly stuck: ReadonlySet<number>;
 
   constructor(private readonly input: SimulationInput) {
@@ -178,8 +185,8 @@ export class CaseSimulation {
     if (!(dt > 0)) return;
     for (const r of first.rates) {
       if (this.open.has(r.edge)) continue;
-      let u = this.use.get(r.edge);
-      if (!u) this.use.set(r.edge, (u = { element: r.element, end: r.end, used: 0, peak_A: 0 }));
+      let u = this.use.get(r.element);
+      if (!u) this.use.set(r.element, (u = { element: r.element, end: r.end, used: 0, peak_A: 0 }));
       u.used += dt * r.rate;
       if (r.i_A > u.peak_A) u.peak_A = r.i_A;
     }
@@ -249,20 +256,14 @@ export class CaseSimulation {
   private useWithstand(snap: FaultSnapshot, dt: number): void {
     if (!(dt > 0)) return;
     const { net, withstand } = this.input;
-    const seen = new Set<NetEdgeKey>();
-    for (const id in snap.readings) {
-      const edge = net.deviceEdge.get(id);
-      if (edge === undefined || this.open.has(edge) || seen.has(edge)) continue;
-      seen.add(edge);
-      const i = phaseMax(snap.readings[id]);
-      if (!(i > 0)) continue;
+    for (const [element, { edge, i_A }] of elementCurrents(net, snap, this.open)) {
       const e = net.edges[edge];
-      const t = withstand(net.elements.get(e.element), e.end, i);
+      const t = withstand(net.elements.get(element), e.end, i_A);
       if (!Number.isFinite(t)) continue;
-      let u = this.use.get(edge);
-      if (!u) this.use.set(edge, (u = { element: e.element, end: e.end, used: 0, peak_A: 0 }));
+      let u = this.use.get(element);
+      if (!u) this.use.set(element, (u = { element, end: e.end, used: 0, peak_A: 0 }));
       u.used += dt / t;
-      if (i > u.peak_A) u.peak_A = i;
+      if (i_A > u.peak_A) u.peak_A = i_A;
     }
   }
 

@@ -34,7 +34,7 @@ function answers(url) {
 export async function startPreview(root) {
   const port = await freePort();
   const vite = join(root, "node_modules", ".bin", "vite");
-  const child = spawn(vite, ["preview", "--config", "renderer/vite.config.ts", "--host", "127.0.0.1", "--port", String(port), "--strictPort"], {
+  const child = spawn(vite, ["preview", "--config", "renderer/vite.config.ts", "--host", "127.0.0.1", "--port", String(port), "--strictPort", "--bypass-lock"], {
     cwd: root,
     stdio: ["ignore", "pipe", "pipe"],
   });

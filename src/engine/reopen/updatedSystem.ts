@@ -8,6 +8,9 @@ import type { BranchStamp, Cx, Model, Seq } from "../network/model.ts";
 import { sequenceComponents, zColumn, type SequenceSystem, type Variant } from "../network/sequenceSystem.ts";
 import { smallComplexInverse, type LowRankUpdate } from "../network/lowRankUpdate.ts";
 import type { ComplexVec } from "../fault/solveLinearFault.ts";
+import { EngineFailure } from "../engineFailure.ts";
+
+const SEQUENCE_NAMES = ["zero", "positive", "negative"] as const;
 
 /** Columns of the base Z' at nodes, per sequence system (a study reuses the same few device-end nodes). */
 export type BaseColumns = (sys: SequenceSystem, node: number) => ComplexVec;
@@ -82,7 +85,7 @@ class SmallDelta {
 /**
  * The opened network's system for one sequence and variant, on the base system's factor: the same comp, floating
  * and w as a fresh factorization would give, and Z' by the update. Returns the base system itself when the openings
- * change nothing in this sequence. Throws when the update is singular (the opened matrix is, then, too).
+ * change nothing in this sequence. Throws an EngineFailure when the update is singular (the opened matrix is too).
  */
 export function updatedSystem(base: Model, opened: Model, sys0: SequenceSystem, variant: Variant, columns: BaseColumns): SequenceSystem {
   const s = sys0.seq;
@@ -144,7 +147,16 @@ export function updatedSystem(base: Model, opened: Model, sys0: SequenceSystem, 
       K[(a * m + b) * 2 + 1] = ki;
     }
   const kInv = smallComplexInverse(K, m);
-  if (!kInv) throw new Error("Opened ends: the low-rank update of the sequence network is singular");
+  if (!kInv || !kInv.every(Number.isFinite)) {
+    // The opened network's matrix is singular too (det A' = det A det K): what a fresh factorization would meet.
+    const buses = [...new Set(delta.nodes.flatMap((node) => base.nodes[node].buses))];
+    const elements = [...new Set([...base.branches.filter((b, i) => b !== opened.branches[i]), ...base.shunts.filter((x) => !kept.has(x))].map((x) => x.element))];
+    throw new EngineFailure(
+      `The ${SEQUENCE_NAMES[s]}-sequence network with ends of ${elements.join(", ")} open could not be solved at bus ${buses.join(", ")}: its equations are singular or overflow in floating point`,
+      buses,
+      elements,
+    );
+  }
   const h = new Float64Array(m * m * 2);
   for (let a = 0; a < m; a++)
     for (let b = 0; b < m; b++) {

@@ -28,7 +28,9 @@ function BranchNodeView({ data, selected }: NodeProps<BranchFlowNode>) {
           (horizontal ? (
             <FlowArrow flow={flow} x={box.w / 2} y={box.h / 2 - 12} id={element.id} across />
           ) : (
-            <FlowArrow flow={flow} x={w / 2 - 10} y={h / 2} id={element.id} textLeft />
+            // a cable's value in its lower half, clear of the names beside the upper half (its own and a
+            // neighbour's); a transformer's by its windings, clear of the devices at its ends
+            <FlowArrow flow={flow} x={w / 2 - 10} y={element.kind === "line" ? h * 0.7 : h / 2} id={element.id} textLeft />
           ))}
       </svg>
       <div className="element-caption">

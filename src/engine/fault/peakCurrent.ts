@@ -24,7 +24,8 @@ export function isRadialIsland(model: Model, island: number): boolean {
   let nodes = 0;
   let edges = 0;
   for (const n of model.nodes) if (n.island === island) nodes++;
-  for (const b of model.branches) if (model.nodes[b.from].island === island) edges++;
+  // an opened branch (protective device open, see network/openEnds.ts) connects nothing
+  for (const b of model.branches) if (!b.open && model.nodes[b.from].island === island) edges++;
   return edges === nodes - 1;
 }
 

@@ -275,3 +275,20 @@ describe("a power station unit with an opened end", () => {
     expect(sweep.ikss_kA[sweep.busIds.indexOf("F")]).toBe(0); // the opened cable leaves F without a source
   });
 });
+
+describe("the peak factor of a ring opened at one end", () => {
+  it("takes the opened ring as radial (branch-sum method), as the same feeder built radial does", () => {
+    // IEC 60909-0:2016, 8.1: the branch-sum method applies to a radial network; a ring opened at one cable end is one.
+    // Reference: the same buses and cables without the opened cable at all, solved fresh.
+    const els: RawElement[] = [bus("A", 11), bus("B", 11), bus("C", 11), { kind: "grid", id: "Q", bus: "A", skMax_MVA: 250, skMin_MVA: 150, rx: 0.1 }, cable("L1", "A", "B", 2), cable("L2", "B", "C", 3)];
+    const ring = buildProject([...els, cable("L3", "C", "A", 1.5)]);
+    const radial = compileNetwork(buildProject(els), { limit: "max" });
+    if (!radial.ok) throw new Error("compile");
+    const ctx = createReopenContext(ring, { limit: "max" });
+    const r = solveReopened(ctx, [{ element: "L3", end: "to" }], { kind: "bus", bus: "C" }, "3ph");
+    const want = solveFault(radial.network, { kind: "bus", bus: "C" }, "3ph");
+    expect(r.peakMethod).toBe("radial-branch-sum");
+    expect(r.ip_kA).toBeCloseTo(want.ip_kA, 9);
+    expect(solveReopened(ctx, [], { kind: "bus", bus: "C" }, "3ph").peakMethod).toBe("meshed-method-b");
+  });
+});

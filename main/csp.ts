@@ -1,34 +1,3 @@
-// The studio's Content-Security-Policy. Only the app's own origin (islet-app://studio) may
-// provide scripts, workers, styles and data; nothing is fetched from the network.
-// 'wasm-unsafe-eval' lets the bundled WebAssembly solver compile; it does not allow eval of JS.
-// Inline styles are allowed because React renders style attributes.
-export const CSP_DIRECTIVES: Readonly<Record<string, readonly string[]>> = {
-  "default-src": ["'self'"],
-  "script-src": ["'self'", "'wasm-unsafe-eval'"],
-  "worker-src": ["'self'", "blob:"],
-  "style-src": ["'self'", "'unsafe-inline'"],
-  "img-src": ["'self'", "data:", "blob:"],
-  "font-src": ["'self'", "data:"],
-  "connect-src": ["'self'"],
-  "object-src": ["'none'"],
-  "frame-src": ["'none'"],
-  "frame-ancestors": ["'none'"],
-  "base-uri": ["'none'"],
-  "form-action": ["'none'"],
-};
-
-export function contentSecurityPolicy(): string {
-  return Object.entries(CSP_DIRECTIVES)
-    .map(([name, sources]) => `${name} ${sources.join(" ")}`)
-    .join("; ");
-}
-
-/** Headers sent with every file the app protocol serves. */
-export function securityHeaders(): Record<string, string> {
-  return {
-    "Content-Security-Policy": contentSecurityPolicy(),
-    "X-Content-Type-Options": "nosniff",
-    "Cross-Origin-Opener-Policy": "same-origin",
-    "Referrer-Policy": "no-referrer",
-  };
-}
+// The studio's Content-Security-Policy and response headers: defined in src/model/contentSecurity.ts, which the
+// browser studio's server config shares (renderer/ may not import main/).
+export { CSP_DIRECTIVES, contentSecurityPolicy, securityHeaders } from "../src/model/contentSecurity.ts";

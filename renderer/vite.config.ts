@@ -2,8 +2,8 @@
 // copied into the build from assets/demo (publicDir), so the file is not duplicated in git.
 import { defineConfig } from "vite";
 import react from "@vitejs/plugin-react";
-// eslint-disable-next-line no-restricted-imports -- build config, not studio code: the browser studio gets the desktop app's own headers
-import { securityHeaders } from "../main/csp.ts";
+// the desktop app's own headers (main/protocol.ts serves the same ones)
+import { securityHeaders } from "../src/model/contentSecurity.ts";
 
 const here = import.meta.dirname;
 

@@ -101,6 +101,9 @@ export const steps = [
       await page.keyboard.press("f");
       await page.locator('[data-testid="fault-ikss"]').first().waitFor({ timeout: 15000 });
       assert.equal(await page.getByTestId("overlay-time").count(), 0, "the edit-to-overlay time is a developer figure: hidden by default");
+      const bar = await page.locator(".toolbar").boundingBox();
+      const button = await page.getByRole("button", { name: "Clear fault" }).boundingBox();
+      assert.ok(bar.height < 1.8 * button.height, `the command bar stays on one line with a fault placed (${bar.height} px)`);
       // 6: the fault view's voltage table names the buses
       const busCells = await page.locator(".fault-view .data-table tbody td:first-child").allTextContents();
       assert.ok(busCells.includes("Milking shed board (LV-MS)"), `bus names in the voltage table (${busCells.slice(0, 3).join(", ")})`);

@@ -6,6 +6,7 @@
 // for a converter, its injection. Shared by the fresh compile (compileNetwork's openEnds) and the low-rank re-solve
 // (src/engine/reopen), so both solve the same network.
 import type { BranchStamp, Cx, InverterUnit, Model, ShuntStamp } from "./model.ts";
+import { elementLabel } from "../../model/elementLabel.ts";
 
 /** One opened element end (a protective device's `at`). */
 export interface OpenEnd {
@@ -16,6 +17,18 @@ export interface OpenEnd {
 /** Canonical key of a set of opened ends (order and duplicates do not matter). */
 export function openSetKey(ends: readonly OpenEnd[]): string {
   return [...new Set(ends.map((e) => `${e.element}|${e.end}`))].sort().join(";");
+}
+
+/** Element kinds whose ends are "from"/"to", and those with a "terminal". */
+const BRANCH_KINDS = new Set(["line", "transformer", "switch"]);
+const SHUNT_KINDS = new Set(["grid", "generator", "inverter", "motor", "load"]);
+
+/** Why an end does not fit an element of this kind (null when it does), naming the element and the field. */
+export function openEndError(element: { id: string; kind: string; name?: string }, end: string): string | null {
+  const who = elementLabel(element);
+  if (BRANCH_KINDS.has(element.kind)) return end === "from" || end === "to" ? null : `Opened end of ${who}: end must be "from" or "to" for a ${element.kind} (got "${end}")`;
+  if (SHUNT_KINDS.has(element.kind)) return end === "terminal" ? null : `Opened end of ${who}: end must be "terminal" for a ${element.kind} (got "${end}")`;
+  return `Opened end of ${who}: a ${element.kind} has no end a protective device can open`;
 }
 
 const ZERO: Cx = { re: 0, im: 0 };

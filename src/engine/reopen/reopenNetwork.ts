@@ -12,7 +12,7 @@ import type { Model, Seq } from "../network/model.ts";
 import { compileNetwork } from "../network/compileNetwork.ts";
 import { createEngineCache, type EngineCache } from "../network/engineCache.ts";
 import { assignIslands } from "../network/assignIslands.ts";
-import { openSetKey, openStamps, type OpenEnd } from "../network/openEnds.ts";
+import { openEndError, openSetKey, openStamps, type OpenEnd } from "../network/openEnds.ts";
 import { sequenceSystem, zColumn, type SequenceSystem, type Variant } from "../network/sequenceSystem.ts";
 import { solveFault, type EngineInternal } from "../fault/solveFault.ts";
 import type { ComplexVec } from "../fault/solveLinearFault.ts";
@@ -111,7 +111,11 @@ export function reopenedSet(ctx: ReopenContext, ends: readonly OpenEnd[]): Reope
   if (hit) return touch(ctx.sets, key, hit, ctx.maxSets);
   const list = [...new Map(ends.map((e) => [`${e.element}|${e.end}`, { element: e.element, end: e.end }])).values()];
   const byId = new Map(ctx.project.elements.map((e) => [e.id, e]));
-  for (const e of list) if (!byId.has(e.element)) throw new Error(`Opened end ${e.element} (${e.end}): unknown element`);
+  for (const e of list) {
+    const el = byId.get(e.element);
+    const bad = el ? openEndError(el, e.end) : `Opened end ${e.element} (${e.end}): unknown element`;
+    if (bad) throw new Error(bad);
+  }
   const switches = list.filter((e) => byId.get(e.element)?.kind === "switch");
   let set: ReopenedSet;
   if (switches.length > 0) {

@@ -237,6 +237,10 @@ describe("an opened set that leaves a section without a source", () => {
     expect(() => solveReopened(ctx, [{ element: "nope", end: "from" }], { kind: "bus", bus: "A" }, "3ph")).toThrow(/nope/);
     const bad = compileNetwork(p, { limit: "max", openEnds: [{ element: "Q", end: "from" }] });
     expect(bad.ok).toBe(false);
+    if (!bad.ok) expect(bad.errors[0]).toMatchObject({ element: "Q", text: expect.stringMatching(/Grid feeder Q.*: end must be "terminal"/) });
+    const busEnd = compileNetwork(p, { limit: "max", openEnds: [{ element: "B", end: "from" }] });
+    expect(!busEnd.ok && busEnd.errors[0].text).toMatch(/Bus B.*: a bus has no end/);
+    expect(() => solveReopened(ctx, [{ element: "Q", end: "to" }], { kind: "bus", bus: "A" }, "3ph")).toThrow(/Grid feeder Q.*: end must be "terminal" for a grid/);
   });
 });
 

@@ -1,7 +1,7 @@
 // Crash-recovery copies in the browser, one per tab: two tabs no longer share one slot (tab B was offered tab
 // A's work, and after a crash only one came back). Each tab has an id kept in its sessionStorage (a restored
 // tab keeps it) and holds a Web Lock named after it while it lives. A tab is offered its own copy, else the
-// newest copy of a tab that is gone (its lock is free), never the copy of a tab that is still open.
+// newest copy of a tab that is gone (its lock can be taken), never the copy of a tab that is still open.
 import type { KeyValueStore } from "./keyValueStore.ts";
 
 export const AUTOSAVE_PREFIX = "autosave:";
@@ -19,9 +19,12 @@ export interface AutosaveRecord {
 export interface TabEnvironment {
   /** This tab's id (kept across reloads and session restore of the same tab). */
   tabId(): string;
-  /** Ids of tabs that are open now, or null when the browser cannot tell (no Web Locks). */
-  openTabs(): Promise<Set<string> | null>;
+  /** True when tab `id` is gone (closed or crashed), false while it is open, null when the browser cannot tell. */
+  tabGone(id: string): Promise<boolean | null>;
 }
+
+/** A tab just closed frees its lock a moment later: wait this long for it before taking the tab as open. */
+const RELEASE_WAIT_MS = 2000;
 
 export function browserTabEnvironment(): TabEnvironment {
   let id: string | null = null;
@@ -40,11 +43,11 @@ export function browserTabEnvironment(): TabEnvironment {
   };
   return {
     tabId,
-    async openTabs() {
+    async tabGone(other) {
       const locks = (navigator as Navigator & { locks?: LockManager }).locks;
       if (!locks) return null;
-      const state = await locks.query();
-      return new Set((state.held ?? []).map((l) => l.name ?? "").filter((n) => n.startsWith(LOCK_PREFIX)).map((n) => n.slice(LOCK_PREFIX.length)));
+      // taking the tab's lock (and giving it back at once) succeeds only when no open tab holds it
+      return locks.request(LOCK_PREFIX + other, { signal: AbortSignal.timeout(RELEASE_WAIT_MS) }, () => true).catch(() => false);
     },
   };
 }
@@ -59,15 +62,15 @@ export function tabAutosave(store: KeyValueStore, env: TabEnvironment) {
     async read(): Promise<{ text: string; savedAt: string } | null> {
       const mine = await store.get<AutosaveRecord>(own());
       if (mine) return { text: mine.text, savedAt: mine.savedAt };
-      const open = await env.openTabs();
-      let best: { key: string; record: AutosaveRecord } | null = null;
+      const copies: { key: string; record: AutosaveRecord }[] = [];
       for (const key of await store.keys(AUTOSAVE_PREFIX)) {
-        const tab = key.slice(AUTOSAVE_PREFIX.length);
-        // without Web Locks no tab can be told gone: offer nothing rather than another tab's live work
-        if (open === null || open.has(tab) || key === own()) continue;
-        const record = await store.get<AutosaveRecord>(key);
-        if (record && (!best || record.savedAt > best.record.savedAt)) best = { key, record };
+        const record = key === own() ? undefined : await store.get<AutosaveRecord>(key);
+        if (record) copies.push({ key, record });
       }
+      copies.sort((a, b) => (a.record.savedAt < b.record.savedAt ? 1 : a.record.savedAt > b.record.savedAt ? -1 : 0));
+      // newest first; without Web Locks no tab can be told gone: offer nothing rather than another tab's live work
+      const gone = await Promise.all(copies.map((c) => env.tabGone(c.key.slice(AUTOSAVE_PREFIX.length))));
+      const best = copies.find((_, k) => gone[k] === true) ?? null;
       if (!best) return null;
       // this tab adopts the copy, so another tab is not offered it too
       await store.set(own(), best.record);

@@ -55,7 +55,7 @@ async function waitForStatus(page, deviceName, status) {
     .waitForFunction(
       ([name, want]) => [...document.querySelectorAll(".chain-step")].some((row) => row.textContent.includes(name) && row.querySelector(".ap-status-dot")?.getAttribute("title") === want),
       [deviceName, status],
-      { timeout: 10000 },
+      { timeout: 45000 }, // an upper bound for a loaded machine, not a delay: it returns as soon as the status shows
     )
     .then(() => true, () => false);
   if (!reached) assert.equal(await chainStatusOf(page, deviceName), status);

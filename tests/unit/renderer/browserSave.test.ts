@@ -30,7 +30,7 @@ function memoryStore(persistent = true): KeyValueStore & { data: Map<string, unk
 
 /** Tabs sharing one store; `open` lists the tabs alive. */
 function tabs(open: Set<string>) {
-  return (id: string): TabEnvironment => ({ tabId: () => id, openTabs: async () => new Set(open) });
+  return (id: string): TabEnvironment => ({ tabId: () => id, tabGone: async (other) => !open.has(other) });
 }
 
 function fakeHandle(name: string, fail?: string) {

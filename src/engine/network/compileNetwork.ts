@@ -29,6 +29,13 @@ function positiveField(e: Element, field: string, value: unknown, errors: Engine
   }
 }
 
+/**
+ * Reactance of a closed breaker that carries a protective device, per unit on the study base: small enough to
+ * change no fault current by more than rounding (a busbar section's own impedance is a hundred times more), large
+ * enough for the device's current to be read from the voltage across it without loss of precision.
+ */
+export const PROTECTED_SWITCH_X_PU = 1e-5;
+
 export function compileNetwork(project: Project, options: CompileOptions): CompileResult {
   const opts = resolveOptions(project, options.limit, options.method);
   const errors: EngineMessage[] = [];
@@ -57,6 +64,14 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
     return false; // bus out of service: the element drops out with it
   };
 
+  // A breaker-type switch that a protective device sits at is a branch, so that its current is known (see
+  // PROTECTED_SWITCH_X_PU); every other closed switch joins its buses into one node.
+  const protectedSwitches = new Set<string>();
+  for (const e of project.elements)
+    if ((e.kind === "relay" || e.kind === "fuse" || e.kind === "lvbreaker") && !out.has(e.id)) {
+      const host = project.elements.find((x) => x.id === e.at.element);
+      if (host?.kind === "switch" && host.device === "breaker") protectedSwitches.add(host.id);
+    }
   // Union-find over closed in-service switches.
   const busIds = [...buses.keys()];
   const parent = new Map<string, string>(busIds.map((b) => [b, b]));
@@ -66,7 +81,7 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
     return r;
   };
   for (const e of project.elements) {
-    if (e.kind !== "switch" || out.has(e.id)) continue;
+    if (e.kind !== "switch" || out.has(e.id) || protectedSwitches.has(e.id)) continue;
     const closed = (ownValue(states, e.id) ?? e.closed) && !openSwitches.has(e.id);
     if (!closed) continue;
     const okA = busOf(e, "busA", e.busA);
@@ -208,6 +223,20 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
         if (r.error) errors.push(err(r.error, e.id));
         branches.push(r.stamp);
         if (plan && plan.kTrInside !== null) inUnitBranch.set(e.id, transformerStamp({ ...input, kUnit: plan.kTrInside }).stamp);
+        break;
+      }
+      case "switch": {
+        if (!protectedSwitches.has(e.id)) break;
+        const closed = (ownValue(states, e.id) ?? e.closed) && !openSwitches.has(e.id);
+        if (!closed || !busOf(e, "busA", e.busA) || !busOf(e, "busB", e.busB)) break;
+        const f = busNode.get(e.busA)!;
+        const t = busNode.get(e.busB)!;
+        if (Math.abs(nodes[f].un_kV - nodes[t].un_kV) > 1e-9 * nodes[f].un_kV) {
+          errors.push(err(`${label}: busA and busB have different un_kV (${nodes[f].un_kV} and ${nodes[t].un_kV})`, e.id));
+          break;
+        }
+        const z = { re: 0, im: PROTECTED_SWITCH_X_PU };
+        branches.push({ element: e.id, label, kind: "switch", from: f, to: t, fromBus: e.busA, toBus: e.busB, t: 1, shift_deg: 0, y: [inv(z), inv(z), inv(z)], y0From: null, y0To: null, z1: z });
         break;
       }
       default:

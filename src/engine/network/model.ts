@@ -15,7 +15,8 @@ export interface Cx {
 export interface BranchStamp {
   element: string;
   label: string;
-  kind: "transformer" | "line";
+  /** A switch is a branch only when a protective device sits at it (a closed breaker of tiny reactance). */
+  kind: "transformer" | "line" | "switch";
   from: number;
   to: number;
   fromBus: string;

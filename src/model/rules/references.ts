@@ -50,6 +50,12 @@ function deviceLocation(ctx: RuleContext, device: Element & { at: { element: str
     if (end === "terminal") return [errorMessage(`${label}: at.end must be "from" or "to" for ${kindWord(target)} (${ctx.label(target)}), got "terminal"`, device.id, "at.end")];
     return [];
   }
+  if (target.kind === "switch") {
+    if (target.device !== "breaker")
+      return [errorMessage(`${label}: at.element "${element}" is a ${target.device === "switch" ? "load switch" : "disconnector"} (${ctx.label(target)}), which cannot interrupt a fault; only a breaker-type switch can carry a protective device`, device.id, "at.element")];
+    if (end === "terminal") return [errorMessage(`${label}: at.end must be "from" (at busA, looking towards busB) or "to" (at busB, looking towards busA) for a switch (${ctx.label(target)}), got "terminal"`, device.id, "at.end")];
+    return [];
+  }
   if (SHUNT_KINDS.has(target.kind)) {
     if (end !== "terminal") return [errorMessage(`${label}: at.end must be "terminal" for ${kindWord(target)} (${ctx.label(target)}), got "${end}"`, device.id, "at.end")];
     return [];

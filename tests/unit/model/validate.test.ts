@@ -138,6 +138,25 @@ describe("dangling references", () => {
     expect(byId.FB.text).toContain("names a bus; a protective device sits at a branch end or a shunt element's terminal");
   });
 
+  it("lets a protective device sit at a breaker-type switch, and refuses a load switch, a disconnector and the terminal end", () => {
+    const doc = smallDoc();
+    const lv = "LV";
+    doc.elements.push({ kind: "bus", id: "LV2", un_kV: elementById(doc, lv).un_kV });
+    doc.elements.push({ kind: "switch", id: "CB", name: "Coupler", device: "breaker", busA: lv, busB: "LV2", closed: true });
+    doc.elements.push({ kind: "switch", id: "LS", device: "switch", busA: lv, busB: "LV2", closed: false });
+    doc.elements.push({ kind: "switch", id: "DS", device: "disconnector", busA: lv, busB: "LV2", closed: false });
+    doc.elements.push({ kind: "lvbreaker", id: "Q-CB", at: { element: "CB", end: "from" }, in_A: 800, longTime: { ir_x: 1, tr_s: 10 } });
+    doc.elements.push({ kind: "lvbreaker", id: "Q-LS", at: { element: "LS", end: "from" }, in_A: 800, longTime: { ir_x: 1, tr_s: 10 } });
+    doc.elements.push({ kind: "relay", id: "R-DS", at: { element: "DS", end: "to" }, ctPrimary_A: 400, functions: [] });
+    doc.elements.push({ kind: "fuse", id: "F-CB", at: { element: "CB", end: "terminal" }, rating_A: 100 });
+    const byId = Object.fromEntries(errors(validateProject(doc)).map((m) => [m.elementId, m]));
+    expect(byId["Q-CB"]).toBeUndefined();
+    expect(byId["Q-LS"]).toMatchObject({ field: "at.element" });
+    expect(byId["Q-LS"].text).toContain("is a load switch");
+    expect(byId["R-DS"].text).toContain("is a disconnector");
+    expect(byId["F-CB"]).toMatchObject({ field: "at.end" });
+  });
+
   it("flags scenario references to missing elements and switch overrides on non-switches", () => {
     const doc = smallDoc();
     doc.scenarios[1].outOfService = ["G", "GHOST"];

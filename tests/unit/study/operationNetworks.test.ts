@@ -152,7 +152,7 @@ describe("an LV board in two sections, each with its incomer", () => {
     shortTime: { isd_x: 3, tsd_s },
     tolerance: { pickup_pct: 0, time_pct: 0, time_min_s: 0 },
   });
-  const board = (coupler: "protected" | "plain") =>
+  const board = (coupler: "protected" | "plain" | "breaker") =>
     makeProject(
       [
         { kind: "bus", id: "MV", un_kV: 11 },
@@ -178,7 +178,9 @@ describe("an LV board in two sections, each with its incomer", () => {
         lvBreaker("Q-T2", "T2", "to", 1600, 0.3),
         ...(coupler === "protected"
           ? [{ kind: "line", id: "BC", fromBus: "LV-A", toBus: "LV-B", length_km: 0.005, ...lvCable, ampacity_A: 1600 }, lvBreaker("Q-BC", "BC", "from", 1600, 0.1)]
-          : [{ kind: "switch", id: "BC", device: "breaker", busA: "LV-A", busB: "LV-B", closed: true }]),
+          : coupler === "breaker"
+            ? [{ kind: "switch", id: "BC", device: "breaker", busA: "LV-A", busB: "LV-B", closed: true }, lvBreaker("Q-BC", "BC", "from", 1600, 0.1)]
+            : [{ kind: "switch", id: "BC", device: "breaker", busA: "LV-A", busB: "LV-B", closed: true }]),
       ],
       [{ id: "s1", name: "Both incomers, coupler closed", limits: ["max"] }],
     );
@@ -192,6 +194,29 @@ describe("an LV board in two sections, each with its incomer", () => {
     expect(opened(c)).toEqual(["Q-BC", "Q-T1"]);
     expect(c.operation.unwanted).toEqual([]);
     expect(c.operation.loadLost_kW).toBe(300);
+  });
+
+  it("with a trip unit on the coupler breaker itself, grades the same way as with a protected bus duct", async () => {
+    const duct = await studyProject(board("protected"), { faultTypes: ["3ph", "LG"], linePoints: false });
+    const breaker = await studyProject(board("breaker"), { faultTypes: ["3ph", "LG"], linePoints: false });
+    for (const bus of ["LV-A", "LV-B"])
+      for (const type of ["3ph", "LG"]) {
+        const id = `s1|bus:${bus}|${type}|max`;
+        const c = caseOf(breaker, id);
+        const d = caseOf(duct, id);
+        expect(c.operation.zoneBuses).toEqual([bus]);
+        expect([...c.operation.ideal].sort()).toEqual(["Q-BC", bus === "LV-A" ? "Q-T1" : "Q-T2"]);
+        expect(opened(c)).toEqual(opened(d));
+        // Kirchhoff at the healthy section (its load neglected, IEC 60909): all that its transformer gives
+        // flows through the coupler, so the coupler's trip unit reads the other incomer's current
+        const iBreaker = c.responses.find((r) => r.device === "Q-BC")!.iPhase_A;
+        const iOther = c.responses.find((r) => r.device === (bus === "LV-A" ? "Q-T2" : "Q-T1"))!.iPhase_A;
+        expect(Math.abs(iBreaker - iOther) / iOther).toBeLessThan(1e-6);
+        // and a little more than through a 5 m duct, whose own impedance the breaker lacks
+        const iDuct = d.responses.find((r) => r.device === "Q-BC")!.iPhase_A;
+        expect(iBreaker).toBeGreaterThan(iDuct);
+        expect(iBreaker / iDuct).toBeLessThan(1.15);
+      }
   });
 
   it("with a coupler that nothing trips, makes both sections one zone and loses the whole board", async () => {

@@ -104,13 +104,20 @@ export function referenceNetwork(ctx: ReopenContext, set: ReopenedSet): Compiled
   return set.reference;
 }
 
+/** Elements by id, per project (a study opens hundreds of sets on one project). */
+const elementIndex = new WeakMap<Project, Map<string, Project["elements"][number]>>();
+
 /** The opened set for these ends, built (or found) once. Throws on an end that does not fit its element. */
 export function reopenedSet(ctx: ReopenContext, ends: readonly OpenEnd[]): ReopenedSet {
   const key = openSetKey(ends);
   const hit = ctx.sets.get(key);
   if (hit) return touch(ctx.sets, key, hit, ctx.maxSets);
   const list = [...new Map(ends.map((e) => [`${e.element}|${e.end}`, { element: e.element, end: e.end }])).values()];
-  const byId = new Map(ctx.project.elements.map((e) => [e.id, e]));
+  let byId = elementIndex.get(ctx.project);
+  if (!byId) {
+    byId = new Map(ctx.project.elements.map((e) => [e.id, e]));
+    elementIndex.set(ctx.project, byId);
+  }
   for (const e of list) {
     const el = byId.get(e.element);
     const bad = el ? openEndError(el, e.end) : `Opened end ${e.element} (${e.end}): unknown element`;

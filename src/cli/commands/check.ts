@@ -1,48 +1,19 @@
-// `islet check FILE [--scenario ID] [--bus ID] [--fault TYPE] [--json]`: runs the protection study and
-// prints the verdicts with their numbers. Exit 0 when nothing fails, 1 when a verdict fails (for
-// design-review pipelines), 2 on a bad file or bad options. The JSON shape is documented in README.md.
+// `islet check FILE [--scenario ID] [--bus ID] [--fault TYPE] [--json] [--quiet]`: runs the protection study and
+// prints the verdicts with their numbers; with --json, JSON Lines written scenario by scenario (checkLines.ts).
+// Exit 0 when nothing fails, 1 when a verdict fails (for design-review pipelines), 2 on a bad file or bad
+// options, 130 when stopped by Ctrl+C. The output is documented in README.md.
 import type { CliCommand } from "../command.ts";
-import { readTextFile } from "../fileIo.ts";
-import { loadProject } from "../../model/projectFile.ts";
-import { studyProject } from "../../study/studyProject.ts";
+import { EXIT_INTERRUPTED } from "../args.ts";
 import { jsonLinesWriter } from "../jsonLines.ts";
+import { loadStep } from "../loadStep.ts";
+import { runCommand } from "../runCommand.ts";
+import { studyInSession } from "../studyRun.ts";
+import { terminalField } from "../terminalText.ts";
+import { STUDY_CAUTION, VERDICT_KINDS, type StudyOptions, type StudyResult, type Verdict } from "../../study/types.ts";
+import { checkSpec, parseCheckArgs } from "./checkArgs.ts";
 import { caseLine, headerLine, summaryLine, verdictLine, VerdictTally } from "./checkLines.ts";
-import { FAULT_TYPES, STUDY_CAUTION, VERDICT_KINDS, type FaultType, type StudyOptions, type StudyResult, type Verdict } from "../../study/types.ts";
 
-const USAGE = "Usage: islet check FILE [--scenario ID] [--bus ID] [--fault 3ph|LL|LG|LLG] [--json]";
-
-interface CheckArgs {
-  file: string;
-  json: boolean;
-  scenarios: string[];
-  buses: string[];
-  faults: FaultType[];
-}
-
-export function parseCheckArgs(args: readonly string[]): { ok: true; value: CheckArgs } | { ok: false; message: string } {
-  const out: CheckArgs = { file: "", json: false, scenarios: [], buses: [], faults: [] };
-  const files: string[] = [];
-  for (let k = 0; k < args.length; k++) {
-    const a = args[k];
-    if (a === "--json") out.json = true;
-    else if (a === "--scenario" || a === "--bus" || a === "--fault") {
-      const v = args[k + 1];
-      if (v === undefined || v.startsWith("--")) return { ok: false, message: `option ${a} needs a value` };
-      k++;
-      if (a === "--scenario") out.scenarios.push(v);
-      else if (a === "--bus") out.buses.push(v);
-      else {
-        const t = FAULT_TYPES.find((x) => x.toLowerCase() === v.toLowerCase());
-        if (!t) return { ok: false, message: `--fault must be one of ${FAULT_TYPES.join(", ")} (got ${v})` };
-        out.faults.push(t);
-      }
-    } else if (a.startsWith("--")) return { ok: false, message: `unknown option ${a}` };
-    else files.push(a);
-  }
-  if (files.length !== 1) return { ok: false, message: files.length === 0 ? "missing FILE" : `expected one FILE, got ${files.length}` };
-  out.file = files[0];
-  return { ok: true, value: out };
-}
+export { parseCheckArgs };
 
 function humanReport(file: string, result: StudyResult): string[] {
   const lines: string[] = [];
@@ -72,51 +43,32 @@ function humanReport(file: string, result: StudyResult): string[] {
 
 export const checkCommand: CliCommand = {
   name: "check",
-  summary: "run the protection study and list its verdicts; exit 1 when one fails",
-  async run(args) {
-    const parsed = parseCheckArgs(args);
-    if (!parsed.ok) {
-      console.error(`islet check: ${parsed.message}\n${USAGE}`);
-      return 2;
-    }
-    const a = parsed.value;
-    const file = readTextFile(a.file);
-    if (!file.ok) {
-      console.error(`islet check: ${file.message}`);
-      return 2;
-    }
-    const loaded = loadProject(file.text);
-    if (!loaded.ok) {
-      console.error(`${a.file}: not a valid Islet project (${loaded.error.kind}), ${loaded.error.messages.length} problem(s):`);
-      for (const m of loaded.error.messages) console.error(`  error: ${m}`);
-      return 2;
-    }
-    const project = loaded.project;
-    for (const s of a.scenarios)
-      if (!project.scenarios.some((x) => x.id === s)) {
-        console.error(`islet check: scenario ${s} is not in ${a.file} (scenarios: ${project.scenarios.map((x) => x.id).join(", ")})`);
-        return 2;
-      }
-    for (const b of a.buses)
-      if (!project.elements.some((e) => e.kind === "bus" && e.id === b)) {
-        console.error(`islet check: bus ${b} is not in ${a.file}`);
-        return 2;
-      }
-    const options: StudyOptions = {};
-    if (a.scenarios.length) options.scenarios = a.scenarios;
-    if (a.buses.length) options.buses = a.buses;
-    if (a.faults.length) options.faultTypes = a.faults;
-    if (a.json) {
-      // JSON Lines, each scenario's lines written as soon as it is done
-      const out = jsonLinesWriter();
-      const tally = new VerdictTally();
-      let warnings = 0;
-      await out.write(headerLine(a.file, project.meta.name, STUDY_CAUTION));
-      const done = await studyProject(
-        project,
-        { ...options, keepResults: false },
-        {
+  summary: checkSpec.summary,
+  spec: checkSpec,
+  run: (args) =>
+    runCommand(checkSpec, args, async (session) => {
+      const parsed = parseCheckArgs(args);
+      if (!parsed.ok) return session.usage(parsed.message);
+      const a = parsed.value;
+      const loaded = loadStep(session.out, "check", a.file, { json: false, invalidExit: 2 });
+      if (!loaded.ok) return loaded.code;
+      const project = loaded.project;
+      for (const s of a.scenarios)
+        if (!project.scenarios.some((x) => x.id === s)) return session.usage(`scenario ${s} is not in ${a.file} (scenarios: ${project.scenarios.map((x) => x.id).join(", ")})`);
+      for (const b of a.buses) if (!project.elements.some((e) => e.kind === "bus" && e.id === b)) return session.usage(`bus ${b} is not in ${a.file}`);
+      const options: StudyOptions = {};
+      if (a.scenarios.length) options.scenarios = a.scenarios;
+      if (a.buses.length) options.buses = a.buses;
+      if (a.faults.length) options.faultTypes = a.faults;
+      if (a.json) {
+        // JSON Lines, each scenario's lines written as soon as it is done
+        const out = jsonLinesWriter();
+        const tally = new VerdictTally();
+        let warnings = 0;
+        await out.write(headerLine(a.file, project.meta.name, STUDY_CAUTION));
+        const done = await studyInSession(session, project, { ...options, keepResults: false }, "", {
           onScenario: async (part) => {
+            session.progress.clear();
             for (const c of part.cases) {
               tally.cases++;
               await out.write(caseLine(c));
@@ -126,15 +78,16 @@ export const checkCommand: CliCommand = {
             for (const w of part.warnings) await out.write({ type: "warning", text: w });
             warnings += part.warnings.length;
           },
-        },
-      );
-      // settings problems found while studying come last (the device models report them as they meet them)
-      for (const w of done.warnings.slice(warnings)) await out.write({ type: "warning", text: w });
-      await out.write(summaryLine(tally, done.warnings.length));
-      return tally.failed > 0 ? 1 : 0;
-    }
-    const result = await studyProject(project, options);
-    for (const line of humanReport(a.file, result)) console.log(line);
-    return result.verdicts.some((v) => v.status === "fail") ? 1 : 0;
-  },
+        });
+        if (!done) return EXIT_INTERRUPTED;
+        // settings problems found while studying come last (the device models report them as they meet them)
+        for (const w of done.warnings.slice(warnings)) await out.write({ type: "warning", text: w });
+        await out.write(summaryLine(tally, done.warnings.length));
+        return tally.failed > 0 ? 1 : 0;
+      }
+      const result = await studyInSession(session, project, options);
+      if (!result) return EXIT_INTERRUPTED;
+      session.out.print(humanReport(terminalField(a.file), result).join("\n"));
+      return result.verdicts.some((v) => v.status === "fail") ? 1 : 0;
+    }),
 };

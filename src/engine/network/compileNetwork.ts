@@ -50,7 +50,8 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
   const buses = new Map<string, Extract<Element, { kind: "bus" }>>();
   for (const e of project.elements) if (e.kind === "bus" && !out.has(e.id)) buses.set(e.id, e);
   const allIds = new Set(project.elements.map((e) => e.id));
-  // Ends opened by protective devices: a switch opened at either end is open; other elements are opened below.
+  // Ends opened by protective devices: a switch that joins its buses into one node is open when either end is
+  // opened; other elements (a protected breaker too, a branch of its own) are opened below.
   const openSwitches = new Set<string>();
   for (const o of options.openEnds ?? []) {
     const el = project.elements.find((e) => e.id === o.element);
@@ -227,7 +228,8 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
       }
       case "switch": {
         if (!protectedSwitches.has(e.id)) break;
-        const closed = (ownValue(states, e.id) ?? e.closed) && !openSwitches.has(e.id);
+        // An opened end of it is opened below like any branch end (its ends stay, carrying nothing).
+        const closed = ownValue(states, e.id) ?? e.closed;
         if (!closed || !busOf(e, "busA", e.busA) || !busOf(e, "busB", e.busB)) break;
         const f = busNode.get(e.busA)!;
         const t = busNode.get(e.busB)!;
@@ -258,7 +260,8 @@ export function compileNetwork(project: Project, options: CompileOptions): Compi
   const model: Model = { nodes, branches, shunts, inverters, busNode, baseMVA: opts.baseMVA, devices, islandLive: [] };
   const rangeErrors = stampRangeErrors(model, new Map(project.elements.map((e) => [e.id, e] as const)), opts.baseMVA);
   if (rangeErrors.length > 0) return { ok: false, errors: rangeErrors };
-  const openEnds = (options.openEnds ?? []).filter((o) => !openSwitches.has(o.element));
+  // Switches that join their buses into one node were opened above; a protected breaker is a branch like the rest.
+  const openEnds = (options.openEnds ?? []).filter((o) => !openSwitches.has(o.element) || protectedSwitches.has(o.element));
   if (openEnds.length > 0) {
     try {
       Object.assign(model, openStamps(model, openEnds));

@@ -16,6 +16,80 @@ export interface LowRankUpdate {
   wim: Float64Array;
   /** H, [(a * m + b) * 2 + re/im]. */
   h: Float64Array;
+  /**
+   * D itself (same layout) when the result is refined: opening a very stiff element (a protected breaker's 1e-5 pu)
+   * leaves Z' as the difference of nearly equal base columns, so each solve gets residual steps on A' = A + E D E^T.
+   */
+  refineWith?: Float64Array;
+}
+
+/** Refinement steps for a stiff update (each: a residual on A', a solve and the correction). */
+const REFINE_STEPS = 2;
+
+/**
+ * x <- x + Z'(b - A' x), REFINE_STEPS times, where `solve` applies Z' (the base solve and the update) and A' is the
+ * factor's own matrix (lower storage, permuted) plus E D E^T.
+ */
+export function refineLowRank(
+  u: LowRankUpdate,
+  f: { n: number; aPtr: Int32Array; aRow: Int32Array; aRe: Float64Array; aIm: Float64Array; ordering: { perm: Int32Array } },
+  bre: Float64Array,
+  bim: Float64Array,
+  xre: Float64Array,
+  xim: Float64Array,
+  solve: (rre: Float64Array, rim: Float64Array) => { re: Float64Array; im: Float64Array },
+): void {
+  const d = u.refineWith;
+  if (!d) return;
+  const { n, aPtr, aRow, aRe, aIm } = f;
+  const perm = f.ordering.perm;
+  const m = u.rank;
+  const pr = new Float64Array(n);
+  const pi = new Float64Array(n);
+  const rr = new Float64Array(n);
+  const ri = new Float64Array(n);
+  for (let step = 0; step < REFINE_STEPS; step++) {
+    for (let k = 0; k < n; k++) {
+      pr[k] = xre[perm[k]];
+      pi[k] = xim[perm[k]];
+      rr[k] = bre[perm[k]];
+      ri[k] = bim[perm[k]];
+    }
+    for (let j = 0; j < n; j++)
+      for (let p = aPtr[j]; p < aPtr[j + 1]; p++) {
+        const i = aRow[p];
+        const ar = aRe[p];
+        const ai = aIm[p];
+        rr[i] -= ar * pr[j] - ai * pi[j];
+        ri[i] -= ar * pi[j] + ai * pr[j];
+        if (i !== j) {
+          rr[j] -= ar * pr[i] - ai * pi[i];
+          ri[j] -= ar * pi[i] + ai * pr[i];
+        }
+      }
+    // back to original order, then the E D E^T part at the nodes G
+    const or = new Float64Array(n);
+    const oi = new Float64Array(n);
+    for (let k = 0; k < n; k++) {
+      or[perm[k]] = rr[k];
+      oi[perm[k]] = ri[k];
+    }
+    for (let a = 0; a < m; a++)
+      for (let b = 0; b < m; b++) {
+        const dr = d[(a * m + b) * 2];
+        const di = d[(a * m + b) * 2 + 1];
+        if (dr === 0 && di === 0) continue;
+        const xr = xre[u.nodes[b]];
+        const xi = xim[u.nodes[b]];
+        or[u.nodes[a]] -= dr * xr - di * xi;
+        oi[u.nodes[a]] -= dr * xi + di * xr;
+      }
+    const dx = solve(or, oi);
+    for (let i = 0; i < n; i++) {
+      xre[i] += dx.re[i];
+      xim[i] += dx.im[i];
+    }
+  }
 }
 
 /** x <- x - W H W^T b, for x = Z b already computed (b given separately). */

@@ -7,7 +7,7 @@ import type { EngineCache } from "./engineCache.ts";
 import { minimumDegree, type Ordering } from "../sparse/minimumDegree.ts";
 import { factorLdlt, solveLdlt, SingularPivot, type LdltFactor, type SymmetricTriplets } from "../sparse/ldlt.ts";
 import { EngineFailure } from "../engineFailure.ts";
-import { applyLowRank, applyLowRankColumn, type LowRankUpdate } from "./lowRankUpdate.ts";
+import { applyLowRank, applyLowRankColumn, refineLowRank, type LowRankUpdate } from "./lowRankUpdate.ts";
 
 export type Variant = "iec" | "refined";
 
@@ -210,14 +210,21 @@ function applyBordered(sys: SequenceSystem, bre: Float64Array, bim: Float64Array
   return { re, im };
 }
 
-/** Z' b for b given (returns new arrays). */
-export function applyZ(sys: SequenceSystem, bre: Float64Array, bim: Float64Array): { re: Float64Array; im: Float64Array } {
-  if (sys.border) return applyBordered(sys, bre, bim);
+/** One solve with the factor and the low-rank update, if any. */
+function solveUpdated(sys: SequenceSystem, bre: Float64Array, bim: Float64Array): { re: Float64Array; im: Float64Array } {
   const re = bre.slice();
   const im = bim.slice();
   solveLdlt(sys.factor, re, im);
   if (sys.update) applyLowRank(sys.update, bre, bim, re, im);
   return { re, im };
+}
+
+/** Z' b for b given (returns new arrays). */
+export function applyZ(sys: SequenceSystem, bre: Float64Array, bim: Float64Array): { re: Float64Array; im: Float64Array } {
+  if (sys.border) return applyBordered(sys, bre, bim);
+  const x = solveUpdated(sys, bre, bim);
+  if (sys.update?.refineWith) refineLowRank(sys.update, sys.factor, bre, bim, x.re, x.im, (rr, ri) => solveUpdated(sys, rr, ri));
+  return x;
 }
 
 /** Column k of Z'. */
@@ -226,6 +233,7 @@ export function zColumn(sys: SequenceSystem, k: number): { re: Float64Array; im:
   const im = new Float64Array(sys.n);
   re[k] = 1;
   if (sys.border) return applyBordered(sys, re, im);
+  if (sys.update?.refineWith) return applyZ(sys, re, im);
   solveLdlt(sys.factor, re, im);
   if (sys.update) applyLowRankColumn(sys.update, k, re, im);
   return { re, im };

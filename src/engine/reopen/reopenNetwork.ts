@@ -4,8 +4,8 @@
 // gives what solveFault gives on compileNetwork(project, { ...options, openEnds }). Opened sets are cached: a study
 // re-solves many faults with the same few opened ends.
 // What the update does not cover goes to that fresh compile, with the reason in the result's messages:
-// a switch opened (it merges buses into one node, so opening it splits a node) and a fault at a power station
-// unit's LV node (solved on the unit's own variant model).
+// a switch opened that joins its buses into one node (opening it splits a node; a protected breaker is a branch and
+// opens on the update) and a fault at a power station unit's LV node (solved on the unit's own variant model).
 import type { Project } from "../../model/schema.ts";
 import type { CompileOptions, CompiledNetwork, EngineMessage, FaultLocation, FaultOptions, FaultResult, FaultType, NetworkNode } from "../types.ts";
 import type { Model, Seq } from "../network/model.ts";
@@ -123,10 +123,13 @@ export function reopenedSet(ctx: ReopenContext, ends: readonly OpenEnd[]): Reope
     const bad = el ? openEndError(el, e.end) : `Opened end ${e.element} (${e.end}): unknown element`;
     if (bad) throw new Error(bad);
   }
-  const switches = list.filter((e) => byId.get(e.element)?.kind === "switch");
+  // A switch that joins its buses into one node cannot open on the base factorization; a protected breaker is a
+  // branch of its own (compileNetwork) and opens like any branch end.
+  const { model: baseModel } = ctx.base.internal as EngineInternal;
+  const switches = list.filter((e) => byId.get(e.element)?.kind === "switch" && !baseModel.branches.some((b) => b.element === e.element));
   let set: ReopenedSet;
   if (switches.length > 0) {
-    set = { key, ends: list, network: null, fallback: `switch ${switches[0].element} opened (a switch merges its buses into one node)`, reference: null };
+    set = { key, ends: list, network: null, fallback: `switch ${switches[0].element} opened (a switch without a protective device joins its buses into one node)`, reference: null };
   } else {
     set = { key, ends: list, network: openedNetwork(ctx, list), fallback: null, reference: null };
   }

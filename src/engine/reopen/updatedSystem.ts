@@ -11,6 +11,8 @@ import type { ComplexVec } from "../fault/solveLinearFault.ts";
 import { EngineFailure } from "../engineFailure.ts";
 
 const SEQUENCE_NAMES = ["zero", "positive", "negative"] as const;
+/** max |D| max |Z_GG| beyond which solves on the update are refined (see LowRankUpdate.refineWith). */
+const STIFF = 1e3;
 
 /** Columns of the base Z' at nodes, per sequence system (a study reuses the same few device-end nodes). */
 export type BaseColumns = (sys: SequenceSystem, node: number) => ComplexVec;
@@ -173,7 +175,15 @@ export function updatedSystem(base: Model, opened: Model, sys0: SequenceSystem, 
       h[(a * m + b) * 2] = hr;
       h[(a * m + b) * 2 + 1] = hi;
     }
-  const update: LowRankUpdate = { rank: m, nodes: Int32Array.from(delta.nodes), wre, wim, h };
+  // Stiffness of what opened against the network around it: max |D| max |Z_GG|. Beyond STIFF the update's Z' is a
+  // difference of nearly equal base columns, and each solve gets residual steps on the opened matrix.
+  let dMax = 0;
+  let zMax = 0;
+  for (let a = 0; a < m; a++) {
+    for (let b = 0; b < m; b++) dMax = Math.max(dMax, Math.hypot(D[(a * m + b) * 2], D[(a * m + b) * 2 + 1]));
+    zMax = Math.max(zMax, Math.hypot(wre[a * n + delta.nodes[a]], wim[a * n + delta.nodes[a]]));
+  }
+  const update: LowRankUpdate = { rank: m, nodes: Int32Array.from(delta.nodes), wre, wim, h, ...(dMax * zMax > STIFF ? { refineWith: D } : {}) };
   const sys: SequenceSystem = { seq: s, n, factor: sys0.factor, comp: parts.comp, floating: parts.floating, wre: sys0.wre.slice(), wim: sys0.wim.slice(), update };
   // w = Z'[:, ref] on every floating part the update touches; untouched parts are base parts, their w unchanged.
   const touched = new Set(delta.nodes.map((node) => parts.comp[node]));

@@ -296,3 +296,47 @@ describe("the peak factor of a ring opened at one end", () => {
     expect(solveReopened(ctx, [], { kind: "bus", bus: "C" }, "3ph").peakMethod).toBe("meshed-method-b");
   });
 });
+
+describe("an LV board whose coupler breaker carries a trip unit", () => {
+  // Sections A and B at 0.4 kV, a 20 MVA infeed on A and a 15 MVA one on B (R/X 0.1, z0z1 1), coupled by breaker S
+  // with an LV trip unit: the engine keeps S as a branch of its own, so opening it is an update like any branch end.
+  const p = buildProject([
+    bus("A", 0.4),
+    bus("B", 0.4),
+    { kind: "grid", id: "QA", bus: "A", skMax_MVA: 20, skMin_MVA: 10, rx: 0.1 },
+    { kind: "grid", id: "QB", bus: "B", skMax_MVA: 15, skMin_MVA: 8, rx: 0.1 },
+    { kind: "switch", id: "S", busA: "A", busB: "B", device: "breaker" },
+    { kind: "lvbreaker", id: "Q-S", at: { element: "S", end: "from" }, in_A: 1600, longTime: { ir_x: 1, tr_s: 10 }, shortTime: { isd_x: 4, tsd_s: 0.2 } },
+  ]);
+  const ctx = createReopenContext(p, { limit: "max" });
+
+  for (const side of ["from", "to"] as const)
+    it(`opened at its ${side} end, leaves each section to its own infeed (on the update, as a fresh compile)`, () => {
+      const ends: OpenEnd[] = [{ element: "S", end: side }];
+      const fresh = compileNetwork(p, { limit: "max", openEnds: ends });
+      if (!fresh.ok) throw new Error("compile");
+      for (const [b, sk] of [["A", 20], ["B", 15]] as const) {
+        const r = solveReopened(ctx, ends, { kind: "bus", bus: b }, "3ph");
+        // c Un / (sqrt3 |ZQ|) with ZQ = c Un^2 / S"k: I"k = S"k / (sqrt3 Un), c = 1.10 at LV; to 1e-9 pu of the
+        // 144 kA base current (the breaker's 1e-5 pu against 5.5 pu of infeed costs the update some ten digits).
+        expect(Math.abs(r.ikss_kA - (1.1 * 0.4) / (Math.sqrt(3) * mag(feeder(1.1, 0.4, sk, 0.1)))) / (100 / (Math.sqrt(3) * 0.4))).toBeLessThan(1e-9);
+        expect(r.messages.some((m) => m.code === "reopen-fresh-compile")).toBe(false);
+        for (const x of end(r, "S", side)!.seq_A) expect(x.mag).toBe(0);
+        for (const type of ["LG", "LL", "LLG"] as const) {
+          const want = solveFault(fresh.network, { kind: "bus", bus: b }, type);
+          const got = solveReopened(ctx, ends, { kind: "bus", bus: b }, type);
+          const base_A = 100e3 / (Math.sqrt(3) * 0.4);
+          expect(Math.abs(got.ikss_kA - want.ikss_kA) / (base_A / 1000)).toBeLessThan(1e-9);
+          for (const e of [...want.branchEnds, ...want.shunts]) for (let s = 0; s < 3; s++) expect(Math.abs(end(got, e.element, e.end)!.seq_A[s].mag - e.seq_A[s].mag) / base_A).toBeLessThan(1e-9);
+        }
+      }
+      expect(ctx.stats.reference).toBe(0);
+    });
+
+  it("closed, carries the current the B infeed sends to a fault on A (the breaker as a branch)", () => {
+    const r = solveReopened(ctx, [], { kind: "bus", bus: "A" }, "3ph");
+    // From the B side: c Un / (sqrt3 |ZQB + j 1e-5 pu|) ~ S"kB / (sqrt3 Un); the breaker's 1e-5 pu changes it by
+    // under 1e-4 (it is ZQB in pu, 1.1 * 100 / 15 = 7.3 pu, that matters).
+    expect(end(r, "S", "from")!.phase_A[0].mag / 1000).toBeCloseTo((1.1 * 0.4) / (Math.sqrt(3) * mag(feeder(1.1, 0.4, 15, 0.1))), 3);
+  });
+});

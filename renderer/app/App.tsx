@@ -15,12 +15,12 @@ import { OperatingModes } from "../modes/OperatingModes.tsx";
 import { addElement, deviceLocationOn, isProtectiveKind, newPartSize } from "../canvas/editCommands.ts";
 import { freeSpot } from "../canvas/freeSpot.ts";
 import { useDocumentStore } from "../store/documentStore.ts";
-import { useSessionStore } from "../store/sessionStore.ts";
+import { useSessionStore, bottomFractionOf } from "../store/sessionStore.ts";
 import { PaneSplitter } from "./PaneSplitter.tsx";
 
 function Workspace({ panes }: { panes: PaneEntry[] }) {
   const flow = useReactFlow();
-  const fraction = useSessionStore((s) => s.bottomFraction);
+  const fraction = useSessionStore(bottomFractionOf);
   const enlarged = useSessionStore((s) => s.bottomEnlarged);
   useKeyboard();
   const onAdd = (kind: ElementKind) => {

@@ -1,12 +1,14 @@
 // The bar between the one-line and the lower panes: drag it (or focus it and use the arrow keys) to
-// share the height between them; double-click puts it back. Kept per user, never in the project.
+// share the height between them; double-click puts it back. Each pane keeps its own height (the fault
+// figures need little, the plot and the matrix more), per user, never in the project.
 import { useRef, type KeyboardEvent, type PointerEvent } from "react";
-import { useSessionStore, setBottomFraction, BOTTOM_FRACTION } from "../store/sessionStore.ts";
+import { useSessionStore, setBottomFraction, bottomFractionOf, BOTTOM_FRACTION, BOTTOM_START } from "../store/sessionStore.ts";
 
 const KEY_STEP = 0.05;
 
 export function PaneSplitter() {
-  const fraction = useSessionStore((s) => s.bottomFraction);
+  const fraction = useSessionStore(bottomFractionOf);
+  const pane = useSessionStore((s) => s.pane);
   const drag = useRef<{ top: number; height: number } | null>(null);
   const fractionAt = (clientY: number) => {
     const d = drag.current;
@@ -52,7 +54,7 @@ export function PaneSplitter() {
       onPointerMove={onPointerMove}
       onPointerUp={onPointerUp}
       onPointerCancel={onPointerUp}
-      onDoubleClick={() => setBottomFraction(BOTTOM_FRACTION.start, true)}
+      onDoubleClick={() => setBottomFraction(BOTTOM_START[pane], true)}
       onKeyDown={onKeyDown}
     />
   );

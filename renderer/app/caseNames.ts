@@ -36,3 +36,13 @@ export function rowGroupByName(doc: Project, row: MatrixRow): { key: string; lab
   if (loc.kind === "bus") return { key: `bus:${loc.bus}`, label: nameWithId(doc, loc.bus) };
   return { key: `line:${loc.line}`, label: `${nameWithId(doc, loc.line)}, along the line` };
 }
+
+/** A row under its group's header: the place is in the header, so the fault and the limit (and the
+ * point along a line) are enough: "Line-line, minimum", "at 50 %: Three-phase, maximum". */
+export function rowCaption(row: MatrixRow): string {
+  const p = parts(row);
+  const loc = p && parseLocationKey(p.location);
+  if (!p || !loc) return row.label;
+  const what = `${FAULT_WORDS[p.faultType] ?? p.faultType}, ${LIMIT_WORDS[p.limit] ?? p.limit}`;
+  return loc.kind === "line" ? `at ${loc.pct} %: ${what}` : what;
+}

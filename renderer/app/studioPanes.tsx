@@ -10,11 +10,13 @@ import { selectCase } from "../fault/studyCommands.ts";
 import { useCallback } from "react";
 import type { MatrixRow } from "../../src/study/types.ts";
 import { useDocumentStore } from "../store/documentStore.ts";
-import { rowGroupByName, rowLabelByName } from "./caseNames.ts";
+import { rowCaption, rowGroupByName, rowLabelByName } from "./caseNames.ts";
 
 function ChainView() {
   const { caseResult, caseVerdicts, caseError } = useStudyStore();
   const selection = useSessionStore((s) => s.selection);
+  const doc = useDocumentStore((s) => s.doc);
+  const nameOf = useCallback((id: string) => doc.elements.find((e) => e.id === id)?.name || id, [doc]);
   if (caseError) return <p className="pane-empty msg-error">{caseError}</p>;
   return (
     <ChainPane
@@ -24,6 +26,8 @@ function ChainView() {
       verdicts={caseVerdicts}
       selectedDeviceId={selection[0] ?? null}
       onStepChange={(deviceId) => useSessionStore.getState().set({ selection: [deviceId] })}
+      operation={caseResult?.operation ?? null}
+      nameOf={nameOf}
     />
   );
 }
@@ -41,6 +45,7 @@ function VerdictView() {
       selectedCaseId={caseResult?.faultCase.id ?? null}
       onSelectCase={selectCase}
       labelOfRow={labelOfRow}
+      captionOfRow={rowCaption}
       groupOfRow={groupOfRow}
     />
   );
@@ -48,7 +53,7 @@ function VerdictView() {
 
 export function studioPanes(): PaneEntry[] {
   return [
-    { id: "chain", title: "Chain", render: () => <ChainView /> },
+    { id: "chain", title: "Operation", render: () => <ChainView /> },
     { id: "tcc", title: "Time-current", render: () => <TimeCurrentView /> },
     { id: "verdicts", title: "Verdicts", render: () => <VerdictView /> },
   ];

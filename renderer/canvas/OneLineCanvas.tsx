@@ -42,7 +42,8 @@ const TINY_ZOOM = 0.15;
  * that reads comfortably on a desktop screen */
 const MIN_TEXT_PX = 10;
 const BASE_NAME_PX = 11;
-const MAX_TEXT_SCALE = 2.4;
+// beyond this (a small pane, far out) names would cover one another: they shrink with the drawing
+const MAX_TEXT_SCALE = 1.6;
 /** Above this scale the rating lines give way to the names (hover or select to read them). */
 const DETAIL_SCALE = 1.2;
 /** Layout positions in the document are node centres. */

@@ -55,8 +55,8 @@ export interface SessionState {
   diagnostics: boolean;
   /** The one-line's overview map; kept per user. */
   showMiniMap: boolean;
-  /** Share of the centre column's height given to the lower panes (splitter); kept per user. */
-  bottomFraction: number;
+  /** Share of the centre column's height given to each lower pane (splitter); kept per user. */
+  bottomFractions: Record<PaneId, number>;
   /** The lower pane enlarged over most of the one-line (e.g. to read the time-current plot). */
   bottomEnlarged: boolean;
   set(partial: Partial<Omit<SessionState, "set" | "notify" | "dismiss" | "dismissTopic">>): void;
@@ -66,8 +66,10 @@ export interface SessionState {
   dismissTopic(topic: string): void;
 }
 
-const FRACTION_KEY = "islet.bottomFraction";
-export const BOTTOM_FRACTION = { min: 0.15, max: 0.8, start: 0.26 } as const;
+const FRACTION_KEY = "islet.bottomFractions";
+export const BOTTOM_FRACTION = { min: 0.15, max: 0.8 } as const;
+/** Each pane starts with the height it needs: the fault figures little, the plot and the matrix more. */
+export const BOTTOM_START: Record<PaneId, number> = { fault: 0.26, modes: 0.26, chain: 0.36, tcc: 0.45, verdicts: 0.45 };
 
 let noticeSeq = 0;
 
@@ -87,7 +89,7 @@ export const useSessionStore = create<SessionState>()((set) => ({
   notices: [],
   diagnostics: readPreference("diagnostics", false),
   showMiniMap: readPreference("showMiniMap", true),
-  bottomFraction: readFraction(),
+  bottomFractions: readFractions(),
   bottomEnlarged: false,
   set: (partial) => set(partial),
   notify: (tone, text, details, options = {}) => {
@@ -118,22 +120,34 @@ function readPreference(key: ViewPreference, fallback: boolean): boolean {
 }
 
 
-function readFraction(): number {
+function readFractions(): Record<PaneId, number> {
+  const out = { ...BOTTOM_START };
   try {
-    const kept = Number(typeof localStorage !== "undefined" ? localStorage.getItem(FRACTION_KEY) : NaN);
-    return Number.isFinite(kept) && kept >= BOTTOM_FRACTION.min && kept <= BOTTOM_FRACTION.max ? kept : BOTTOM_FRACTION.start;
+    const kept = JSON.parse((typeof localStorage !== "undefined" ? localStorage.getItem(FRACTION_KEY) : null) ?? "{}") as Record<string, unknown>;
+    for (const id of Object.keys(out) as PaneId[]) {
+      const f = kept[id];
+      if (typeof f === "number" && f >= BOTTOM_FRACTION.min && f <= BOTTOM_FRACTION.max) out[id] = f;
+    }
   } catch {
-    return BOTTOM_FRACTION.start;
+    // unreadable or refused storage: the starting heights
   }
+  return out;
 }
 
-/** The splitter's position, clamped, remembered for this user (not in the project). */
+/** The lower pane's share of the height now (the shown pane's own). */
+export function bottomFractionOf(s: Pick<SessionState, "bottomFractions" | "pane">): number {
+  return s.bottomFractions[s.pane] ?? BOTTOM_START.fault;
+}
+
+/** The shown pane's splitter position, clamped, remembered for this user (not in the project). */
 export function setBottomFraction(fraction: number, keep: boolean): void {
   const f = Math.min(BOTTOM_FRACTION.max, Math.max(BOTTOM_FRACTION.min, fraction));
-  useSessionStore.getState().set({ bottomFraction: f, bottomEnlarged: false });
+  const s = useSessionStore.getState();
+  const bottomFractions = { ...s.bottomFractions, [s.pane]: f };
+  s.set({ bottomFractions, bottomEnlarged: false });
   if (!keep) return;
   try {
-    localStorage.setItem(FRACTION_KEY, String(Math.round(f * 1000) / 1000));
+    localStorage.setItem(FRACTION_KEY, JSON.stringify(Object.fromEntries(Object.entries(bottomFractions).map(([k, v]) => [k, Math.round(v * 1000) / 1000]))));
   } catch {
     // storage refused: the position lasts for this visit only
   }

@@ -21,6 +21,8 @@ export interface VerdictPaneProps {
   onSelectCase?: (caseId: string, scenarioId: string) => void;
   /** A row's label (default: the study's label); the studio passes one with element names. */
   labelOfRow?: (row: MatrixRow) => string;
+  /** What a row shows under its group's header (default: its label); the full label stays its tooltip. */
+  captionOfRow?: (row: MatrixRow) => string;
   /** How rows are grouped (default: by the location part of the row id, i.e. the faulted bus or line). */
   groupOfRow?: (row: MatrixRow) => { key: string; label: string };
   /** Filters to start with (default: every status and every kind). */
@@ -197,7 +199,7 @@ export function VerdictPane(props: VerdictPaneProps) {
                 ) : (
                   <div key={`r:${item.row.row.id}`} className="verdict-row" style={gridStyle} role="row">
                     <div className="verdict-case-label" title={rowLabel(item.row.row)}>
-                      {rowLabel(item.row.row)}
+                      {props.captionOfRow?.(item.row.row) ?? rowLabel(item.row.row)}
                     </div>
                     {item.row.cells.map((cell, k) => (
                       <MatrixCellButton key={matrix.scenarios[k].id} cell={cell} scenarioName={matrix.scenarios[k].name} caseLabel={rowLabel(item.row.row)} selected={cell !== null && cell.caseId === selectedCaseId} onSelect={onSelectCase} />

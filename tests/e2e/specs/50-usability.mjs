@@ -355,8 +355,9 @@ export const steps = [
       // 6: names, with the id beside them, in the matrix
       const groups = await page.locator(".verdict-group").allTextContents();
       assert.ok(groups.some((g) => g.includes("11 kV main switchboard (MV-MAIN)")), `groups are named (${groups.slice(0, 3).join(" | ")})`);
-      const rows = await page.locator(".verdict-case-label").allTextContents();
-      assert.ok(rows.length > 0 && rows.every((r) => /fault on .+\(.+\)/.test(r) && !/fault on bus /.test(r)), `case labels name the place (${rows[0]})`);
+      const rows = await page.locator(".verdict-case-label").evaluateAll((els) => els.map((e) => ({ text: e.textContent, title: e.getAttribute("title") })));
+      assert.ok(rows.length > 0 && rows.every((r) => /fault on .+\(.+\)/.test(r.title) && !/fault on bus /.test(r.title)), `case labels name the place (${rows[0]?.title})`);
+      assert.ok(rows.every((r) => /^(at [0-9.]+ %: )?(Three-phase|Line-line|Line-earth|Line-line-earth), (maximum|minimum)$/.test(r.text)), `rows under a group say the fault and the limit (${rows[0]?.text})`);
       const cell = page.locator(".verdict-scroll button.verdict-cell").first();
       await cell.click();
       await page.waitForFunction(() => document.querySelector(".verdict-scroll button.verdict-cell[aria-pressed='true']"));

@@ -1,5 +1,5 @@
 import { describe, it, expect } from "vitest";
-import { rowLabelByName, rowGroupByName, nameWithId } from "../../../renderer/app/caseNames.ts";
+import { rowLabelByName, rowGroupByName, nameWithId, rowCaption } from "../../../renderer/app/caseNames.ts";
 import { caseRowId } from "../../../src/study/keys.ts";
 import { newProject } from "../../../src/model/projectFile.ts";
 import type { Element } from "../../../src/model/schema.ts";
@@ -22,6 +22,11 @@ describe("cases by name", () => {
     const id = caseRowId({ location: { kind: "line", line: "C1", pct: 50 }, faultType: "3ph", limit: "max" });
     expect(rowLabelByName(doc(), { id, label: "" })).toBe("Three-phase fault on Dock feeder (C1) at 50 %, maximum");
     expect(rowGroupByName(doc(), { id, label: "" })).toEqual({ key: "line:C1", label: "Dock feeder (C1), along the line" });
+  });
+
+  it("under its group's header a row says only the fault, the limit and the point along a line", () => {
+    expect(rowCaption({ id: caseRowId({ location: { kind: "bus", bus: "LV-A" }, faultType: "LL", limit: "min" }), label: "" })).toBe("Line-line, minimum");
+    expect(rowCaption({ id: caseRowId({ location: { kind: "line", line: "C1", pct: 50 }, faultType: "3ph", limit: "max" }), label: "" })).toBe("at 50 %: Three-phase, maximum");
   });
 
   it("an unnamed element shows its id; an unknown row keeps the study's label", () => {

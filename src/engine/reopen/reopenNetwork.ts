@@ -160,6 +160,11 @@ function openedNetwork(ctx: ReopenContext, ends: OpenEnd[]): CompiledNetwork {
     for (const s of [1, 2] as const) {
       const sys = sequenceSystem(model, cache, s, variant);
       for (const u of model.inverters) {
+        // A stiff update's columns are solved with their residual steps (see LowRankUpdate.refineWith).
+        if (sys.update?.refineWith) {
+          cols[s].push(zColumn(sys, u.node));
+          continue;
+        }
         const j = base.inverters.findIndex((x) => x.element === u.element);
         const col = { re: baseCols[s][j].re.slice(), im: baseCols[s][j].im.slice() };
         if (sys.update) applyLowRankColumn(sys.update, u.node, col.re, col.im);

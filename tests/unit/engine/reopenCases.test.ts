@@ -310,6 +310,37 @@ describe("an LV board whose coupler breaker carries a trip unit", () => {
   ]);
   const ctx = createReopenContext(p, { limit: "max" });
 
+  it("with converters on both sections, agrees with a fresh compile to 1e-9 pu (both converter models, bus faults and the sweep)", () => {
+    // A grid-following PV unit on A and a grid-forming battery on B: their unit columns come from the stiff update.
+    const q = buildProject([
+      ...p.elements,
+      { kind: "inverter", id: "PV", bus: "A", sr_MVA: 0.5, ur_kV: 0.4, iMax_pu: 1.1, control: "grid-following" },
+      { kind: "inverter", id: "BESS", bus: "B", sr_MVA: 0.8, ur_kV: 0.4, iMax_pu: 1.5, control: "grid-forming" },
+    ] as RawElement[]);
+    const qctx = createReopenContext(q, { limit: "max" });
+    const ends: OpenEnd[] = [{ element: "S", end: "to" }];
+    const fresh = compileNetwork(q, { limit: "max", openEnds: ends });
+    if (!fresh.ok) throw new Error("compile");
+    const base_A = 100e3 / (Math.sqrt(3) * 0.4);
+    for (const inverterModel of ["iec", "refined"] as const) {
+      const sweep = sweepReopened(qctx, ends, { inverterModel, devices: [{ element: "S", end: "from" }, { element: "PV", end: "terminal" }, { element: "BESS", end: "terminal" }] });
+      sweep.busIds.forEach((b, bi) =>
+        sweep.types.forEach((type, t) => {
+          const want = solveFault(fresh.network, { kind: "bus", bus: b }, type, { inverterModel });
+          const got = solveReopened(qctx, ends, { kind: "bus", bus: b }, type, { inverterModel });
+          expect(Math.abs(got.ikss_kA - want.ikss_kA) / (base_A / 1000)).toBeLessThan(1e-9);
+          expect(Math.abs(sweep.ikss_kA[bi * sweep.types.length + t] - want.ikss_kA) / (base_A / 1000)).toBeLessThan(1e-9);
+          for (const e of [...want.branchEnds, ...want.shunts]) for (let s = 0; s < 3; s++) expect(Math.abs(end(got, e.element, e.end)!.seq_A[s].mag - e.seq_A[s].mag) / base_A).toBeLessThan(1e-9);
+          sweep.devices.forEach((dev, d) => {
+            const e = end(want, dev.element, dev.end)!;
+            const g = sweepDeviceCurrents(sweep, d, bi, t);
+            for (let s = 0; s < 3; s++) expect(Math.abs(Math.hypot(g.seq_A[s].re, g.seq_A[s].im) - e.seq_A[s].mag) / base_A).toBeLessThan(1e-9);
+          });
+        }),
+      );
+    }
+  });
+
   for (const side of ["from", "to"] as const)
     it(`opened at its ${side} end, leaves each section to its own infeed (on the update, as a fresh compile)`, () => {
       const ends: OpenEnd[] = [{ element: "S", end: side }];

@@ -66,13 +66,13 @@ export interface DeviceResponse {
 export interface ChainLink {
   device: string;
   deviceName: string;
-  /** 0 = primary, 1 = first backup, 2 = second backup, ... */
+  /** 0 = the expected device, 1 = one of its backups (they act in parallel when its breaker sticks). */
   depth: number;
   role: "primary" | "backup";
   current_A: number;
   /** Clearing time, null when the device does not operate. */
   tClear_s: number | null;
-  /** Next link's fast-edge clearing time minus this link's slow-edge clearing time; null at the end or when either does not operate. */
+  /** For a backup: its fast-edge clearing time minus the primary's slow-edge clearing time (first state); null for the primary or when either does not operate. */
   marginToNext_s: number | null;
 }
 

@@ -1,8 +1,11 @@
-// The chain pane: the primary/backup chain of the faulted location along every source path, as a
-// table grouped by path. Arrow keys step through it (Up/Down along a path, Left/Right between paths);
-// the current step is highlighted and reported so the canvas and the time-current pane follow.
+// The operation pane: for the selected case, the expected isolation (each device that must open, with its
+// backups after it: the devices that isolate the fault when its breaker sticks) beside what the protection
+// did in the simulation, in time order. Arrow keys step through the expected devices (Up/Down along one
+// device's backups, Left/Right between expected devices); the current step is highlighted and reported so the
+// canvas and the time-current pane follow.
 import { useEffect, useId, useMemo, useRef, useState, type KeyboardEvent } from "react";
-import type { DeviceResponse, FaultChains, Verdict } from "../../../src/study/types.ts";
+import type { CaseOperation, DeviceResponse, FaultChains, Verdict } from "../../../src/study/types.ts";
+import { OperationSteps } from "./OperationSteps.tsx";
 import { clampCursor, cursorForDevice, isChainKey, moveChainCursor, type ChainCursor } from "./chainCursor.ts";
 import { linkStatuses } from "./linkStatus.ts";
 import { STATUS_LABEL, type VerdictStatus } from "../shared/verdictStatus.ts";
@@ -22,12 +25,17 @@ export interface ChainPaneProps {
   selectedDeviceId?: string | null;
   /** The current step changed (keyboard or click): highlight this device everywhere. */
   onStepChange?: (deviceId: string) => void;
+  /** The case's expected and simulated operation. */
+  operation?: CaseOperation | null;
+  /** Display name of an element id (defaults to the id). */
+  nameOf?: (id: string) => string;
 }
 
 const KIND_LABEL: Record<string, string> = { grid: "utility tie", generator: "generator", inverter: "inverter" };
 
 export function ChainPane(props: ChainPaneProps) {
-  const { chains, responses = [], verdicts = [], selectedDeviceId = null, onStepChange } = props;
+  const { chains, responses = [], verdicts = [], selectedDeviceId = null, onStepChange, operation = null } = props;
+  const nameOf = props.nameOf ?? ((id: string) => id);
   const paths = useMemo(() => chains?.paths ?? [], [chains]);
   const [cursor, setCursor] = useState<ChainCursor | null>(null);
   const bodyRef = useRef<HTMLDivElement>(null);
@@ -72,17 +80,20 @@ export function ChainPane(props: ChainPaneProps) {
   };
 
   return (
-    <section className="ap-pane chain-pane" aria-label="Primary and backup chain">
+    <section className="ap-pane chain-pane" aria-label="Expected isolation and simulated operation">
       <header className="ap-header">
-        <h2 className="ap-title">Chain</h2>
+        <h2 className="ap-title">Operation</h2>
         {props.caseLabel ? <span className="ap-subtitle" title={props.caseLabel}>{props.caseLabel}</span> : null}
         <span className="ap-spacer" />
-        {paths.length > 0 ? <span className="ap-chip">{paths.length === 1 ? "1 source path" : `${paths.length} source paths`}</span> : null}
+        {paths.length > 0 ? <span className="ap-chip">{paths.length === 1 ? "1 device expected to open" : `${paths.length} devices expected to open`}</span> : null}
       </header>
       {!chains ? (
         <div className="ap-empty">Select a fault case to see its primary and backup devices.</div>
       ) : paths.every((p) => p.links.length === 0) ? (
-        <div className="ap-empty">No protective device lies between this fault and any source.</div>
+        <div className="ap-empty">
+          No device of the project can separate this fault from its sources.
+          {operation ? <OperationSteps operation={operation} nameOf={nameOf} selectedDeviceId={selectedDeviceId} onSelect={(d) => onStepChange?.(d)} /> : null}
+        </div>
       ) : (
         <div
           className="chain-body"
@@ -101,7 +112,7 @@ export function ChainPane(props: ChainPaneProps) {
                 <th className="num" title="Current through the device, primary A">Current</th>
                 <th className="num" title="Operating time: relay or trip-unit time, fuse melting time">Trip</th>
                 <th className="num" title="Clearing time: trip plus breaker or mechanism time, fuse total clearing">Clear</th>
-                <th className="num" title="Margin to the next device: its fastest clearing minus this device's slowest clearing">
+                <th className="num" title="A backup's margin over the primary: its fastest clearing minus the primary's slowest clearing, at the first state's currents">
                   Margin
                 </th>
               </tr>
@@ -110,13 +121,19 @@ export function ChainPane(props: ChainPaneProps) {
               <tbody key={`${path.source}-${pi}`}>
                 <tr className={`chain-group-row${cursor?.path === pi ? " is-active" : ""}`}>
                   <td colSpan={6}>
-                    From {path.sourceName || path.source} <span className="verdict-group-counts">{KIND_LABEL[path.sourceKind] ?? path.sourceKind}</span>
+                    Expected to open {path.links[0] ? path.links[0].deviceName || path.links[0].device : ""}
+                    {path.source ? (
+                      <>
+                        {" "}
+                        to separate {path.sourceName || path.source} <span className="verdict-group-counts">{KIND_LABEL[path.sourceKind] ?? path.sourceKind}</span>
+                      </>
+                    ) : null}
                   </td>
                 </tr>
                 {path.links.length === 0 ? (
                   <tr>
                     <td colSpan={6} className="ap-empty">
-                      no protective device on this path
+                      no device
                     </td>
                   </tr>
                 ) : null}
@@ -143,7 +160,7 @@ export function ChainPane(props: ChainPaneProps) {
                         {link.deviceName || link.device}
                       </td>
                       <td>
-                        <span className={`chain-role is-${link.role}`}>{link.depth === 0 ? "primary" : link.depth === 1 ? "backup" : `backup ${link.depth}`}</span>
+                        <span className={`chain-role is-${link.role}`}>{link.depth === 0 ? "primary" : "backup"}</span>
                       </td>
                       <td className="num">{formatCurrent_A(link.current_A)}</td>
                       <td className="num">{operate.has(link.device) ? formatTime_s(operate.get(link.device)) : "—"}</td>
@@ -155,10 +172,11 @@ export function ChainPane(props: ChainPaneProps) {
               </tbody>
             ))}
           </table>
+          {operation ? <OperationSteps operation={operation} nameOf={nameOf} selectedDeviceId={selectedDeviceId} onSelect={(d) => onStepChange?.(d)} /> : null}
         </div>
       )}
       <div className="chain-hint" title="The coloured dot is the worst verdict naming the device in this case">
-        ↑↓ along a path · ←→ between paths · dot: worst verdict
+        ↑↓ to its backups · ←→ between expected devices · dot: worst verdict
       </div>
     </section>
   );

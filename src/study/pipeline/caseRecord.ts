@@ -29,10 +29,11 @@ export function loadLostMemo(net: ScenarioNetwork): (edges: readonly number[]) =
 const steps = (o: SimulationOutcome): OperationStep[] => o.steps.map((s) => ({ device: s.device, t_s: s.t_s, action: s.action, element: s.element }));
 
 function chainsOf(c: SimulatedCase, failures: FailureCase[], net: ScenarioNetwork): FaultChains {
-  const link = (device: string, depth: number, next: DeviceResponse | undefined): ChainLink => {
+  // a backup row's margin is over its primary (the backups of one device act in parallel, not in a chain)
+  const link = (device: string, depth: number, primary: DeviceResponse | undefined): ChainLink => {
     const r = c.responses.get(device);
-    const tNext = next?.tClearMin_s ?? null;
-    const tThis = r?.tClearMax_s ?? null;
+    const fast = r?.tClearMin_s ?? null;
+    const slow = primary?.tClearMax_s ?? null;
     return {
       device,
       deviceName: r?.deviceName ?? net.devices.get(device)?.name ?? "",
@@ -40,7 +41,7 @@ function chainsOf(c: SimulatedCase, failures: FailureCase[], net: ScenarioNetwor
       role: depth === 0 ? "primary" : "backup",
       current_A: r?.iPhase_A ?? 0,
       tClear_s: r?.tClear_s ?? null,
-      marginToNext_s: tNext !== null && tThis !== null ? tNext - tThis : null,
+      marginToNext_s: depth > 0 && fast !== null && slow !== null ? fast - slow : null,
     };
   };
   const paths = c.lp.plan.edges.map((edge, k) => {
@@ -55,7 +56,7 @@ function chainsOf(c: SimulatedCase, failures: FailureCase[], net: ScenarioNetwor
       sourceName: src?.name ?? source,
       sourceKind: (src?.kind ?? "grid") as "grid" | "generator" | "inverter",
       elements: [net.edges[edge].element],
-      links: chain.map((d, depth) => link(d, depth, c.responses.get(chain[depth + 1] ?? ""))),
+      links: chain.map((d, k) => link(d, k === 0 ? 0 : 1, k === 0 ? undefined : c.responses.get(chain[0]))),
     };
   });
   return { caseId: c.fc.id, paths, idealIsolation: c.lp.plan.devices };

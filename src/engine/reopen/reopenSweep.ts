@@ -7,7 +7,7 @@
 // iterating on each island's units through their closed-form response, as the all-bus sweep does. Faults the closed
 // form does not cover are solved one at a time on the same update and kept as overrides: islands of current sources
 // only, undetermined faults; faults at a power station unit's LV node go to the fresh compile.
-import type { EngineMessage, FaultType, InverterModel, SweepResult } from "../types.ts";
+import type { CompiledNetwork, EngineMessage, FaultType, InverterModel, SweepResult } from "../types.ts";
 import { FAULT_TYPES, TRANSFER_BLOCK } from "../types.ts";
 import type { Cx } from "../network/model.ts";
 import { sequenceSystem, zColumn, type SequenceSystem } from "../network/sequenceSystem.ts";
@@ -65,54 +65,15 @@ export function sweepReopened(ctx: ReopenContext, ends: readonly OpenEnd[], opti
   const locs = options.devices ? [...options.devices] : [...model.devices];
   const D = locs.length;
   const live = (node: number) => model.islandLive[model.nodes[node].island] === true;
-
-  // Device combinations on the opened network (an opened end's own current is zero); dead nodes carry nothing.
-  const combos: (Combination | null)[] = locs.map((loc) => deviceCombination(model, used === "refined" ? "refined" : "iec", loc.element, loc.end));
-  const devices: SweepResult["devices"] = [];
-  const base_A = new Float64Array(D);
-  const shift_deg = new Float64Array(D);
-  const transferSlot = new Int32Array(D).fill(-1);
-  combos.forEach((combo, d) => {
-    const loc = locs[d];
-    if (!combo) {
-      devices.push({ element: loc.element, end: loc.end, bus: "" });
-      messages.push({ level: "warning", code: "device-location", text: `Device location ${loc.element} (${loc.end}): element not in service in this scenario; its currents are zero`, element: loc.element });
-      return;
-    }
-    devices.push({ element: loc.element, end: loc.end, bus: combo.bus });
-    const nd = model.nodes[combo.node];
-    base_A[d] = (opts.baseMVA * 1000) / (SQRT3 * nd.un_kV);
-    shift_deg[d] = nd.shift_deg;
-    transferSlot[d] = d;
-  });
+  const colU = J > 0 ? unitColumns(model, cache, variant) : [[], [], []];
+  const plan = devicePlan(net, locs, used, variant, sys);
+  const { combos } = plan;
+  const devices = plan.devices.map((d) => ({ ...d }));
+  messages.push(...plan.messages);
   const blocks = Math.ceil(D / TRANSFER_BLOCK);
   const transfer = new Float64Array(blocks * 6 * B * TRANSFER_BLOCK);
   const part = B * TRANSFER_BLOCK;
   const at = (b: number, d: number) => (d - (d % TRANSFER_BLOCK)) * 6 * B + b * TRANSFER_BLOCK + (d % TRANSFER_BLOCK);
-
-  // Device responses to the unit injections, c_d^T Z'[:, u] (positive and negative), minus the unit's own current.
-  const colU = J > 0 ? unitColumns(model, cache, variant) : [[], [], []];
-  const injMap = new Float64Array(D * J * 6);
-  combos.forEach((combo, d) => {
-    if (!combo) return;
-    for (let j = 0; j < J; j++)
-      for (const s of [1, 2] as const) {
-        const t: Combination["terms"][number] = combo.terms[s];
-        const col = colU[s][j];
-        const cu = sys[s].comp[model.inverters[j].node];
-        let re = 0;
-        let im = 0;
-        for (let q = 0; q < t.nodes.length; q++) {
-          const node = t.nodes[q];
-          if (!live(node) || sys[s].comp[node] !== cu) continue;
-          re += t.re[q] * col.re[node] - t.im[q] * col.im[node];
-          im += t.re[q] * col.im[node] + t.im[q] * col.re[node];
-        }
-        if (combo.unit === j) re -= 1;
-        injMap[(d * J + j) * 6 + 2 * s] = re;
-        injMap[(d * J + j) * 6 + 2 * s + 1] = im;
-      }
-  });
 
   const ikss_kA = new Float64Array(B * T);
   const maxPhase_kA = new Float64Array(B * T);
@@ -298,17 +259,18 @@ export function sweepReopened(ctx: ReopenContext, ends: readonly OpenEnd[], opti
     xr,
     devices,
     deviceData: {
-      base_A,
+      // copies of the cached plan's arrays: a result may be transferred to another thread (which detaches them)
+      base_A: plan.base_A.slice(),
       transfer,
       transferRows: B,
       transferBusRow,
-      transferSlot,
+      transferSlot: plan.transferSlot.slice(),
       negative: null,
       faultSeq_pu,
-      injMap,
+      injMap: plan.injMap.slice(),
       inj_pu,
       nInj: J,
-      shift_deg,
+      shift_deg: plan.shift_deg.slice(),
       busShift_deg,
       overrides,
     },
@@ -330,4 +292,84 @@ function islandUnits(model: Model, island: number, colU: ComplexVec[][]): Island
   const unitIdx = model.inverters.map((u, j) => (model.nodes[u.node].island === island ? j : -1)).filter((j) => j >= 0);
   const J = unitIdx.length;
   return { unitIdx, units: compactUnits(model, unitIdx), response: new FaultCoupledResponse(J, unitBlock(model, unitIdx, colU)), work: new InjectionWork(J), vpre: new Float64Array(J), g: new Float64Array(8) };
+}
+
+/** What the sweeps of one opened network share for a list of device locations and a converter model. */
+interface DevicePlan {
+  combos: (Combination | null)[];
+  devices: SweepResult["devices"];
+  messages: EngineMessage[];
+  base_A: Float64Array;
+  shift_deg: Float64Array;
+  transferSlot: Int32Array;
+  injMap: Float64Array;
+}
+
+/** Plans per opened network (dropped with it), by converter model, variant and device list. */
+const plans = new WeakMap<CompiledNetwork, Map<string, DevicePlan>>();
+
+/**
+ * Device combinations on the opened network (an opened end's own current is zero; dead nodes carry nothing) and
+ * their responses to the unit injections, c_d^T Z'[:, u] (positive and negative), minus the unit's own current.
+ */
+function devicePlan(net: CompiledNetwork, locs: { element: string; end: "from" | "to" | "terminal" }[], used: InverterModel, variant: "iec" | "refined", sys: [SequenceSystem, SequenceSystem, SequenceSystem]): DevicePlan {
+  const key = `${used}|${variant}|${locs.map((l) => `${l.element}|${l.end}`).join(";")}`;
+  let byKey = plans.get(net);
+  if (!byKey) {
+    byKey = new Map();
+    plans.set(net, byKey);
+  }
+  const hit = byKey.get(key);
+  if (hit) return hit;
+  const { model, cache } = net.internal as EngineInternal;
+  const opts = net.options;
+  const D = locs.length;
+  const J = model.inverters.length;
+  const live = (node: number) => model.islandLive[model.nodes[node].island] === true;
+  const messages: EngineMessage[] = [];
+
+  const combos: (Combination | null)[] = locs.map((loc) => deviceCombination(model, used === "refined" ? "refined" : "iec", loc.element, loc.end));
+  const devices: SweepResult["devices"] = [];
+  const base_A = new Float64Array(D);
+  const shift_deg = new Float64Array(D);
+  const transferSlot = new Int32Array(D).fill(-1);
+  combos.forEach((combo, d) => {
+    const loc = locs[d];
+    if (!combo) {
+      devices.push({ element: loc.element, end: loc.end, bus: "" });
+      messages.push({ level: "warning", code: "device-location", text: `Device location ${loc.element} (${loc.end}): element not in service in this scenario; its currents are zero`, element: loc.element });
+      return;
+    }
+    devices.push({ element: loc.element, end: loc.end, bus: combo.bus });
+    const nd = model.nodes[combo.node];
+    base_A[d] = (opts.baseMVA * 1000) / (SQRT3 * nd.un_kV);
+    shift_deg[d] = nd.shift_deg;
+    transferSlot[d] = d;
+  });
+
+  const colU = J > 0 ? unitColumns(model, cache, variant) : [[], [], []];
+  const injMap = new Float64Array(D * J * 6);
+  combos.forEach((combo, d) => {
+    if (!combo) return;
+    for (let j = 0; j < J; j++)
+      for (const s of [1, 2] as const) {
+        const t: Combination["terms"][number] = combo.terms[s];
+        const col = colU[s][j];
+        const cu = sys[s].comp[model.inverters[j].node];
+        let re = 0;
+        let im = 0;
+        for (let q = 0; q < t.nodes.length; q++) {
+          const node = t.nodes[q];
+          if (!live(node) || sys[s].comp[node] !== cu) continue;
+          re += t.re[q] * col.re[node] - t.im[q] * col.im[node];
+          im += t.re[q] * col.im[node] + t.im[q] * col.re[node];
+        }
+        if (combo.unit === j) re -= 1;
+        injMap[(d * J + j) * 6 + 2 * s] = re;
+        injMap[(d * J + j) * 6 + 2 * s + 1] = im;
+      }
+  });
+  const plan: DevicePlan = { combos, devices, messages, base_A, shift_deg, transferSlot, injMap };
+  byKey.set(key, plan);
+  return plan;
 }

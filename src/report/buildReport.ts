@@ -30,7 +30,7 @@ const CONTENTS: [string, string][] = [
   ["settings", "Device settings"],
   ["verdicts", "Coordination verdicts"],
   ["tcc", "Time-current plots"],
-  ["timelines", "Clearing timelines of failed cases"],
+  ["timelines", "Clearing timelines of the cases that matter"],
   ["open-items", "Open items"],
 ];
 

@@ -180,12 +180,18 @@ describe("the demo's report", () => {
     expect(left).toBeGreaterThan(0);
   });
 
-  it("shows the clearing timeline of every failed case the study simulated, and only those", () => {
-    const failed = new Set(study.verdicts.filter((v) => v.status === "fail").map((v) => v.caseId));
+  it("shows the clearing timeline of every case the study singled out: not isolated, or with unwanted operations, or the slowest of its zone", () => {
     const section = report.html.slice(report.html.indexOf('id="timelines"'), report.html.indexOf('id="open-items"'));
     const label = (id: string) => study.cases.find((c) => c.faultCase.id === id)!.faultCase.label.replace(/&/g, "&amp;").replace(/'/g, "&#39;").replace(/"/g, "&quot;");
-    const shown = study.timelines.filter((t) => failed.has(t.caseId));
+    const shown = study.timelines;
     expect(shown.length).toBeGreaterThan(0);
+    const byId = new Map(study.cases.map((c) => [c.faultCase.id, c] as const));
+    // each scenario's kept timelines lead with its worst: a case not isolated or with an unwanted operation
+    for (const t of shown) {
+      const c = byId.get(t.caseId)!;
+      expect(t.isolated).toBe(c.operation.isolated_s !== null);
+      expect(t.clearedAt_s).toBe(c.operation.isolated_s);
+    }
     for (const t of shown) expect(section).toContain(`<h3>${label(t.caseId)}</h3>`);
     expect([...section.matchAll(/<div class="timeline-block">/g)]).toHaveLength(shown.length);
   });

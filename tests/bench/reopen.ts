@@ -57,6 +57,7 @@ for (const c of cases) {
     const warmIec = timeMedian(() => each((s, bus, type) => solveReopened(ctx, s, { kind: "bus", bus }, type, { detail: "devices", inverterModel: "iec" })), { warmup: 1, runs: 5 });
     const warmRefined = timeMedian(() => each((s, bus, type) => solveReopened(ctx, s, { kind: "bus", bus }, type, { detail: "devices", inverterModel: "refined" })), { warmup: 1, runs: 5 });
     const sweep = timeMedian(() => group.forEach((s, i) => sweepReopened(ctx, s, { buses: faulted(i), inverterModel: "iec" })), { warmup: 1, runs: 7 });
+    const sweepOne = timeMedian(() => group.forEach((s, i) => faulted(i).forEach((bus) => sweepReopened(ctx, s, { buses: [bus], inverterModel: "iec" }))), { warmup: 1, runs: 7 });
     const sweepRefined = timeMedian(() => group.forEach((s, i) => sweepReopened(ctx, s, { buses: faulted(i), inverterModel: "refined" })), { warmup: 1, runs: 7 });
     // Fresh compile with the ends open and one solve (what each re-solve would cost without the update).
     const fresh = timeMedian(
@@ -88,6 +89,7 @@ for (const c of cases) {
     figure(`${note}: re-solve per fault, every device current, IEC converters (solveReopened)`, warmIec.median_ms / faults, "ms");
     figure(`${note}: re-solve per fault, every device current, refined converters (solveReopened)`, warmRefined.median_ms / faults, "ms");
     figure(`${note}: opened-set sweep per bus and fault type, IEC converters (sweepReopened)`, sweepPer, "ms");
+    figure(`${note}: opened-set sweep of a single bus, per fault type, IEC converters (sweepReopened)`, sweepOne.median_ms / faults, "ms");
     figure(`${note}: opened-set sweep per bus and fault type, refined converters (sweepReopened)`, sweepRefined.median_ms / faults, "ms");
     figure(`${note}: fresh compile + solve per fault, IEC converters`, freshPer, "ms");
     figure(`${note}: line point (mid-cable LG) re-solve per fault, IEC converters (solveReopened)`, lineWarm.median_ms / (group.length * 10), "ms");

@@ -35,7 +35,7 @@ function Workspace({ panes }: { panes: PaneEntry[] }) {
     const near = useSessionStore.getState().selection.map((id) => doc.layout[id]).find((p) => p !== undefined);
     const el = document.querySelector(".canvas-wrap")?.getBoundingClientRect();
     const want = near ? { x: near.x + (near.w ?? 0) / 2 + 80, y: near.y + 80 } : flow.screenToFlowPosition({ x: (el?.left ?? 0) + (el?.width ?? 800) / 2, y: (el?.top ?? 0) + (el?.height ?? 600) / 2 });
-    addElement(kind, freeSpot(doc, want, newPartSize(kind)));
+    addElement(kind, freeSpot(doc, want, newPartSize(kind), 10, kind === "bus"));
   };
   return (
     <div className="workspace">

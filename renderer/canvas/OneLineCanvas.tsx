@@ -196,7 +196,7 @@ export function OneLineCanvas() {
         addElement(kind, freeSpot(doc, want, size), null, bus.id);
         return;
       }
-      addElement(kind, freeSpot(doc, snapped, size));
+      addElement(kind, freeSpot(doc, snapped, size, 10, kind === "bus"));
     },
     [flow],
   );

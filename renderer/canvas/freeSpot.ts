@@ -13,8 +13,15 @@ export interface Box {
 
 /** Clear space kept around a new part, in flow units. */
 const GAP = 16;
+/** A part's name and rating are written to its right: that room is kept free too. */
+const CAPTION_W = 90;
 const STEP = 20;
 const MAX_RINGS = 60;
+
+/** The box a part needs: its symbol, and its caption to the right (buses carry their name above the bar, inside their box). */
+function withCaption(b: Box, isBus: boolean): Box {
+  return isBus ? b : { x: b.x + CAPTION_W / 2, y: b.y, w: b.w + CAPTION_W, h: b.h };
+}
 
 function overlaps(a: Box, b: Box): boolean {
   return Math.abs(a.x - b.x) * 2 < a.w + b.w + 2 * GAP && Math.abs(a.y - b.y) * 2 < a.h + b.h + 2 * GAP;
@@ -28,16 +35,16 @@ export function occupiedBoxes(doc: Project): Box[] {
     const p = doc.layout[e.id];
     if (!p) continue;
     const s = nodeSize(e, p.w, isHorizontal(e, doc.layout));
-    out.push({ x: p.x, y: p.y, w: s.w, h: s.h });
+    out.push(withCaption({ x: p.x, y: p.y, w: s.w, h: s.h }, e.kind === "bus"));
   }
   return out;
 }
 
 /** The free centre nearest `want` for a part of size w x h, on the grid step, searched ring by ring. */
-export function freeSpot(doc: Project, want: { x: number; y: number }, size: { w: number; h: number }, grid = 10): { x: number; y: number } {
+export function freeSpot(doc: Project, want: { x: number; y: number }, size: { w: number; h: number }, grid = 10, isBus = false): { x: number; y: number } {
   const taken = occupiedBoxes(doc);
   const snap = (v: number) => Math.round(v / grid) * grid;
-  const fits = (x: number, y: number) => !taken.some((b) => overlaps({ x, y, w: size.w, h: size.h }, b));
+  const fits = (x: number, y: number) => !taken.some((b) => overlaps(withCaption({ x, y, w: size.w, h: size.h }, isBus), b));
   const x0 = snap(want.x);
   const y0 = snap(want.y);
   if (fits(x0, y0)) return { x: x0, y: y0 };

@@ -24,6 +24,8 @@ import { voltageFactor } from "../iec60909/factors.ts";
 import type { EngineInternal } from "../fault/solveFault.ts";
 import { faultFallback, reopenedSet, referenceNetwork, solveReopened, type OpenEnd, type ReopenContext } from "./reopenNetwork.ts";
 import { sweepFaults } from "../fault/sweepFaults.ts";
+import { peakCurrent_kA, peakKappa } from "../fault/peakCurrent.ts";
+import { SourceShare, iecFloatingOf } from "../fault/sourceShare.ts";
 
 const SQRT3 = Math.sqrt(3);
 
@@ -39,8 +41,7 @@ export interface ReopenSweepOptions {
 }
 
 /**
- * Every listed bus fault with `ends` open. ip_kA is not computed here (NaN, except for faults solved one at a time);
- * xr is the positive-sequence X/R at the fault. Sets that need a fresh compile (a switch opened) are swept on it.
+ * Every listed bus fault with `ends` open; ip_kA and xr on the three-phase basis per bus, as sweepFaults gives them. Sets that need a fresh compile (a switch opened) are swept on it.
  */
 export function sweepReopened(ctx: ReopenContext, ends: readonly OpenEnd[], options: ReopenSweepOptions = {}): SweepResult {
   const set = reopenedSet(ctx, ends);
@@ -77,7 +78,7 @@ export function sweepReopened(ctx: ReopenContext, ends: readonly OpenEnd[], opti
 
   const ikss_kA = new Float64Array(B * T);
   const maxPhase_kA = new Float64Array(B * T);
-  const ip_kA = new Float64Array(B).fill(NaN);
+  const ip_kA = new Float64Array(B);
   const xr = new Float64Array(B);
   const faultSeq_pu = new Float64Array(B * T * 6);
   const inj_pu = new Float64Array(B * T * J * 6);
@@ -87,6 +88,7 @@ export function sweepReopened(ctx: ReopenContext, ends: readonly OpenEnd[], opti
   const injR = new Float64Array(J);
   const injI = new Float64Array(J);
   const islands = new Map<number, IslandUnits>();
+  let iecFloating: ((node: number) => boolean) | undefined;
   const aff = new FaultAffine();
   const seq = new Float64Array(6);
   const mags = { ikss: 0, maxPhase: 0 };
@@ -108,7 +110,7 @@ export function sweepReopened(ctx: ReopenContext, ends: readonly OpenEnd[], opti
         const r = solveReopened(ctx, ends, location, type, { inverterModel: used });
         ikss_kA[b * T + t] = r.ikss_kA;
         maxPhase_kA[b * T + t] = r.maxPhase_kA;
-        if (type === "3ph" || !(ip_kA[b] >= 0)) {
+        if (type === "3ph" || ip_kA[b] === 0) {
           ip_kA[b] = r.ip_kA;
           xr[b] = r.xr;
         }
@@ -162,6 +164,15 @@ export function sweepReopened(ctx: ReopenContext, ends: readonly OpenEnd[], opti
     const z = cols.map((col) => (col ? { re: col.re[k], im: col.im[k] } : null));
     const z1 = z[1] as Cx;
     xr[b] = z1.re > 0 ? z1.im / z1.re : 1e9;
+    // Peak current on the three-phase basis, as the all-bus sweep gives it (IEC 60909-0:2016, 8.1): kappa from the
+    // branch sum or method B at k, the three-phase I"k (the sources' bolted one without a 3ph fault in the list)
+    // and the voltage sources' share zS of it.
+    const t3 = types.indexOf("3ph");
+    const peak = (zS: Cx | null) => {
+      const ik3 = t3 >= 0 ? ikss_kA[b * T + t3] : (c / Math.hypot(z1.re, z1.im)) * iBase_kA;
+      const ik3S = zS ? (c / Math.hypot(zS.re + zf.re, zS.im + zf.im)) * iBase_kA : 0;
+      ip_kA[b] = peakCurrent_kA(peakKappa(model, k, cols[1]!, z1, c, un).kappa, ik3, ik3S);
+    };
     // IEC 60909 full-size converters: |I| = iMax Ir at arg I_j = -arg Z1[k, u_j], the same for every fault type.
     let e1r = c;
     let e1i = 0;
@@ -227,6 +238,13 @@ export function sweepReopened(ctx: ReopenContext, ends: readonly OpenEnd[], opti
           inj_pu[o + 5] = w.x2i[l];
         }
       });
+      // ip: the voltage sources' share without any converter (the grid-forming shunts removed by SourceShare).
+      let zS: Cx | null = z1;
+      if (Jl > 0 && variant === "refined") {
+        isl.share ??= new SourceShare(model, node.island, isl.unitIdx, colU, (iecFloating ??= iecFloatingOf(model)));
+        zS = isl.share.drivingPoint(z1, isl.response.z1r, isl.response.z1i, { re: 0, im: 0 });
+      }
+      peak(zS);
       if (undetermined) oneByOne();
       continue;
     }
@@ -246,6 +264,7 @@ export function sweepReopened(ctx: ReopenContext, ends: readonly OpenEnd[], opti
         inj_pu[o + 3] = injI[j];
       }
     });
+    peak(z1);
     if (undetermined) oneByOne();
   }
   return {
@@ -286,6 +305,7 @@ interface IslandUnits {
   work: InjectionWork;
   vpre: Float64Array;
   g: Float64Array;
+  share?: SourceShare;
 }
 
 function islandUnits(model: Model, island: number, colU: ComplexVec[][]): IslandUnits {

@@ -122,6 +122,8 @@ describe("re-solve with opened ends by low-rank update", () => {
             const iBase_kA = ref.un_kV > 0 ? project.meta.baseMVA / (SQRT3 * ref.un_kV) : 1;
             expect(Math.abs(sweep.ikss_kA[b * sweep.types.length + t] - ref.ikss_kA) / iBase_kA).toBeLessThan(1e-9);
             expect(Math.abs(sweep.maxPhase_kA[b * sweep.types.length + t] - ref.maxPhase_kA) / iBase_kA).toBeLessThan(1e-9);
+            // Peak current on the three-phase basis (IEC 60909-0:2016, 8.1), as solveFault gives it for 3ph.
+            if (type === "3ph") expect(Math.abs(sweep.ip_kA[b] - ref.ip_kA) / iBase_kA).toBeLessThan(1e-9);
             const ends2 = new Map([...ref.branchEnds, ...ref.shunts].map((e) => [`${e.element}|${e.end}`, e]));
             sweep.devices.forEach((dev, d) => {
               const e = ends2.get(`${dev.element}|${dev.end}`);

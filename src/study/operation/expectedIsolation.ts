@@ -134,7 +134,7 @@ function planOf(ctx: IsolationContext, inside: Set<number>, order: number[], fau
   return { zones: order, edges: sorted, devices, restrained: [...restrained], blind: [...blind], outOfReach, beyond };
 }
 
-/** The expected isolation of a fault at graph node `faultNode` (see sourcePaths.faultNode). */
+/** The expected isolation of a fault at graph node `faultNode` (see faultNode.ts). */
 export function expectedIsolation(ctx: IsolationContext, faultNode: string, faultType: FaultType): IsolationPlan {
   const z = ctx.zones.zoneOf.get(faultNode);
   if (z === undefined) return { zones: [], edges: [], devices: [], restrained: [], blind: [], outOfReach: [], beyond: [] };

@@ -8,7 +8,7 @@ import { expectedIsolation, isolationContext, isolationWithFailure, liveFeeding,
 import { followingSources } from "../operation/sources.ts";
 import { protectionZones } from "../operation/zones.ts";
 import { elementNode, scenarioNetwork, type ScenarioNetwork } from "../scenarioNetwork.ts";
-import { faultNode } from "../sourcePaths.ts";
+import { faultNode } from "../faultNode.ts";
 import type { FaultLocation, FaultType, StudyOptions } from "../types.ts";
 
 export interface LocationPlan {

@@ -1,13 +1,12 @@
-// Blinding: a generator or inverter connected between an upstream device and the fault feeds the fault
-// in parallel and takes current away from that device. The same case is solved with and without the
-// infeed; the verdict flags a device whose current falls below its pickup margin, or whose time grows by
-// more than the CTI budget, because of that infeed.
+// Blinding: a generator or inverter connected between a device and the fault (inside the zone the device
+// must clear) feeds the fault in parallel and takes current away from that device. The same case is solved
+// with and without the infeed (pipeline/blindingPass.ts); the verdict flags a device whose current falls
+// below its pickup margin, or whose time grows by more than the CTI budget, because of that infeed.
 import type { Criteria, ProtectiveDevice } from "../../model/schema.ts";
 import type { DeviceModel } from "../deviceModel.ts";
 import { pickupRatio } from "../pickupRatio.ts";
-import { busNode, elementNode, type ScenarioNetwork } from "../scenarioNetwork.ts";
-import type { SourcePath } from "../sourcePaths.ts";
-import type { ChainLink, DeviceResponse, FaultCase, Verdict, VerdictStatus } from "../types.ts";
+import { busNode, type ScenarioNetwork } from "../scenarioNetwork.ts";
+import type { DeviceResponse, FaultCase, Verdict, VerdictStatus } from "../types.ts";
 import { deviceTag, fmtA, fmtS, fmtX, round } from "./format.ts";
 
 export interface BlindingPair {
@@ -28,38 +27,6 @@ export function infeedsByBus(net: ScenarioNetwork): Map<string, string[]> {
     map.set(busNode(e.bus), list);
   }
   return map;
-}
-
-/** The chains' devices and roles, path by path (a case's FaultChains, or a location's chain plan). */
-export interface ChainRoles {
-  paths: { links: Pick<ChainLink, "device" | "role">[] }[];
-}
-
-/** Device/infeed pairs where the infeed connects on the fault side of a chain device. */
-export function blindingPairs(net: ScenarioNetwork, paths: SourcePath[], chains: ChainRoles, infeeds: Map<string, string[]>): BlindingPair[] {
-  const pairs: BlindingPair[] = [];
-  const seen = new Set<string>();
-  chains.paths.forEach((chain, p) => {
-    const path = paths[p];
-    let link = 0;
-    const between = new Set<string>();
-    for (let k = 0; k < path.steps.length && link < chain.links.length; k++) {
-      const node = path.nodes[k];
-      for (const s of infeeds.get(node) ?? []) if (s !== path.source) between.add(s);
-      const edge = net.edges[path.steps[k].edge];
-      while (link < chain.links.length && edge.devices.includes(chain.links[link].device)) {
-        const l = chain.links[link];
-        for (const s of between) {
-          const key = `${l.device}|${s}`;
-          if (seen.has(key) || elementNode(s) === path.nodes[k + 1]) continue;
-          seen.add(key);
-          pairs.push({ device: l.device, role: l.role, infeed: s });
-        }
-        link++;
-      }
-    }
-  });
-  return pairs;
 }
 
 export function blindingVerdict(

@@ -61,10 +61,10 @@ async function waitForStatus(page, deviceName, status) {
   if (!reached) assert.equal(await chainStatusOf(page, deviceName), status);
 }
 
-/** Resolves once the studio's crash-recovery copy in IndexedDB holds `text`. */
+/** Resolves once the studio's crash-recovery copy in IndexedDB holds `text` (checked in the page until it does). */
 async function waitForAutosave(page, text) {
-  await page.waitForFunction(
-    (want) =>
+  const found = await page.evaluate(async (want) => {
+    const holds = () =>
       new Promise((resolve) => {
         const open = indexedDB.open("islet-studio", 1);
         open.onupgradeneeded = () => open.transaction.abort(); // not there yet: never create it in the studio's place
@@ -76,10 +76,22 @@ async function waitForAutosave(page, text) {
           all.onsuccess = () => resolve(all.result.some((v) => typeof v?.text === "string" && v.text.includes(want)));
           all.onerror = () => resolve(false);
         };
-      }),
-    text,
-    { timeout: 20000, polling: 200 },
-  );
+      });
+    // a condition polled until it holds (bounded at 20 s), not a delay
+    for (const end = Date.now() + 20000; Date.now() < end; await new Promise((r) => setTimeout(r, 100))) if (await holds()) return true;
+    return false;
+  }, text);
+  assert.ok(found, `the recovery copy holds "${text}"`);
+}
+
+/** Resolves once this tab's lock is the only studio tab lock held (a closed tab's is freed when it is torn down). */
+async function waitForOnlyTabLock(page) {
+  const alone = await page.evaluate(async () => {
+    const count = async () => (await navigator.locks.query()).held.filter((l) => l.name.startsWith("islet-tab:")).length;
+    for (const end = Date.now() + 30000; Date.now() < end; await new Promise((r) => setTimeout(r, 100))) if ((await count()) === 1) return true;
+    return false;
+  });
+  assert.ok(alone, "the closed tab's lock is freed");
 }
 
 export const steps = [
@@ -322,7 +334,7 @@ export const steps = [
       // which takes longer on a loaded machine: wait until this new tab's is the only one held, then start the
       // studio in it (the same tab, so the same tab id), as a restart after a real crash would find it
       await again.goto(t.url + "?empty=1");
-      await again.waitForFunction(async () => (await navigator.locks.query()).held.filter((l) => l.name.startsWith("islet-tab:")).length === 1, null, { timeout: 30000, polling: 200 });
+      await waitForOnlyTabLock(again);
       await again.goto(t.url);
       await again.getByTestId("recovery").waitFor({ timeout: 20000 });
       await again.getByRole("button", { name: "Restore" }).click();

@@ -239,6 +239,8 @@ export const relaySchema = z.looseObject({
   ctPrimary_A: within(1e-3, 1e5, "CT primary rating in A"),
   ctSecondary_A: z.union([z.literal(1), z.literal(5)]).default(1),
   breakerTime_s: nonNegative("Breaker interrupting time added to the relay time", 10).default(0.06),
+  breaking_kA: positive("Rated short-circuit breaking current of the breaker the relay trips, kA (duty check; optional)", 1000).optional(),
+  making_kA: positive("Rated short-circuit making current (peak) of the breaker the relay trips, kA (duty check; optional)", 3000).optional(),
   functions: z.array(relayFunctionSchema).max(64),
   tolerance: toleranceSchema.default({ pickup_pct: 5, time_pct: 5, time_min_s: 0.02 }),
 });
@@ -260,6 +262,7 @@ export const fuseSchema = z.looseObject({
   name: name.optional(),
   at: deviceLocationSchema,
   rating_A: within(1e-3, 1e5, "Fuse rated current in A"),
+  breaking_kA: positive("Rated breaking capacity, prospective symmetrical kA (duty check; optional)", 1000).optional(),
   curve: fuseCurveSchema.default({ kind: "parametric", family: "general-purpose" }),
 });
 
@@ -269,6 +272,8 @@ export const lvBreakerSchema = z.looseObject({
   name: name.optional(),
   at: deviceLocationSchema,
   in_A: within(1e-3, 1e5, "Rated current In of the breaker (sensor rating) in A"),
+  breaking_kA: positive("Rated short-circuit breaking capacity, kA (duty check; optional)", 1000).optional(),
+  making_kA: positive("Rated short-circuit making capacity (peak), kA (duty check; optional)", 3000).optional(),
   longTime: z.looseObject({
     ir_x: z.number().min(0.4).max(1).describe("Long-time pickup Ir as a multiple of In"),
     tr_s: positive("Long-time band: trip time at the reference multiple of Ir", TIME_MAX_S),
@@ -356,7 +361,7 @@ export const criteriaSchema = z.looseObject({
   primaryMargin: positive("Minimum end-of-zone fault current over pickup, primary zone", 100).default(1.5),
   backupMargin: positive("Minimum end-of-zone fault current over pickup, backup zone", 100).default(1.2),
   loadMargin: positive("Minimum pickup over maximum load current", 100).default(1.25),
-  clearingLimit_s: positive("Default maximum primary clearing time", TIME_MAX_S).default(1),
+  clearingLimit_s: positive("Maximum isolation time for faults in zones whose buses set none (speed check; optional, no limit when absent)", TIME_MAX_S).optional(),
   horizon_s: positive("Clearing timeline horizon in seconds", TIME_MAX_S).default(10),
   // every line gets each point as a fault location of its own: 19 is one every 5 % of the length
   linePoints_pct: z.array(z.number().gt(0).lt(100)).max(MAX_LINE_POINTS).default([10, 50, 90]).describe("Intermediate fault points along lines, percent of length"),

@@ -36,7 +36,7 @@ export function assumptionsSection(project: Project): string {
     ["Primary-zone margin (end-of-zone fault current / pickup)", `≥ ${formatNumber(c.primaryMargin, 2)}`],
     ["Backup-zone margin", `≥ ${formatNumber(c.backupMargin, 2)}`],
     ["Load margin (pickup / maximum load current)", `≥ ${formatNumber(c.loadMargin, 2)}`],
-    ["Default primary clearing limit", `${formatNumber(c.clearingLimit_s, 2)} s`],
+    ["Isolation time limit where a zone's buses set none", c.clearingLimit_s === undefined ? "none (zones are judged against equipment withstand only)" : `${formatNumber(c.clearingLimit_s, 2)} s`],
     ["Clearing timeline horizon", `${formatNumber(c.horizon_s, 1)} s`],
     ["Fault points along lines", c.linePoints_pct.map((p) => `${p} %`).join(", ") || "none"],
   ];

@@ -326,5 +326,28 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   const solveOpenedEach = (scenario: Scenario, open: OpenEnd[], locations: FaultLocation[], type: FaultType, limit: FaultLimit) =>
     solveEach(scenario, locations, type, limit, undefined, open);
 
-  return { solveMany, solveEach, solveOne, solveOpenedEach, loadCurrents: loadCurrentsOf };
+  const duties = new Map<string, { ikss_kA: number; ib_kA: number; ip_kA: number } | null>();
+  const busDuty = (scenario: Scenario, bus: string) => {
+    const key = `${scenario.id}\u0000${bus}`;
+    if (duties.has(key)) return duties.get(key)!;
+    let duty: { ikss_kA: number; ib_kA: number; ip_kA: number } | null = null;
+    const c = compile(variantOf(scenario, []), "max");
+    if (c.network)
+      try {
+        duty = { ikss_kA: 0, ib_kA: 0, ip_kA: 0 };
+        for (const type of FAULT_TYPES) {
+          const r = solveFault(c.network, { kind: "bus", bus }, type);
+          if (![r.maxPhase_kA, r.ib_kA, r.ip_kA].every(Number.isFinite)) throw new Error("not finite");
+          duty.ikss_kA = Math.max(duty.ikss_kA, r.maxPhase_kA);
+          duty.ib_kA = Math.max(duty.ib_kA, r.ib_kA);
+          duty.ip_kA = Math.max(duty.ip_kA, r.ip_kA);
+        }
+      } catch {
+        duty = null;
+      }
+    duties.set(key, duty);
+    return duty;
+  };
+
+  return { solveMany, solveEach, solveOne, solveOpenedEach, busDuty, loadCurrents: loadCurrentsOf };
 }

@@ -20,6 +20,7 @@ import type { StudySolver } from "./studySolver.ts";
 import { FAULT_TYPES, STUDY_CAUTION, type CaseResult, type ClearingTimeline, type FaultLimit, type FaultType, type StudyOptions, type StudyResult, type Verdict, type VerdictStatus } from "./types.ts";
 import { verdictIdsDistinct } from "./verdictIds.ts";
 import { loadVerdicts } from "./verdicts/sensitivity.ts";
+import { judgeDuty } from "./judges/duty.ts";
 import { memoWithstand } from "./withstand.ts";
 import type { JudgeContext } from "./judges/judgedCase.ts";
 
@@ -160,6 +161,9 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
       book.add(vs, countsOf.get(id));
       r.verdictIds.push(...vs.map((v) => v.id));
     }
+    const duty = judgeDuty(scenario, net.devices, elements, solver);
+    book.add(duty.verdicts);
+    for (const w of duty.warnings) warn(w);
     const load = solver.loadCurrents(scenario);
     if (load) book.add(loadVerdicts(scenario, load, net.devices, model, project.criteria));
     else warn(`Scenario ${scenario.id} "${scenario.name}": no load flow, pickups were not checked against load current`);

@@ -42,6 +42,11 @@ export interface StudySolver {
   solveOpenedEach?(scenario: Scenario, open: OpenEnd[], locations: FaultLocation[], faultType: FaultType, limit: FaultLimit): (i: number) => FaultSnapshot;
   /** One fault with some element ends opened (clearing timeline). */
   solveOne(scenario: Scenario, location: FaultLocation, faultType: FaultType, limit: FaultLimit, open: OpenEnd[]): FaultSnapshot;
+  /**
+   * Optional: the short-circuit duty at a bus in a scenario at the maximum limit, the largest over the fault
+   * types: I"k (fault current), Ib (breaking) and ip (peak), kA; null when it cannot be solved.
+   */
+  busDuty?(scenario: Scenario, bus: string): { ikss_kA: number; ib_kA: number; ip_kA: number } | null;
   /** Largest phase load current at each device (device id -> A) from a balanced load flow; null when it cannot run. */
   loadCurrents(scenario: Scenario): Record<string, number> | null;
 }

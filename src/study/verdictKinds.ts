@@ -8,6 +8,7 @@ export const VERDICT_KIND_INFO = {
   speed: { perCase: true, title: "Speed", means: "the fault is isolated within the zone's clearing limit and every piece of equipment's withstand" },
   blinding: { perCase: true, title: "Blinding", means: "an infeed between source and fault does not keep an expected device from operating" },
   sympathetic: { perCase: true, title: "Sympathetic tripping", means: "a healthy feeder's device does not trip on current flowing back to the fault" },
+  duty: { perCase: false, title: "Duty", means: "each breaker and fuse with ratings can break and make the short-circuit current at its bus" },
   load: { perCase: false, title: "Load", means: "pickups stay above the load-flow current with margin" },
 } as const;
 

@@ -9,8 +9,12 @@ import {
   compileNetwork,
   loadCurrents,
   runLoadFlow,
+  createReopenContext,
   solveFault,
+  solveReopened,
   sweepDeviceCurrentsInto,
+  sweepReopened,
+  type ReopenContext,
   sweepFaults,
   type CompiledNetwork,
   type FaultResult,
@@ -297,6 +301,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   };
 
   const solveOne = (scenario: Scenario, location: FaultLocation, type: FaultType, limit: FaultLimit, open: OpenEnd[]): FaultSnapshot => {
+    if (open.length > 0 && reopenOf(scenario, limit)) return solveOpenedEach(scenario, open, [location], type, limit)(0);
     const v = variantOf(scenario, open);
     const c = compile(v, limit);
     if (!c.network) return { iFault_A: 0, readings: Object.create(null) as Record<string, DeviceReading>, messages: c.messages };
@@ -323,8 +328,59 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     }
   };
 
-  const solveOpenedEach = (scenario: Scenario, open: OpenEnd[], locations: FaultLocation[], type: FaultType, limit: FaultLimit) =>
-    solveEach(scenario, locations, type, limit, undefined, open);
+  // Re-solves with device ends opened: a low-rank (Woodbury) update of the scenario's own factorization per opened
+  // set (src/engine/reopen), not a new network; one context per scenario network and limit.
+  const reopenContexts = new Map<string, ReopenContext | null>();
+  const reopenOf = (scenario: Scenario, limit: FaultLimit): { ctx: ReopenContext; net: CompiledNetwork; project: Project; scenarioId: string } | null => {
+    const v = variantOf(scenario, []);
+    const c = compile(v, limit);
+    if (!c.network) return null;
+    const key = `${v.content}#${limit}`;
+    let ctx = reopenContexts.get(key);
+    if (ctx === undefined) {
+      try {
+        ctx = createReopenContext(v.project, { scenario: v.scenarioId, limit }, c.network);
+      } catch {
+        ctx = null;
+      }
+      reopenContexts.set(key, ctx);
+    }
+    return ctx ? { ctx, net: c.network, project: v.project, scenarioId: v.scenarioId } : null;
+  };
+  const solveOpenedEach = (scenario: Scenario, open: OpenEnd[], locations: FaultLocation[], type: FaultType, limit: FaultLimit): ((i: number) => FaultSnapshot) => {
+    const r = open.length > 0 ? reopenOf(scenario, limit) : null;
+    if (!r) return solveEach(scenario, locations, type, limit, undefined, open);
+    const ends = open.map((o) => ({ element: split.endElement(o.element, o.end), end: o.end }));
+    const where = locations.map(locate);
+    const buses = [...new Set(where.filter((l) => l.kind === "bus").map((l) => (l as { bus: string }).bus))];
+    const single = (k: number): FaultSnapshot => {
+      try {
+        const res = solveReopened(r.ctx, ends, where[k], type, { detail: "devices" });
+        return snapshotOfFault(r.net, res, shiftOf(r.net, busOf(where[k], r.project)), null);
+      } catch (err) {
+        return { iFault_A: 0, readings: {}, messages: [err instanceof Error ? err.message : String(err)] };
+      }
+    };
+    // with directional relays a few faults are solved one by one, for their bus voltages (as the first state is)
+    if (buses.length <= singleLimit || buses.length < where.length) return single;
+    let sweep: SweepResult;
+    try {
+      const out = new Set(r.project.scenarios.find((x) => x.id === r.scenarioId)?.outOfService ?? []);
+      const locs = devices.filter((d) => !out.has(d.at.element) && !out.has(locKey.get(d.id)!.split("|")[0])).map((d) => {
+        const [element, end] = locKey.get(d.id)!.split("|");
+        return { element, end: end as OpenEnd["end"] };
+      });
+      sweep = sweepReopened(r.ctx, ends, { buses, types: [type], devices: locs });
+    } catch {
+      return single;
+    }
+    sweepDeviceIndex.set(sweep, new Map(sweep.devices.map((d, i) => [`${d.element}|${d.end}`, i] as const)));
+    sweepBusIndex.set(sweep, new Map(sweep.busIds.map((b, i) => [b, i] as const)));
+    return (k) => {
+      const loc = where[k];
+      return loc.kind === "bus" ? fromSweep(r.net, sweep, loc.bus, type, null) : single(k);
+    };
+  };
 
   const duties = new Map<string, { ikss_kA: number; ib_kA: number; ip_kA: number } | null>();
   const busDuty = (scenario: Scenario, bus: string) => {

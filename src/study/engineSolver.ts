@@ -172,7 +172,8 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
       const r = solveFault(net, loc, type, { detail: "devices" });
       return snapshotOfFault(net, r, shiftOf(net, busOf(loc, variantProject)), wanted);
     } catch (err) {
-      return { iFault_A: 0, readings: Object.create(null) as Record<string, DeviceReading>, messages: [err instanceof Error ? err.message : String(err)] };
+      const reason = err instanceof Error ? err.message : String(err);
+      return { iFault_A: 0, readings: Object.create(null) as Record<string, DeviceReading>, messages: [reason], unsolved: reason };
     }
   };
 
@@ -212,7 +213,9 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
       } else m = { phase_A, residual_A, negative_A };
       readings[d.id] = { m, direction: directionOf(cur[2], cur[3], vRef) };
     }
-    return { iFault_A: sweep.maxPhase_kA[b * sweep.types.length + t] * 1000, readings, messages: [] };
+    const iFault_A = sweep.maxPhase_kA[b * sweep.types.length + t] * 1000;
+    if (!Number.isFinite(iFault_A)) return { iFault_A: 0, readings: Object.create(null) as Record<string, DeviceReading>, messages: [], unsolved: `bus ${bus}: the engine gave no finite fault current` };
+    return { iFault_A, readings, messages: [] };
   };
   const sweepDeviceIndex = new WeakMap<SweepResult, Map<string, number>>();
   /** Per sweep, in `devices` order: the sweep's index of each device's location (-1: not swept) and its bus's shift. */
@@ -269,7 +272,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   ): ((i: number) => FaultSnapshot) => {
     const v = variantOf(scenario, open);
     const c = compile(v, limit);
-    if (!c.network) return (k) => ({ iFault_A: 0, readings: Object.create(null) as Record<string, DeviceReading>, messages: k === 0 ? c.messages : [] });
+    if (!c.network) return (k) => ({ iFault_A: 0, readings: Object.create(null) as Record<string, DeviceReading>, messages: k === 0 ? c.messages : [], unsolved: c.messages.join("; ") || "the network could not be built" });
     const net = c.network;
     const where = locations.map(locate);
     const buses = [...new Set(where.filter((l) => l.kind === "bus").map((l) => (l as { bus: string }).bus))];
@@ -304,7 +307,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     if (open.length > 0 && reopenOf(scenario, limit)) return solveOpenedEach(scenario, open, [location], type, limit)(0);
     const v = variantOf(scenario, open);
     const c = compile(v, limit);
-    if (!c.network) return { iFault_A: 0, readings: Object.create(null) as Record<string, DeviceReading>, messages: c.messages };
+    if (!c.network) return { iFault_A: 0, readings: Object.create(null) as Record<string, DeviceReading>, messages: c.messages, unsolved: c.messages.join("; ") || "the network could not be built" };
     return solveSingle(c.network, v.project, split.locate(location), type);
   };
 
@@ -358,7 +361,8 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
         const res = solveReopened(r.ctx, ends, where[k], type, { detail: "devices" });
         return snapshotOfFault(r.net, res, shiftOf(r.net, busOf(where[k], r.project)), null);
       } catch (err) {
-        return { iFault_A: 0, readings: {}, messages: [err instanceof Error ? err.message : String(err)] };
+        const reason = err instanceof Error ? err.message : String(err);
+        return { iFault_A: 0, readings: {}, messages: [reason], unsolved: reason };
       }
     };
     // with directional relays a few faults are solved one by one, for their bus voltages (as the first state is)

@@ -140,6 +140,7 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
         });
         for (const c of simulated) {
           for (const m of c.messages) warn(m);
+          if (c.unsolved !== undefined) warn(`${c.fc.label}: not solved (${c.unsolved}); the case has no current and no verdict`);
           const { result, verdicts } = caseRecord(ctx, c, limit === sensLimit, loadLost);
           const counts = { pass: 0, warn: 0, fail: 0 };
           book.add(verdicts, counts);
@@ -148,7 +149,7 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
           countsOf.set(result.faultCase.id, counts);
           scenarioResults.push(result);
           resultIndex.push(c.index);
-          if (limit === sensLimit && c.iFault_A >= 1) blindingCases.push({ fc: c.fc, locIndex: c.index, responses: c.responses, plan: c.lp.plan, failures: c.lp.failures });
+          if (limit === sensLimit && c.iFault_A >= 1 && c.unsolved === undefined) blindingCases.push({ fc: c.fc, locIndex: c.index, responses: c.responses, plan: c.lp.plan, failures: c.lp.failures });
         }
       }
     hooks.onProgress?.(done, total, "verdicts");

@@ -17,6 +17,8 @@ export interface FaultSnapshot {
   readings: Record<string, DeviceReading>;
   /** Engine messages worth passing on (element named). */
   messages: string[];
+  /** Set when the engine could not solve this state: the reason, naming the elements. No current is given then. */
+  unsolved?: string;
 }
 
 /** An element end opened by a device (the element the device looks into, at that end). */

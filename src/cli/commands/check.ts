@@ -65,12 +65,14 @@ export const checkCommand: CliCommand = {
         const out = jsonLinesWriter();
         const tally = new VerdictTally();
         let warnings = 0;
+        let unsolved = 0;
         await out.write(headerLine(a.file, project.meta.name, STUDY_CAUTION));
         const done = await studyInSession(session, project, { ...options, keepResults: false }, "", {
           onScenario: async (part) => {
             session.progress.clear();
             for (const c of part.cases) {
               tally.cases++;
+              if (c.unsolved) unsolved++;
               await out.write(caseLine(c));
             }
             for (const v of part.verdicts) await out.write(verdictLine(v));
@@ -82,12 +84,15 @@ export const checkCommand: CliCommand = {
         if (!done) return EXIT_INTERRUPTED;
         // settings problems found while studying come last (the device models report them as they meet them)
         for (const w of done.warnings.slice(warnings)) await out.write({ type: "warning", text: w });
-        await out.write(summaryLine(tally, done.warnings.length));
-        return tally.failed > 0 ? 1 : 0;
+        await out.write({ ...summaryLine(tally, done.warnings.length), unsolved });
+        if (unsolved > 0) session.out.error(`islet check: ${unsolved} case(s) could not be solved by the engine; their reasons are in the warning lines`);
+        return tally.failed > 0 || unsolved > 0 ? 1 : 0;
       }
       const result = await studyInSession(session, project, options);
       if (!result) return EXIT_INTERRUPTED;
       session.out.print(humanReport(terminalField(a.file), result).join("\n"));
-      return result.verdicts.some((v) => v.status === "fail") ? 1 : 0;
+      const unsolvedCases = result.cases.filter((c) => c.unsolved).length;
+      if (unsolvedCases > 0) session.out.error(`islet check: ${unsolvedCases} case(s) could not be solved by the engine; their reasons are in the warnings above`);
+      return result.verdicts.some((v) => v.status === "fail") || unsolvedCases > 0 ? 1 : 0;
     }),
 };

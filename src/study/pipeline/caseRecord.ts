@@ -67,7 +67,7 @@ export function caseRecord(ctx: JudgeContext, c: SimulatedCase, atSensitivityLim
   const failures: FailureCase[] = c.lp.plan.edges.map((edge, k) => ({ edge, plan: c.lp.failures[k], outcome: c.failureOutcomes[k] }));
   const judged: JudgedCase = { fc: c.fc, iFault_A: c.iFault_A, responses: c.responses, plan: c.lp.plan, outcome: c.outcome, failures, atSensitivityLimit };
   const verdicts: Verdict[] =
-    c.iFault_A >= 1
+    c.iFault_A >= 1 && c.unsolved === undefined
       ? [...judgeSensitivity(ctx, judged), ...judgeSelectivity(ctx, judged), ...judgeBackup(ctx, judged, loadLost), ...judgeSpeed(ctx, judged, c.lp.zoneBuses)]
       : [];
   const expectedEdges = new Set(c.lp.plan.edges);
@@ -111,6 +111,11 @@ export function caseRecord(ctx: JudgeContext, c: SimulatedCase, atSensitivityLim
     operation,
     verdictIds: verdicts.map((v) => v.id),
   };
+  if (c.unsolved !== undefined) {
+    result.unsolved = true;
+    result.iFault_A = 0;
+    result.operation.isolated_s = null;
+  }
   return { result, verdicts };
 }
 

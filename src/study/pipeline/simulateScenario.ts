@@ -22,6 +22,8 @@ export interface SimulatedCase {
   outcome: SimulationOutcome;
   failureOutcomes: SimulationOutcome[];
   messages: string[];
+  /** Why the engine could not solve a state of this case (its first, or one after an opening); absent when solved. */
+  unsolved?: string;
 }
 
 export interface SimulateInput {
@@ -82,14 +84,15 @@ export async function simulateScenario(input: SimulateInput): Promise<SimulatedC
     for (const id of lp.plan.devices) if (!responses.has(id)) responses.set(id, deviceResponse(net.devices.get(id)!, undefined, model));
     const normal = new CaseSimulation({ net, isolation: sp.isolation, faultZone: lp.faultZone, isolatedAtStart: lp.isolatedAtStart, model, horizon_s, outOfReach: lp.plan.outOfReach, withstand });
     const failures = lp.plan.edges.map((edge, k) => new CaseSimulation({ net, isolation: sp.isolation, faultZone: lp.faultZone, isolatedAtStart: lp.isolatedAtStart, model, horizon_s, outOfReach: lp.failures[k].outOfReach, stuck: new Set([edge]), withstand }));
-    // a fault that draws no current (an earth fault on an isolated-neutral section) is left to other protection
-    if (snap.iFault_A >= 1) {
+    // a fault that draws no current (an earth fault on an isolated-neutral section) is left to other protection;
+    // a case the engine could not solve is not simulated at all
+    if (snap.iFault_A >= 1 && snap.unsolved === undefined) {
       const first = firstState(net, snap, responses, withstand);
       wait(normal.advance(first), normal, i);
       for (const f of failures) wait(f.advance(first), f, i);
     }
     sims.push({ normal, failures });
-    cases.push({ index: i, fc, iFault_A: snap.iFault_A, responses, lp, outcome: normal.outcome(), failureOutcomes: [], messages: snap.messages });
+    cases.push({ index: i, fc, iFault_A: snap.iFault_A, responses, lp, outcome: normal.outcome(), failureOutcomes: [], messages: snap.messages, ...(snap.unsolved !== undefined ? { unsolved: snap.unsolved } : {}) });
     await input.onCase?.();
   }
   // later states, one opened set at a time, for every location that reached it
@@ -113,6 +116,12 @@ export async function simulateScenario(input: SimulateInput): Promise<SimulatedC
         const j = at.get(m.index)!;
         let s = snaps.get(j);
         if (!s) snaps.set(j, (s = solve(j)));
+        if (s.unsolved !== undefined) {
+          // a later state the engine could not solve: the case says so rather than go on with no current
+          cases[m.index].unsolved ??= s.unsolved;
+          for (const msg of s.messages) if (!cases[m.index].messages.includes(msg)) cases[m.index].messages.push(msg);
+          continue;
+        }
         wait(m.sim.advance(s), m.sim, m.index);
       }
       await input.yieldNow?.();

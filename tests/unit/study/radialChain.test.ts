@@ -120,3 +120,26 @@ describe("a radial grid, transformer and cable with two overcurrent relays", asy
     expect(result.caution).toMatch(/licensed engineer/);
   });
 });
+
+describe("a case the engine cannot solve", async () => {
+  // the solver reports the END bus as not solved: the study must give it no current and no verdict, and say why
+  const failing = tableSolver((_s, loc) => (loc.kind === "bus" && loc.bus === "LV" ? { "R-HV": reading3ph(toHv(I_LV_AT_LV), "forward") } : {}));
+  const solver = {
+    ...failing,
+    solveMany(...args: Parameters<typeof failing.solveMany>) {
+      return failing.solveMany(...args).map((s, k) => (args[1][k].kind === "bus" && (args[1][k] as { bus: string }).bus === "END" ? { ...s, iFault_A: 0, unsolved: "Bus END: factorization failed (test)" } : s));
+    },
+  };
+  const result = await runStudy(project, { solver, model: protectionModel() }, { faultTypes: ["3ph"], linePoints: false });
+
+  it("is marked unsolved with its reason, carries no current, and gets no verdict", () => {
+    const c = result.cases.find((x) => x.faultCase.id === "s1|bus:END|3ph|max")!;
+    expect(c.unsolved).toBe(true);
+    expect(c.iFault_A).toBe(0);
+    expect(c.operation.isolated_s).toBeNull();
+    expect(c.verdictIds).toEqual([]);
+    expect(result.warnings.some((w) => /bus END.*not solved \(Bus END: factorization failed \(test\)\)/.test(w))).toBe(true);
+    // the other case is studied as usual
+    expect(result.cases.find((x) => x.faultCase.id === "s1|bus:LV|3ph|max")!.verdictIds.length).toBeGreaterThan(0);
+  });
+});

@@ -304,7 +304,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   };
 
   const solveOne = (scenario: Scenario, location: FaultLocation, type: FaultType, limit: FaultLimit, open: OpenEnd[]): FaultSnapshot => {
-    if (open.length > 0 && reopenOf(scenario, limit)) return solveOpenedEach(scenario, open, [location], type, limit)(0);
+    if (open.length > 0 && reopenOf(scenario, limit)) return solveOpenedEach(scenario, open, [location], [type], limit)(0, type);
     const v = variantOf(scenario, open);
     const c = compile(v, limit);
     if (!c.network) return { iFault_A: 0, readings: Object.create(null) as Record<string, DeviceReading>, messages: c.messages, unsolved: c.messages.join("; ") || "the network could not be built" };
@@ -350,13 +350,16 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     }
     return ctx ? { ctx, net: c.network, project: v.project, scenarioId: v.scenarioId } : null;
   };
-  const solveOpenedEach = (scenario: Scenario, open: OpenEnd[], locations: FaultLocation[], type: FaultType, limit: FaultLimit): ((i: number) => FaultSnapshot) => {
+  const solveOpenedEach = (scenario: Scenario, open: OpenEnd[], locations: FaultLocation[], types: readonly FaultType[], limit: FaultLimit): ((i: number, type: FaultType) => FaultSnapshot) => {
     const r = open.length > 0 ? reopenOf(scenario, limit) : null;
-    if (!r) return solveEach(scenario, locations, type, limit, undefined, open);
+    if (!r) {
+      const byType = new Map(types.map((t) => [t, solveEach(scenario, locations, t, limit, undefined, open)] as const));
+      return (k, t) => (byType.get(t) ?? solveEach(scenario, locations, t, limit, undefined, open))(k);
+    }
     const ends = open.map((o) => ({ element: split.endElement(o.element, o.end), end: o.end }));
     const where = locations.map(locate);
     const buses = [...new Set(where.filter((l) => l.kind === "bus").map((l) => (l as { bus: string }).bus))];
-    const single = (k: number): FaultSnapshot => {
+    const single = (k: number, type: FaultType): FaultSnapshot => {
       try {
         const res = solveReopened(r.ctx, ends, where[k], type, { detail: "devices" });
         return snapshotOfFault(r.net, res, shiftOf(r.net, busOf(where[k], r.project)), null);
@@ -374,15 +377,15 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
         const [element, end] = locKey.get(d.id)!.split("|");
         return { element, end: end as OpenEnd["end"] };
       });
-      sweep = sweepReopened(r.ctx, ends, { buses, types: [type], devices: locs });
+      sweep = sweepReopened(r.ctx, ends, { buses, types: [...types], devices: locs });
     } catch {
       return single;
     }
     sweepDeviceIndex.set(sweep, new Map(sweep.devices.map((d, i) => [`${d.element}|${d.end}`, i] as const)));
     sweepBusIndex.set(sweep, new Map(sweep.busIds.map((b, i) => [b, i] as const)));
-    return (k) => {
+    return (k, type) => {
       const loc = where[k];
-      return loc.kind === "bus" ? fromSweep(r.net, sweep, loc.bus, type, null) : single(k);
+      return loc.kind === "bus" && sweep.types.includes(type) ? fromSweep(r.net, sweep, loc.bus, type, null) : single(k, type);
     };
   };
 

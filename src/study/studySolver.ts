@@ -38,10 +38,11 @@ export interface StudySolver {
    */
   solveEach?(scenario: Scenario, locations: FaultLocation[], faultType: FaultType, limit: FaultLimit, devices?: readonly string[]): (i: number) => FaultSnapshot;
   /**
-   * Optional: faults at many locations of one scenario with the same element ends opened (the simulated
-   * operation groups its cases by what has opened). `at(i)` is `solveOne(scenario, locations[i], ..., open)`.
+   * Optional: faults at many locations of one scenario, of several fault types, with the same element ends opened
+   * (the simulated operation groups its cases by what has opened). `at(i, type)` is
+   * `solveOne(scenario, locations[i], type, limit, open)`.
    */
-  solveOpenedEach?(scenario: Scenario, open: OpenEnd[], locations: FaultLocation[], faultType: FaultType, limit: FaultLimit): (i: number) => FaultSnapshot;
+  solveOpenedEach?(scenario: Scenario, open: OpenEnd[], locations: FaultLocation[], faultTypes: readonly FaultType[], limit: FaultLimit): (i: number, faultType: FaultType) => FaultSnapshot;
   /** One fault with some element ends opened (clearing timeline). */
   solveOne(scenario: Scenario, location: FaultLocation, faultType: FaultType, limit: FaultLimit, open: OpenEnd[]): FaultSnapshot;
   /**

@@ -7,9 +7,19 @@ import type { DeviceModel } from "../deviceModel.ts";
 import { deviceResponse } from "../deviceResponse.ts";
 import { caseId, caseLabel } from "../faultCases.ts";
 import { openSetKey } from "../keys.ts";
-import { CaseSimulation, firstState, type SimulationOutcome } from "../operation/simulateCase.ts";
+import {
+  CaseSimulation,
+  firstState,
+  type SimulationOutcome,
+} from "../operation/simulateCase.ts";
 import type { FaultSnapshot, OpenEnd, StudySolver } from "../studySolver.ts";
-import type { DeviceResponse, FaultCase, FaultLimit, FaultLocation, FaultType } from "../types.ts";
+import type {
+  DeviceResponse,
+  FaultCase,
+  FaultLimit,
+  FaultLocation,
+  FaultType,
+} from "../types.ts";
 import type { WithstandFn } from "../withstand.ts";
 import type { LocationPlan, ScenarioPlan } from "./scenarioPlan.ts";
 
@@ -29,7 +39,8 @@ export interface SimulatedCase {
 export interface SimulateInput {
   project: Project;
   sp: ScenarioPlan;
-  type: FaultType;
+  /** Fault types simulated together: an opened set is solved once for all of them. */
+  types: readonly FaultType[];
   limit: FaultLimit;
   solver: StudySolver;
   model: DeviceModel;
@@ -50,50 +61,114 @@ export class StudyCancelled extends Error {
 
 const EMPTY: FaultSnapshot = { iFault_A: 0, readings: {}, messages: [] };
 
-/** Every case of one limit and fault type in one scenario, simulated to its end. */
-export async function simulateScenario(input: SimulateInput): Promise<SimulatedCase[]> {
-  const { project, sp, type, limit, solver, model, withstand } = input;
+/**
+ * Every case of one limit in one scenario, for each of the fault types, simulated to its end. Cases come
+ * by fault type, then location; `SimulatedCase.index` is the location's index.
+ */
+export async function simulateScenario(
+  input: SimulateInput,
+): Promise<SimulatedCase[]> {
+  const { project, sp, types, limit, solver, model, withstand } = input;
   const { net, scenario, locations } = sp;
-  const plans = sp.plans.get(type)!;
   const horizon_s = project.criteria.horizon_s;
-  const snapAt =
-    locations.length === 0
-      ? () => EMPTY
-      : solver.solveEach
-        ? solver.solveEach(scenario, locations, type, limit)
-        : ((snaps) => (i: number) => snaps[i])(solver.solveMany(scenario, locations, type, limit));
+  const L = locations.length;
   const cases: SimulatedCase[] = [];
-  /** Simulations waiting for a network state: opened-set key -> the set and its simulations. */
-  let pending = new Map<string, { open: OpenEnd[]; sims: { sim: CaseSimulation; index: number }[] }>();
-  const wait = (open: OpenEnd[] | null, sim: CaseSimulation, index: number) => {
+  /** Simulations waiting for a network state: opened-set key -> the set and its simulations (by case slot). */
+  let pending = new Map<
+    string,
+    { open: OpenEnd[]; sims: { sim: CaseSimulation; slot: number }[] }
+  >();
+  const wait = (open: OpenEnd[] | null, sim: CaseSimulation, slot: number) => {
     if (!open) return;
     const key = openSetKey(open);
     let g = pending.get(key);
     if (!g) pending.set(key, (g = { open, sims: [] }));
-    g.sims.push({ sim, index });
+    g.sims.push({ sim, slot });
   };
   const sims: { normal: CaseSimulation; failures: CaseSimulation[] }[] = [];
-  for (let i = 0; i < locations.length; i++) {
-    if (input.isCancelled?.()) throw new StudyCancelled();
-    const loc = locations[i];
-    const fc: FaultCase = { id: caseId(scenario.id, loc, type, limit), scenario: scenario.id, location: loc, faultType: type, limit, label: caseLabel(scenario, loc, type, limit, input.elements) };
-    const snap = snapAt(i);
-    const lp = plans[i];
-    const responses = new Map<string, DeviceResponse>();
-    for (const id in snap.readings) if (net.deviceEdge.has(id)) responses.set(id, deviceResponse(net.devices.get(id)!, snap.readings[id], model));
-    for (const id of lp.plan.devices) if (!responses.has(id)) responses.set(id, deviceResponse(net.devices.get(id)!, undefined, model));
-    const normal = new CaseSimulation({ net, isolation: sp.isolation, faultZone: lp.faultZone, isolatedAtStart: lp.isolatedAtStart, model, horizon_s, outOfReach: lp.plan.outOfReach, withstand });
-    const failures = lp.plan.edges.map((edge, k) => new CaseSimulation({ net, isolation: sp.isolation, faultZone: lp.faultZone, isolatedAtStart: lp.isolatedAtStart, model, horizon_s, outOfReach: lp.failures[k].outOfReach, stuck: new Set([edge]), withstand }));
-    // a fault that draws no current (an earth fault on an isolated-neutral section) is left to other protection;
-    // a case the engine could not solve is not simulated at all
-    if (snap.iFault_A >= 1 && snap.unsolved === undefined) {
-      const first = firstState(net, snap, responses, withstand);
-      wait(normal.advance(first), normal, i);
-      for (const f of failures) wait(f.advance(first), f, i);
+  for (const [t, type] of types.entries()) {
+    const plans = sp.plans.get(type)!;
+    const snapAt =
+      L === 0
+        ? () => EMPTY
+        : solver.solveEach
+          ? solver.solveEach(scenario, locations, type, limit)
+          : (
+              (snaps) => (i: number) =>
+                snaps[i]
+            )(solver.solveMany(scenario, locations, type, limit));
+    for (let i = 0; i < L; i++) {
+      const slot = t * L + i;
+      if (input.isCancelled?.()) throw new StudyCancelled();
+      const loc = locations[i];
+      const fc: FaultCase = {
+        id: caseId(scenario.id, loc, type, limit),
+        scenario: scenario.id,
+        location: loc,
+        faultType: type,
+        limit,
+        label: caseLabel(scenario, loc, type, limit, input.elements),
+      };
+      const snap = snapAt(i);
+      const lp = plans[i];
+      const responses = new Map<string, DeviceResponse>();
+      for (const id in snap.readings)
+        if (net.deviceEdge.has(id))
+          responses.set(
+            id,
+            deviceResponse(net.devices.get(id)!, snap.readings[id], model),
+          );
+      for (const id of lp.plan.devices)
+        if (!responses.has(id))
+          responses.set(
+            id,
+            deviceResponse(net.devices.get(id)!, undefined, model),
+          );
+      const normal = new CaseSimulation({
+        net,
+        isolation: sp.isolation,
+        faultZone: lp.faultZone,
+        isolatedAtStart: lp.isolatedAtStart,
+        model,
+        horizon_s,
+        outOfReach: lp.plan.outOfReach,
+        withstand,
+      });
+      const failures = lp.plan.edges.map(
+        (edge, k) =>
+          new CaseSimulation({
+            net,
+            isolation: sp.isolation,
+            faultZone: lp.faultZone,
+            isolatedAtStart: lp.isolatedAtStart,
+            model,
+            horizon_s,
+            outOfReach: lp.failures[k].outOfReach,
+            stuck: new Set([edge]),
+            withstand,
+          }),
+      );
+      // a fault that draws no current (an earth fault on an isolated-neutral section) is left to other protection;
+      // a case the engine could not solve is not simulated at all
+      if (snap.iFault_A >= 1 && snap.unsolved === undefined) {
+        const first = firstState(net, snap, responses, withstand);
+        wait(normal.advance(first), normal, slot);
+        for (const f of failures) wait(f.advance(first), f, slot);
+      }
+      sims.push({ normal, failures });
+      cases.push({
+        index: i,
+        fc,
+        iFault_A: snap.iFault_A,
+        responses,
+        lp,
+        outcome: normal.outcome(),
+        failureOutcomes: [],
+        messages: snap.messages,
+        ...(snap.unsolved !== undefined ? { unsolved: snap.unsolved } : {}),
+      });
+      await input.onCase?.();
     }
-    sims.push({ normal, failures });
-    cases.push({ index: i, fc, iFault_A: snap.iFault_A, responses, lp, outcome: normal.outcome(), failureOutcomes: [], messages: snap.messages, ...(snap.unsolved !== undefined ? { unsolved: snap.unsolved } : {}) });
-    await input.onCase?.();
   }
   // later states, one opened set at a time, for every location that reached it
   while (pending.size > 0) {
@@ -101,34 +176,45 @@ export async function simulateScenario(input: SimulateInput): Promise<SimulatedC
     pending = new Map();
     for (const { open, sims: members } of round.values()) {
       if (input.isCancelled?.()) throw new StudyCancelled();
+      // the locations and fault types this opened set is needed for, solved in one go
       const at = new Map<number, number>();
       const locs: FaultLocation[] = [];
-      for (const m of members)
-        if (!at.has(m.index)) {
-          at.set(m.index, locs.length);
-          locs.push(locations[m.index]);
+      const wanted = new Set<FaultType>();
+      for (const m of members) {
+        const i = m.slot % L;
+        wanted.add(types[Math.floor(m.slot / L)]);
+        if (!at.has(i)) {
+          at.set(i, locs.length);
+          locs.push(locations[i]);
         }
+      }
+      const typeList = types.filter((x) => wanted.has(x));
       const solve = solver.solveOpenedEach
-        ? solver.solveOpenedEach(scenario, open, locs, type, limit)
-        : (j: number) => solver.solveOne(scenario, locs[j], type, limit, open);
+        ? solver.solveOpenedEach(scenario, open, locs, typeList, limit)
+        : (j: number, type: FaultType) =>
+            solver.solveOne(scenario, locs[j], type, limit, open);
       const snaps = new Map<number, FaultSnapshot>();
       for (const m of members) {
-        const j = at.get(m.index)!;
-        let s = snaps.get(j);
-        if (!s) snaps.set(j, (s = solve(j)));
+        const j = at.get(m.slot % L)!;
+        const type = types[Math.floor(m.slot / L)];
+        const key = j * types.length + types.indexOf(type);
+        let s = snaps.get(key);
+        if (!s) snaps.set(key, (s = solve(j, type)));
         if (s.unsolved !== undefined) {
           // a later state the engine could not solve: the case says so rather than go on with no current
-          cases[m.index].unsolved ??= s.unsolved;
-          for (const msg of s.messages) if (!cases[m.index].messages.includes(msg)) cases[m.index].messages.push(msg);
+          cases[m.slot].unsolved ??= s.unsolved;
+          for (const msg of s.messages)
+            if (!cases[m.slot].messages.includes(msg))
+              cases[m.slot].messages.push(msg);
           continue;
         }
-        wait(m.sim.advance(s), m.sim, m.index);
+        wait(m.sim.advance(s), m.sim, m.slot);
       }
       await input.yieldNow?.();
     }
   }
-  for (const c of cases) {
-    const s = sims[c.index];
+  for (const [slot, c] of cases.entries()) {
+    const s = sims[slot];
     c.outcome = s.normal.outcome();
     c.failureOutcomes = s.failures.map((f) => f.outcome());
   }

@@ -39,18 +39,21 @@ describe("re-solves with device ends opened", () => {
     const solver = engineSolver(project);
     const reference = engineSolver(project);
     for (const type of FAULT_TYPES) {
-      const updated = solver.solveOpenedEach!(scenario, open, locations, type, "min");
+      const updated = solver.solveOpenedEach!(scenario, open, locations, [type], "min");
       const rebuilt = reference.solveEach!(fresh, locations, type, "min");
       locations.forEach((loc, k) => {
         if (loc.kind === "line" && loc.line === "C-INC") return; // the opened cable itself is gone in the rebuilt network
-        expectSame(updated(k), rebuilt(k), `${type} at ${JSON.stringify(loc)}`);
+        expectSame(updated(k, type), rebuilt(k), `${type} at ${JSON.stringify(loc)}`);
       });
     }
   });
 
   it("answer one fault the same way as the batch", () => {
     const solver = engineSolver(project);
-    const batch = solver.solveOpenedEach!(scenario, open, locations, "LG", "max");
-    locations.slice(0, 6).forEach((loc, k) => expectSame(solver.solveOne(scenario, loc, "LG", "max", open), batch(k), `LG at ${JSON.stringify(loc)}`));
+    const batch = solver.solveOpenedEach!(scenario, open, locations, ["3ph", "LG"], "max");
+    locations.slice(0, 6).forEach((loc, k) => {
+      expectSame(solver.solveOne(scenario, loc, "LG", "max", open), batch(k, "LG"), `LG at ${JSON.stringify(loc)}`);
+      expectSame(solver.solveOne(scenario, loc, "3ph", "max", open), batch(k, "3ph"), `3ph at ${JSON.stringify(loc)}`);
+    });
   });
 });

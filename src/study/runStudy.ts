@@ -15,23 +15,9 @@ import { blindingPass, type BlindingCase } from "./pipeline/blindingPass.ts";
 import { caseRecord, loadLostMemo } from "./pipeline/caseRecord.ts";
 import { casesThatMatter, replayTimeline } from "./pipeline/replayTimeline.ts";
 import { planScenario } from "./pipeline/scenarioPlan.ts";
-import {
-  simulateScenario,
-  StudyCancelled,
-} from "./pipeline/simulateScenario.ts";
+import { simulateScenario, StudyCancelled } from "./pipeline/simulateScenario.ts";
 import type { StudySolver } from "./studySolver.ts";
-import {
-  FAULT_TYPES,
-  STUDY_CAUTION,
-  type CaseResult,
-  type ClearingTimeline,
-  type FaultLimit,
-  type FaultType,
-  type StudyOptions,
-  type StudyResult,
-  type Verdict,
-  type VerdictStatus,
-} from "./types.ts";
+import { FAULT_TYPES, STUDY_CAUTION, type CaseResult, type ClearingTimeline, type FaultLimit, type FaultType, type StudyOptions, type StudyResult, type Verdict, type VerdictStatus } from "./types.ts";
 import { verdictIdsDistinct } from "./verdictIds.ts";
 import { loadVerdicts } from "./verdicts/sensitivity.ts";
 import { judgeDuty } from "./judges/duty.ts";
@@ -46,11 +32,7 @@ export interface StudyDeps {
 }
 
 export interface StudyHooks {
-  onProgress?: (
-    done: number,
-    total: number,
-    phase: "cases" | "verdicts" | "timelines",
-  ) => void;
+  onProgress?: (done: number, total: number, phase: "cases" | "verdicts" | "timelines") => void;
   /** Checked between cases; true stops the study with StudyCancelled. */
   isCancelled?: () => boolean;
   /** Lets the host breathe between batches of cases (a worker reads its messages here). */
@@ -59,12 +41,7 @@ export interface StudyHooks {
    * Each scenario's cases and verdicts as soon as the scenario is done (for writing them out while the study
    * goes on). With StudyOptions.keepResults false the result then holds no cases or verdicts of its own.
    */
-  onScenario?: (part: {
-    scenario: string;
-    cases: CaseResult[];
-    verdicts: Verdict[];
-    warnings: string[];
-  }) => void | Promise<void>;
+  onScenario?: (part: { scenario: string; cases: CaseResult[]; verdicts: Verdict[]; warnings: string[] }) => void | Promise<void>;
 }
 
 /** Collects verdicts once each (a project whose ids can repeat keeps the first verdict under an id). */
@@ -90,12 +67,7 @@ class VerdictBook {
   }
 }
 
-export async function runStudy(
-  project: Project,
-  deps: StudyDeps,
-  options: StudyOptions = {},
-  hooks: StudyHooks = {},
-): Promise<StudyResult> {
+export async function runStudy(project: Project, deps: StudyDeps, options: StudyOptions = {}, hooks: StudyHooks = {}): Promise<StudyResult> {
   const { solver, model } = deps;
   const warnings: string[] = [];
   const warn = (m: string) => {
@@ -104,19 +76,11 @@ export async function runStudy(
   const cases: CaseResult[] = [];
   const caseCounts: Record<VerdictStatus, number>[] = [];
   const timelines: ClearingTimeline[] = [];
-  const scenarios = project.scenarios.filter(
-    (s) => !options.scenarios || options.scenarios.includes(s.id),
-  );
-  if (options.scenarios)
-    for (const id of options.scenarios)
-      if (!project.scenarios.some((s) => s.id === id))
-        warn(`Scenario ${id}: not found in the project`);
+  const scenarios = project.scenarios.filter((s) => !options.scenarios || options.scenarios.includes(s.id));
+  if (options.scenarios) for (const id of options.scenarios) if (!project.scenarios.some((s) => s.id === id)) warn(`Scenario ${id}: not found in the project`);
   const types: FaultType[] = options.faultTypes ?? [...FAULT_TYPES];
-  const limitsOf = (s: Scenario): FaultLimit[] =>
-    s.limits.filter((l) => !options.limits || options.limits.includes(l));
-  const book = new VerdictBook(
-    verdictIdsDistinct(project, scenarios, types, limitsOf),
-  );
+  const limitsOf = (s: Scenario): FaultLimit[] => s.limits.filter((l) => !options.limits || options.limits.includes(l));
+  const book = new VerdictBook(verdictIdsDistinct(project, scenarios, types, limitsOf));
   const elements = new Map(project.elements.map((e) => [e.id, e] as const));
   const withstand = memoWithstand();
   const only = options.locationKeys ? new Set(options.locationKeys) : null;
@@ -124,9 +88,7 @@ export async function runStudy(
   const plans = scenarios.map((s) => {
     const sp = planScenario(project, s, types, options);
     if (only) {
-      const keep = sp.locations
-        .map((l, i) => (only.has(locationKey(l)) ? i : -1))
-        .filter((i) => i >= 0);
+      const keep = sp.locations.map((l, i) => (only.has(locationKey(l)) ? i : -1)).filter((i) => i >= 0);
       sp.locations = keep.map((i) => sp.locations[i]);
       sp.nodes = keep.map((i) => sp.nodes[i]);
       for (const [t, list] of sp.plans)
@@ -137,11 +99,7 @@ export async function runStudy(
     }
     return sp;
   });
-  const total = plans.reduce(
-    (n, sp) =>
-      n + sp.locations.length * limitsOf(sp.scenario).length * types.length,
-    0,
-  );
+  const total = plans.reduce((n, sp) => n + sp.locations.length * limitsOf(sp.scenario).length * types.length, 0);
   let done = 0;
 
   const keep = options.keepResults !== false;
@@ -152,15 +110,8 @@ export async function runStudy(
     const firstVerdict = book.list.length;
     for (const d of net.idleDevices) {
       const dev = net.devices.get(d);
-      if (
-        dev &&
-        !scenario.outOfService.includes(d) &&
-        !scenario.outOfService.includes(dev.at.element) &&
-        elements.get(dev.at.element) === undefined
-      )
-        warn(
-          `${d}: located at ${dev.at.element} (${dev.at.end}), which is not in the project`,
-        );
+      if (dev && !scenario.outOfService.includes(d) && !scenario.outOfService.includes(dev.at.element) && elements.get(dev.at.element) === undefined)
+        warn(`${d}: located at ${dev.at.element} (${dev.at.end}), which is not in the project`);
     }
     const ctx: JudgeContext = {
       net,
@@ -200,16 +151,8 @@ export async function runStudy(
       });
       for (const c of simulated) {
         for (const m of c.messages) warn(m);
-        if (c.unsolved !== undefined)
-          warn(
-            `${c.fc.label}: not solved (${c.unsolved}); the case has no current and no verdict`,
-          );
-        const { result, verdicts } = caseRecord(
-          ctx,
-          c,
-          limit === sensLimit,
-          loadLost,
-        );
+        if (c.unsolved !== undefined) warn(`${c.fc.label}: not solved (${c.unsolved}); the case has no current and no verdict`);
+        const { result, verdicts } = caseRecord(ctx, c, limit === sensLimit, loadLost);
         const counts = { pass: 0, warn: 0, fail: 0 };
         book.add(verdicts, counts);
         cases.push(result);
@@ -243,9 +186,7 @@ export async function runStudy(
       locations: sp.locations,
       yieldNow: hooks.yieldNow,
     });
-    const byCase = new Map(
-      scenarioResults.map((r) => [r.faultCase.id, r] as const),
-    );
+    const byCase = new Map(scenarioResults.map((r) => [r.faultCase.id, r] as const));
     for (const [id, vs] of blinding) {
       const r = byCase.get(id)!;
       book.add(vs, countsOf.get(id));
@@ -255,14 +196,8 @@ export async function runStudy(
     book.add(duty.verdicts);
     for (const w of duty.warnings) warn(w);
     const load = solver.loadCurrents(scenario);
-    if (load)
-      book.add(
-        loadVerdicts(scenario, load, net.devices, model, project.criteria),
-      );
-    else
-      warn(
-        `Scenario ${scenario.id} "${scenario.name}": no load flow, pickups were not checked against load current`,
-      );
+    if (load) book.add(loadVerdicts(scenario, load, net.devices, model, project.criteria));
+    else warn(`Scenario ${scenario.id} "${scenario.name}": no load flow, pickups were not checked against load current`);
 
     // clearing timelines: the cases that matter, plus the ones asked for
     const wanted = new Set(options.timelineCases ?? []);

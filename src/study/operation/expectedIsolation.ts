@@ -48,38 +48,43 @@ export function isolationContext(net: ScenarioNetwork, zones: ProtectionZones): 
   return { net, zones, liveIn };
 }
 
-/** The live sources reachable from zone `start` without entering `inside`. */
-function liveBeyond(ctx: IsolationContext, start: number, inside: ReadonlySet<number>): string[] {
-  const found: string[] = [...(ctx.liveIn.get(start) ?? [])];
+/**
+ * Walks the zone graph from `start` without entering `inside` (nor crossing `open` edges), calling `visit` with each
+ * zone reached; stops when `visit` returns true.
+ */
+function walkZones(ctx: IsolationContext, start: number, inside: ReadonlySet<number>, open: ReadonlySet<number> | null, visit: (zone: number) => boolean): void {
+  if (visit(start)) return;
   const seen = new Set<number>([start]);
   const queue = [start];
   for (let q = 0; q < queue.length; q++) {
     for (const edge of ctx.zones.rim[queue[q]]) {
+      if (open?.has(edge)) continue;
       const next = zoneAcross(ctx.zones, ctx.net, edge, queue[q]);
       if (seen.has(next) || inside.has(next)) continue;
-      found.push(...(ctx.liveIn.get(next) ?? []));
+      if (visit(next)) return;
       seen.add(next);
       queue.push(next);
     }
   }
+}
+
+const NONE: ReadonlySet<number> = new Set();
+
+/** The live sources reachable from zone `start` without entering `inside`. */
+function liveBeyond(ctx: IsolationContext, start: number, inside: ReadonlySet<number>): string[] {
+  const found: string[] = [];
+  walkZones(ctx, start, inside, null, (z) => {
+    found.push(...(ctx.liveIn.get(z) ?? []));
+    return false;
+  });
   return found;
 }
 
 /** True when a live source can be reached from `start` without entering `inside`. */
 function reachesLive(ctx: IsolationContext, start: number, inside: ReadonlySet<number>): boolean {
-  if (ctx.liveIn.has(start)) return true;
-  const seen = new Set<number>([start]);
-  const queue = [start];
-  for (let q = 0; q < queue.length; q++) {
-    for (const edge of ctx.zones.rim[queue[q]]) {
-      const next = zoneAcross(ctx.zones, ctx.net, edge, queue[q]);
-      if (seen.has(next) || inside.has(next)) continue;
-      if (ctx.liveIn.has(next)) return true;
-      seen.add(next);
-      queue.push(next);
-    }
-  }
-  return false;
+  let live = false;
+  walkZones(ctx, start, inside, null, (z) => (live = ctx.liveIn.has(z)));
+  return live;
 }
 
 /** Which side of boundary edge `edge` the grown zone lies on. */
@@ -176,34 +181,20 @@ export function backupDevices(plan: IsolationPlan, failure: IsolationPlan): stri
  * zones where the network graph has thousands of nodes).
  */
 export function liveFeeding(ctx: IsolationContext, start: number, open: ReadonlySet<number>): string[] {
-  const found: string[] = [...(ctx.liveIn.get(start) ?? [])];
-  const seen = new Set<number>([start]);
-  const queue = [start];
-  for (let q = 0; q < queue.length; q++) {
-    for (const edge of ctx.zones.rim[queue[q]]) {
-      if (open.has(edge)) continue;
-      const next = zoneAcross(ctx.zones, ctx.net, edge, queue[q]);
-      if (seen.has(next)) continue;
-      seen.add(next);
-      queue.push(next);
-      const live = ctx.liveIn.get(next);
-      if (live) found.push(...live);
-    }
-  }
+  const found: string[] = [];
+  walkZones(ctx, start, NONE, open, (z) => {
+    found.push(...(ctx.liveIn.get(z) ?? []));
+    return false;
+  });
   return found;
 }
 
 /** The zones connected to zone `start` with no device open. */
 export function zonesConnected(ctx: IsolationContext, start: number): Set<number> {
-  const seen = new Set<number>([start]);
-  const queue = [start];
-  for (let q = 0; q < queue.length; q++)
-    for (const edge of ctx.zones.rim[queue[q]]) {
-      const next = zoneAcross(ctx.zones, ctx.net, edge, queue[q]);
-      if (!seen.has(next)) {
-        seen.add(next);
-        queue.push(next);
-      }
-    }
+  const seen = new Set<number>();
+  walkZones(ctx, start, NONE, null, (z) => {
+    seen.add(z);
+    return false;
+  });
   return seen;
 }

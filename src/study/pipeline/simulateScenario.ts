@@ -7,19 +7,9 @@ import type { DeviceModel } from "../deviceModel.ts";
 import { deviceResponse } from "../deviceResponse.ts";
 import { caseId, caseLabel } from "../faultCases.ts";
 import { openSetKey } from "../keys.ts";
-import {
-  CaseSimulation,
-  firstState,
-  type SimulationOutcome,
-} from "../operation/simulateCase.ts";
+import { CaseSimulation, firstState, type SimulationOutcome } from "../operation/simulateCase.ts";
 import type { FaultSnapshot, OpenEnd, StudySolver } from "../studySolver.ts";
-import type {
-  DeviceResponse,
-  FaultCase,
-  FaultLimit,
-  FaultLocation,
-  FaultType,
-} from "../types.ts";
+import type { DeviceResponse, FaultCase, FaultLimit, FaultLocation, FaultType } from "../types.ts";
 import type { WithstandFn } from "../withstand.ts";
 import type { LocationPlan, ScenarioPlan } from "./scenarioPlan.ts";
 
@@ -65,19 +55,14 @@ const EMPTY: FaultSnapshot = { iFault_A: 0, readings: {}, messages: [] };
  * Every case of one limit in one scenario, for each of the fault types, simulated to its end. Cases come
  * by fault type, then location; `SimulatedCase.index` is the location's index.
  */
-export async function simulateScenario(
-  input: SimulateInput,
-): Promise<SimulatedCase[]> {
+export async function simulateScenario(input: SimulateInput): Promise<SimulatedCase[]> {
   const { project, sp, types, limit, solver, model, withstand } = input;
   const { net, scenario, locations } = sp;
   const horizon_s = project.criteria.horizon_s;
   const L = locations.length;
   const cases: SimulatedCase[] = [];
   /** Simulations waiting for a network state: opened-set key -> the set and its simulations (by case slot). */
-  let pending = new Map<
-    string,
-    { open: OpenEnd[]; sims: { sim: CaseSimulation; slot: number }[] }
-  >();
+  let pending = new Map<string, { open: OpenEnd[]; sims: { sim: CaseSimulation; slot: number }[] }>();
   const wait = (open: OpenEnd[] | null, sim: CaseSimulation, slot: number) => {
     if (!open) return;
     const key = openSetKey(open);
@@ -112,42 +97,12 @@ export async function simulateScenario(
       const snap = snapAt(i);
       const lp = plans[i];
       const responses = new Map<string, DeviceResponse>();
-      for (const id in snap.readings)
-        if (net.deviceEdge.has(id))
-          responses.set(
-            id,
-            deviceResponse(net.devices.get(id)!, snap.readings[id], model),
-          );
-      for (const id of lp.plan.devices)
-        if (!responses.has(id))
-          responses.set(
-            id,
-            deviceResponse(net.devices.get(id)!, undefined, model),
-          );
-      const normal = new CaseSimulation({
-        net,
-        isolation: sp.isolation,
-        faultZone: lp.faultZone,
-        isolatedAtStart: lp.isolatedAtStart,
-        model,
-        horizon_s,
-        outOfReach: lp.plan.outOfReach,
-        withstand,
-      });
-      const failures = lp.plan.edges.map(
-        (edge, k) =>
-          new CaseSimulation({
-            net,
-            isolation: sp.isolation,
-            faultZone: lp.faultZone,
-            isolatedAtStart: lp.isolatedAtStart,
-            model,
-            horizon_s,
-            outOfReach: lp.failures[k].outOfReach,
-            stuck: new Set([edge]),
-            withstand,
-          }),
-      );
+      for (const id in snap.readings) if (net.deviceEdge.has(id)) responses.set(id, deviceResponse(net.devices.get(id)!, snap.readings[id], model));
+      for (const id of lp.plan.devices) if (!responses.has(id)) responses.set(id, deviceResponse(net.devices.get(id)!, undefined, model));
+      const simulation = (outOfReach: readonly string[], stuck?: ReadonlySet<number>) =>
+        new CaseSimulation({ net, isolation: sp.isolation, faultZone: lp.faultZone, isolatedAtStart: lp.isolatedAtStart, model, horizon_s, outOfReach, stuck, withstand });
+      const normal = simulation(lp.plan.outOfReach);
+      const failures = lp.plan.edges.map((edge, k) => simulation(lp.failures[k].outOfReach, new Set([edge])));
       // a fault that draws no current (an earth fault on an isolated-neutral section) is left to other protection;
       // a case the engine could not solve is not simulated at all
       if (snap.iFault_A >= 1 && snap.unsolved === undefined) {
@@ -189,10 +144,7 @@ export async function simulateScenario(
         }
       }
       const typeList = types.filter((x) => wanted.has(x));
-      const solve = solver.solveOpenedEach
-        ? solver.solveOpenedEach(scenario, open, locs, typeList, limit)
-        : (j: number, type: FaultType) =>
-            solver.solveOne(scenario, locs[j], type, limit, open);
+      const solve = solver.solveOpenedEach ? solver.solveOpenedEach(scenario, open, locs, typeList, limit) : (j: number, type: FaultType) => solver.solveOne(scenario, locs[j], type, limit, open);
       const snaps = new Map<number, FaultSnapshot>();
       for (const m of members) {
         const j = at.get(m.slot % L)!;
@@ -203,9 +155,7 @@ export async function simulateScenario(
         if (s.unsolved !== undefined) {
           // a later state the engine could not solve: the case says so rather than go on with no current
           cases[m.slot].unsolved ??= s.unsolved;
-          for (const msg of s.messages)
-            if (!cases[m.slot].messages.includes(msg))
-              cases[m.slot].messages.push(msg);
+          for (const msg of s.messages) if (!cases[m.slot].messages.includes(msg)) cases[m.slot].messages.push(msg);
           continue;
         }
         wait(m.sim.advance(s), m.sim, m.slot);

@@ -26,6 +26,9 @@ import type { JudgeContext } from "./judges/judgedCase.ts";
 
 export { StudyCancelled };
 
+/** Most cases simulated in one part of a scenario (a limit with all its fault types, or one type when more). */
+const PART_CASES = 40_000;
+
 export interface StudyDeps {
   solver: StudySolver;
   model: DeviceModel;
@@ -38,8 +41,9 @@ export interface StudyHooks {
   /** Lets the host breathe between batches of cases (a worker reads its messages here). */
   yieldNow?: () => Promise<void>;
   /**
-   * Each scenario's cases and verdicts as soon as the scenario is done (for writing them out while the study
-   * goes on). With StudyOptions.keepResults false the result then holds no cases or verdicts of its own.
+   * Each part of a scenario (a limit, or a limit and fault type on a large network) with its cases and their
+   * verdicts as soon as it is done, and last the scenario's own verdicts (duty, load): for writing them out while
+   * the study goes on. With StudyOptions.keepResults false the result then holds no cases or verdicts of its own.
    */
   onScenario?: (part: { scenario: string; cases: CaseResult[]; verdicts: Verdict[]; warnings: string[] }) => void | Promise<void>;
 }
@@ -106,8 +110,6 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
   let warned = 0;
   for (const sp of plans) {
     const { scenario, net } = sp;
-    const firstCase = cases.length;
-    const firstVerdict = book.list.length;
     for (const d of net.idleDevices) {
       const dev = net.devices.get(d);
       if (dev && !scenario.outOfService.includes(d) && !scenario.outOfService.includes(dev.at.element) && elements.get(dev.at.element) === undefined)
@@ -125,73 +127,82 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
     const loadLost = loadLostMemo(net);
     const limits = limitsOf(scenario);
     const sensLimit: FaultLimit = limits.includes("min") ? "min" : "max";
-    const blindingCases: BlindingCase[] = [];
-    const scenarioResults: CaseResult[] = [];
-    const resultIndex: number[] = [];
-    const countsOf = new Map<string, Record<VerdictStatus, number>>();
-    for (const limit of limits) {
-      const simulated = await simulateScenario({
-        project,
-        sp,
-        types,
-        limit,
-        solver,
-        model,
-        withstand,
-        elements,
-        isCancelled: hooks.isCancelled,
-        yieldNow: hooks.yieldNow,
-        onCase: async () => {
-          done++;
-          if (done % 64 === 0) {
-            hooks.onProgress?.(done, total, "cases");
-            await hooks.yieldNow?.();
-          }
-        },
-      });
-      for (const c of simulated) {
-        for (const m of c.messages) warn(m);
-        if (c.unsolved !== undefined) warn(`${c.fc.label}: not solved (${c.unsolved}); the case has no current and no verdict`);
-        const { result, verdicts } = caseRecord(ctx, c, limit === sensLimit, loadLost);
-        const counts = { pass: 0, warn: 0, fail: 0 };
-        book.add(verdicts, counts);
-        cases.push(result);
-        caseCounts.push(counts);
-        countsOf.set(result.faultCase.id, counts);
-        scenarioResults.push(result);
-        resultIndex.push(c.index);
-        if (limit === sensLimit && c.iFault_A >= 1 && c.unsolved === undefined)
-          blindingCases.push({
-            fc: c.fc,
-            locIndex: c.index,
-            responses: c.responses,
-            plan: c.lp.plan,
-            failures: c.lp.failures,
-          });
+    const wanted = new Set(options.timelineCases ?? []);
+    /** The cases that may get a timeline, kept across the scenario's parts (casesThatMatter is associative over parts). */
+    let candidates: { result: CaseResult; index: number }[] = [];
+    // A scenario is worked through in parts (a limit, and all its fault types unless they are too many cases for one
+    // part); each part's cases and verdicts are handed out, and dropped when the caller keeps none.
+    const groups = sp.locations.length * types.length <= PART_CASES ? [types] : types.map((t) => [t]);
+    const emit = async (firstCase: number, firstVerdict: number) => {
+      if (hooks.onScenario) {
+        await hooks.onScenario({ scenario: scenario.id, cases: cases.slice(firstCase), verdicts: book.list.slice(firstVerdict), warnings: warnings.slice(warned) });
+        warned = warnings.length;
       }
-    }
+      if (!keep) {
+        cases.length = firstCase;
+        caseCounts.length = firstCase;
+        book.list.length = firstVerdict;
+      }
+    };
+    for (const limit of limits)
+      for (const group of groups) {
+        const firstCase = cases.length;
+        const firstVerdict = book.list.length;
+        const simulated = await simulateScenario({
+          project,
+          sp,
+          types: group,
+          limit,
+          solver,
+          model,
+          withstand,
+          elements,
+          isCancelled: hooks.isCancelled,
+          yieldNow: hooks.yieldNow,
+          onCase: async () => {
+            done++;
+            if (done % 64 === 0) {
+              hooks.onProgress?.(done, total, "cases");
+              await hooks.yieldNow?.();
+            }
+          },
+        });
+        const partResults: { result: CaseResult; index: number }[] = [];
+        const countsOf = new Map<string, Record<VerdictStatus, number>>();
+        const blindingCases: BlindingCase[] = [];
+        for (const c of simulated) {
+          for (const m of c.messages) warn(m);
+          if (c.unsolved !== undefined) warn(`${c.fc.label}: not solved (${c.unsolved}); the case has no current and no verdict`);
+          const { result, verdicts } = caseRecord(ctx, c, limit === sensLimit, loadLost);
+          const counts = { pass: 0, warn: 0, fail: 0 };
+          book.add(verdicts, counts);
+          cases.push(result);
+          caseCounts.push(counts);
+          countsOf.set(result.faultCase.id, counts);
+          partResults.push({ result, index: c.index });
+          if (limit === sensLimit && c.iFault_A >= 1 && c.unsolved === undefined) blindingCases.push({ fc: c.fc, locIndex: c.index, responses: c.responses, plan: c.lp.plan, failures: c.lp.failures });
+        }
+        simulated.length = 0;
+        if (hooks.isCancelled?.()) throw new StudyCancelled();
+        // blinding of this part's cases at the scenario's sensitivity limit
+        if (blindingCases.length) {
+          const blinding = await blindingPass({ scenario, net, zones: sp.isolation.zones, cases: blindingCases, types: group, limit: sensLimit, solver, model, criteria: project.criteria, locations: sp.locations, yieldNow: hooks.yieldNow });
+          const byCase = new Map(partResults.map((r) => [r.result.faultCase.id, r.result] as const));
+          for (const [id, vs] of blinding) {
+            book.add(vs, countsOf.get(id));
+            byCase.get(id)!.verdictIds.push(...vs.map((v) => v.id));
+          }
+        }
+        const pool = [...candidates, ...partResults];
+        const kept = new Set(casesThatMatter(pool.map((x) => x.result)));
+        pool.forEach((x, k) => {
+          if (wanted.has(x.result.faultCase.id)) kept.add(k);
+        });
+        candidates = [...kept].sort((x, y) => x - y).map((k) => pool[k]);
+        await emit(firstCase, firstVerdict);
+      }
     hooks.onProgress?.(done, total, "verdicts");
-    if (hooks.isCancelled?.()) throw new StudyCancelled();
-
-    const blinding = await blindingPass({
-      scenario,
-      net,
-      zones: sp.isolation.zones,
-      cases: blindingCases,
-      types,
-      limit: sensLimit,
-      solver,
-      model,
-      criteria: project.criteria,
-      locations: sp.locations,
-      yieldNow: hooks.yieldNow,
-    });
-    const byCase = new Map(scenarioResults.map((r) => [r.faultCase.id, r] as const));
-    for (const [id, vs] of blinding) {
-      const r = byCase.get(id)!;
-      book.add(vs, countsOf.get(id));
-      r.verdictIds.push(...vs.map((v) => v.id));
-    }
+    const scenarioVerdicts = book.list.length;
     const duty = judgeDuty(scenario, net.devices, elements, solver);
     book.add(duty.verdicts);
     for (const w of duty.warnings) warn(w);
@@ -200,41 +211,17 @@ export async function runStudy(project: Project, deps: StudyDeps, options: Study
     else warn(`Scenario ${scenario.id} "${scenario.name}": no load flow, pickups were not checked against load current`);
 
     // clearing timelines: the cases that matter, plus the ones asked for
-    const wanted = new Set(options.timelineCases ?? []);
-    const chosen = new Set(casesThatMatter(scenarioResults));
-    scenarioResults.forEach((r, k) => {
-      if (wanted.has(r.faultCase.id)) chosen.add(k);
+    const chosen = new Set(casesThatMatter(candidates.map((x) => x.result)));
+    candidates.forEach((x, k) => {
+      if (wanted.has(x.result.faultCase.id)) chosen.add(k);
     });
     for (const k of [...chosen].sort((a, b) => a - b)) {
       if (hooks.isCancelled?.()) throw new StudyCancelled();
-      timelines.push(
-        replayTimeline({
-          project,
-          sp,
-          index: resultIndex[k],
-          result: scenarioResults[k],
-          solver,
-          model,
-          withstand,
-        }),
-      );
+      timelines.push(replayTimeline({ project, sp, index: candidates[k].index, result: candidates[k].result, solver, model, withstand }));
       hooks.onProgress?.(done, total, "timelines");
       await hooks.yieldNow?.();
     }
-    if (hooks.onScenario) {
-      await hooks.onScenario({
-        scenario: scenario.id,
-        cases: cases.slice(firstCase),
-        verdicts: book.list.slice(firstVerdict),
-        warnings: warnings.slice(warned),
-      });
-      warned = warnings.length;
-    }
-    if (!keep) {
-      cases.length = firstCase;
-      caseCounts.length = firstCase;
-      book.list.length = firstVerdict;
-    }
+    await emit(cases.length, scenarioVerdicts);
   }
   hooks.onProgress?.(total, total, "verdicts");
   return {

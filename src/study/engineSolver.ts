@@ -71,6 +71,13 @@ const busOf = (loc: FaultLocation, project: Project): string => {
   return line?.kind === "line" ? (loc.pct <= 50 ? line.fromBus : line.toBus) : "";
 };
 
+/** Cache sizes: compiled networks, whole or partial sweeps, re-solve contexts (each most recently used first). */
+const MAX_COMPILED = 8;
+const MAX_SWEEPS = 4;
+const MAX_REOPEN = 2;
+/** Memory for the Z columns one re-solve context keeps. */
+const REOPEN_COLUMN_BYTES = 64 * 1024 * 1024;
+
 export function engineSolver(project: Project, opts: EngineSolverOptions = {}): StudySolver {
   const split = splitLines(project, project.criteria.linePoints_pct);
   const base = split.project;
@@ -82,6 +89,16 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   /** Device id -> its location key in the split project. */
   const locKey = new Map(devices.map((d) => [d.id, `${split.endElement(d.at.element, d.at.end)}|${d.at.end}`] as const));
   const compiled = new Map<string, { network: CompiledNetwork | null; messages: string[] }>();
+  /**
+   * Keeps a cache to its `max` most recently used entries: a study moves through its scenarios and limits in
+   * order, and a large network's sweep holds hundreds of megabytes, so old ones must not pile up.
+   */
+  const touch = <V>(cache: Map<string, V>, key: string, value: V, max: number): V => {
+    cache.delete(key);
+    cache.set(key, value);
+    while (cache.size > max) cache.delete(cache.keys().next().value!);
+    return value;
+  };
   let sweepBroken = false;
   /** Requests (scenario or variant, limit, buses) whose sweep messages were passed on. */
   const sweepsReported = new Set<string>();
@@ -120,12 +137,13 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   const compile = (v: { content: string; project: Project; scenarioId: string }, limit: FaultLimit) => {
     const k = `${v.content}#${limit}`;
     let c = compiled.get(k);
+    if (c) touch(compiled, k, c, MAX_COMPILED);
     if (!c) {
       const r = compileNetwork(v.project, { scenario: v.scenarioId, limit });
       c = r.ok
         ? { network: r.network, messages: r.network.messages.filter((m) => m.level !== "info").map((m) => m.text) }
         : { network: null, messages: r.errors.map((m) => m.text) };
-      compiled.set(k, c);
+      touch(compiled, k, c, MAX_COMPILED);
     }
     return c;
   };
@@ -241,7 +259,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
   /** One sweep of every energised bus and every fault type per network variant and limit. */
   const sweeps = new Map<string, SweepResult | null>();
   const sweepOf = (key: string, net: CompiledNetwork, variant: Project, scenarioId: string, buses?: string[], only?: ReadonlySet<string>): SweepResult | null => {
-    if (sweeps.has(key)) return sweeps.get(key)!;
+    if (sweeps.has(key)) return touch(sweeps, key, sweeps.get(key)!, MAX_SWEEPS);
     let sweep: SweepResult | null = null;
     if (!sweepBroken) {
       try {
@@ -258,7 +276,7 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
         sweepBroken = true;
       }
     }
-    sweeps.set(key, sweep);
+    touch(sweeps, key, sweep, MAX_SWEEPS);
     return sweep;
   };
 
@@ -340,13 +358,14 @@ export function engineSolver(project: Project, opts: EngineSolverOptions = {}): 
     if (!c.network) return null;
     const key = `${v.content}#${limit}`;
     let ctx = reopenContexts.get(key);
+    if (ctx !== undefined) touch(reopenContexts, key, ctx, MAX_REOPEN);
     if (ctx === undefined) {
       try {
-        ctx = createReopenContext(v.project, { scenario: v.scenarioId, limit }, c.network);
+        ctx = createReopenContext(v.project, { scenario: v.scenarioId, limit }, c.network, { maxColumns: Math.max(64, Math.floor(REOPEN_COLUMN_BYTES / (16 * Math.max(1, c.network.nodes.length)))) });
       } catch {
         ctx = null;
       }
-      reopenContexts.set(key, ctx);
+      touch(reopenContexts, key, ctx, MAX_REOPEN);
     }
     return ctx ? { ctx, net: c.network, project: v.project, scenarioId: v.scenarioId } : null;
   };

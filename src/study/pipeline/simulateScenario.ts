@@ -51,6 +51,19 @@ export class StudyCancelled extends Error {
 
 const EMPTY: FaultSnapshot = { iFault_A: 0, readings: {}, messages: [] };
 
+/** Share of the largest device current below which a device that does not operate is not kept. */
+const KEEP_SHARE = 0.01;
+
+/**
+ * Drops the first-state answers of devices that neither operate nor carry a real share of the fault current (the
+ * simulation has what it needs of them by now): on a large network they are most of a case's memory.
+ */
+function pruneResponses(responses: Map<string, DeviceResponse>, expected: readonly string[]): void {
+  let peak = 0;
+  for (const r of responses.values()) if (r.iPhase_A > peak) peak = r.iPhase_A;
+  for (const [id, r] of responses) if (r.tOperate_s === null && !r.pickedUp && r.iPhase_A < KEEP_SHARE * peak && !expected.includes(id)) responses.delete(id);
+}
+
 /**
  * Every case of one limit in one scenario, for each of the fault types, simulated to its end. Cases come
  * by fault type, then location; `SimulatedCase.index` is the location's index.
@@ -110,6 +123,7 @@ export async function simulateScenario(input: SimulateInput): Promise<SimulatedC
         wait(normal.advance(first), normal, slot);
         for (const f of failures) wait(f.advance(first), f, slot);
       }
+      pruneResponses(responses, lp.plan.devices);
       sims.push({ normal, failures });
       cases.push({
         index: i,

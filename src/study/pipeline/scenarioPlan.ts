@@ -49,26 +49,31 @@ export function planScenario(project: Project, scenario: Scenario, types: readon
   const locations = faultLocations(project, scenario, options);
   const nodes = locations.map(faultNode);
   const plans = new Map<FaultType, LocationPlan[]>();
+  // The expected isolation depends on the zone a fault lies in, not on where in it: every location of a zone
+  // shares one plan per fault type (a large network has tens of thousands of locations in a few hundred zones).
+  const busesOfZones = new Map<string, string[]>();
   for (const type of types) {
-    // locations at the same graph node (a bus and a line's end) share their plan
-    const byNode = new Map<string, LocationPlan>();
+    const byZone = new Map<number, LocationPlan>();
     plans.set(
       type,
       nodes.map((node) => {
-        let lp = byNode.get(node);
+        const faultZone = isolation.zones.zoneOf.get(node) ?? -1;
+        let lp = byZone.get(faultZone);
         if (!lp) {
           const plan = expectedIsolation(isolation, node, type);
-          const faultZone = isolation.zones.zoneOf.get(node) ?? -1;
           const connected = faultZone >= 0 ? zonesConnected(isolation, faultZone) : new Set<number>();
+          const zonesKey = plan.zones.join(",");
+          let zoneBuses = busesOfZones.get(zonesKey);
+          if (!zoneBuses) busesOfZones.set(zonesKey, (zoneBuses = zoneBusesOf(isolation, plan)));
           lp = {
             plan,
             failures: plan.edges.map((edge) => isolationWithFailure(isolation, plan, edge, type)),
-            zoneBuses: zoneBusesOf(isolation, plan),
+            zoneBuses,
             faultZone,
             isolatedAtStart: faultZone < 0 || liveFeeding(isolation, faultZone, new Set()).every((s) => plan.outOfReach.includes(s)),
             selfCeasing: followingSources(net).filter((s) => connected.has(isolation.zones.zoneOf.get(elementNode(s)) ?? -1)),
           };
-          byNode.set(node, lp);
+          byZone.set(faultZone, lp);
         }
         return lp;
       }),

@@ -3,6 +3,7 @@
 import type { Project } from "../model/schema.ts";
 import { StudyCancelled, type StudyHooks } from "../study/runStudy.ts";
 import { studyProject } from "../study/studyProject.ts";
+import { checkStudySize, StudyTooLarge } from "../study/studySize.ts";
 import type { StudyOptions, StudyResult } from "../study/types.ts";
 import type { CliSession } from "./session.ts";
 
@@ -33,5 +34,17 @@ export async function studyInSession(session: CliSession, project: Project, opti
   } catch (err) {
     if (err instanceof StudyCancelled) return null;
     throw err;
+  }
+}
+
+/** Exit code 2 after saying why, when the study would exceed the case budget (src/study/studySize.ts); null when it fits. */
+export function refuseTooLarge(session: CliSession, project: Project, options: StudyOptions = {}): number | null {
+  try {
+    checkStudySize(project, options);
+    return null;
+  } catch (err) {
+    if (!(err instanceof StudyTooLarge)) throw err;
+    session.out.error(`islet ${session.name}: ${err.message}`);
+    return 2;
   }
 }

@@ -4,8 +4,11 @@ import { engineSolver } from "./engineSolver.ts";
 import { protectionModel } from "./protectionModel.ts";
 import { runStudy, type StudyHooks } from "./runStudy.ts";
 import type { StudyOptions, StudyResult } from "./types.ts";
+import { checkStudySize, STUDY_CASE_BUDGET } from "./studySize.ts";
 
-export async function studyProject(project: Project, options: StudyOptions = {}, hooks: StudyHooks = {}): Promise<StudyResult> {
+/** Runs the study; refuses (StudyTooLarge, with the numbers) one that would exceed the case budget. */
+export async function studyProject(project: Project, options: StudyOptions = {}, hooks: StudyHooks = {}, budget = STUDY_CASE_BUDGET): Promise<StudyResult> {
+  checkStudySize(project, options, budget);
   const warnings: string[] = [];
   const model = protectionModel((w) => warnings.push(w));
   const result = await runStudy(project, { solver: engineSolver(project), model }, options, hooks);

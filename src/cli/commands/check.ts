@@ -7,7 +7,7 @@ import { EXIT_INTERRUPTED } from "../args.ts";
 import { jsonLinesWriter } from "../jsonLines.ts";
 import { loadStep } from "../loadStep.ts";
 import { runCommand } from "../runCommand.ts";
-import { studyInSession } from "../studyRun.ts";
+import { refuseTooLarge, studyInSession } from "../studyRun.ts";
 import { terminalField } from "../terminalText.ts";
 import { STUDY_CAUTION, VERDICT_KINDS, type StudyOptions, type StudyResult, type Verdict } from "../../study/types.ts";
 import { checkSpec, parseCheckArgs } from "./checkArgs.ts";
@@ -60,6 +60,8 @@ export const checkCommand: CliCommand = {
       if (a.scenarios.length) options.scenarios = a.scenarios;
       if (a.buses.length) options.buses = a.buses;
       if (a.faults.length) options.faultTypes = a.faults;
+      const tooLarge = refuseTooLarge(session, project, options);
+      if (tooLarge !== null) return tooLarge;
       if (a.json) {
         // JSON Lines, each scenario's lines written as soon as it is done
         const out = jsonLinesWriter();

@@ -17,7 +17,7 @@ import { loadStep } from "../loadStep.ts";
 import { runCommand, type CommandSession } from "../runCommand.ts";
 import type { SessionOptions } from "../session.ts";
 import { StagedOutput } from "../stagedOutput.ts";
-import { studyInSession } from "../studyRun.ts";
+import { refuseTooLarge, studyInSession } from "../studyRun.ts";
 import { terminalField as f } from "../terminalText.ts";
 
 const FORMATS = ["html", "pdf", "csv", "svg", "png"] as const;
@@ -157,6 +157,8 @@ export function runReport(args: readonly string[], options: SessionOptions = {})
       session.interruptNote = `no report written; ${f(out)} is as it was`;
       session.out.print(REPORT_CAUTION);
       const project = loaded.project;
+      const tooLarge = refuseTooLarge(session, project);
+      if (tooLarge !== null) return tooLarge;
       const study = await studyInSession(session, project);
       if (!study) return EXIT_INTERRUPTED;
       const extra = await failureTimelines(session, project, study);

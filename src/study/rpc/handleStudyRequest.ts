@@ -4,6 +4,7 @@
 import { loadProject } from "../../model/projectFile.ts";
 import { projectSchema, type Project } from "../../model/schema.ts";
 import { runStudy, StudyCancelled } from "../runStudy.ts";
+import { checkStudySize } from "../studySize.ts";
 import { locationKey } from "../keys.ts";
 import { engineSolver } from "../engineSolver.ts";
 import { protectionModel } from "../protectionModel.ts";
@@ -35,6 +36,8 @@ export async function handleStudyRequest(request: StudyRequest, ctx: StudyReques
   const project = read.project;
   try {
     if (request.kind === "full") {
+      // a study too large for the budget is refused with its numbers (the message reaches the studio)
+      checkStudySize(project, request.options ?? {});
       const result = await runStudy(
         project,
         { solver: engineSolver(project), model: protectionModel() },

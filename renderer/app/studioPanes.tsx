@@ -25,7 +25,11 @@ function ChainView() {
       responses={caseResult?.responses}
       verdicts={caseVerdicts}
       selectedDeviceId={selection[0] ?? null}
-      onStepChange={(deviceId) => useSessionStore.getState().set({ selection: [deviceId] })}
+      onStepChange={(deviceId) => {
+        const st = useSessionStore.getState();
+        // select the step's device and bring it into view on the one-line
+        st.set({ selection: [deviceId], follow: { device: deviceId, seq: (st.follow?.seq ?? 0) + 1 } });
+      }}
       operation={caseResult?.operation ?? null}
       nameOf={nameOf}
     />

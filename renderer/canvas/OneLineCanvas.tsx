@@ -93,6 +93,26 @@ export function OneLineCanvas() {
     if (fitSeq === 0) return;
     requestAnimationFrame(fit);
   }, [fitSeq, fit]);
+
+  // stepping through a case: pan to the element the step's device sits at when it is out of view (zoom kept)
+  const follow = useSessionStore((s) => s.follow);
+  useEffect(() => {
+    if (!follow) return;
+    const device = useDocumentStore.getState().doc.elements.find((e) => e.id === follow.device);
+    const hostId = device && (device.kind === "relay" || device.kind === "fuse" || device.kind === "lvbreaker") ? device.at.element : follow.device;
+    const node = flow.getNode(hostId);
+    const box = wrapRef.current?.getBoundingClientRect();
+    if (!node || !box) return;
+    const w = node.measured?.width ?? node.width ?? 0;
+    const h = node.measured?.height ?? node.height ?? 0;
+    const { x, y, zoom } = flow.getViewport();
+    const cx = node.position.x + w / 2;
+    const cy = node.position.y + h / 2;
+    const sx = cx * zoom + x;
+    const sy = cy * zoom + y;
+    const margin = 40;
+    if (sx < margin || sy < margin || sx > box.width - margin || sy > box.height - margin) void flow.setCenter(cx, cy, { zoom, duration: 200 });
+  }, [follow, flow]);
   useEffect(() => {
     const el = wrapRef.current;
     if (!el || typeof ResizeObserver === "undefined") return;

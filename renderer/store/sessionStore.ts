@@ -50,6 +50,8 @@ export interface SessionState {
   clipboard: Clipboard | null;
   /** Bumped to ask the canvas to fit the whole diagram in view. */
   fitSeq: number;
+  /** A device the canvas should bring into view (stepping through a case); seq bumps on every request. */
+  follow: { device: string; seq: number } | null;
   notices: Notice[];
   /** Developer figures in the status area (the edit-to-overlay time); off by default, kept per user. */
   diagnostics: boolean;
@@ -75,6 +77,7 @@ let noticeSeq = 0;
 
 export const useSessionStore = create<SessionState>()((set) => ({
   selection: [],
+  follow: null,
   activeScenarioId: null,
   faultType: "3ph",
   faultLimit: "max",

@@ -80,7 +80,15 @@ export function ChainPane(props: ChainPaneProps) {
   };
 
   return (
-    <section className="ap-pane chain-pane" aria-label="Expected isolation and simulated operation">
+    <section
+      className="ap-pane chain-pane"
+      aria-label="Expected isolation and simulated operation"
+      // one click anywhere on the pane readies the arrow keys (a row click also selects that step)
+      onMouseDown={(e) => {
+        if (!(e.target instanceof HTMLElement) || e.target.closest("button, input, select, a")) return;
+        requestAnimationFrame(() => bodyRef.current?.focus());
+      }}
+    >
       <header className="ap-header">
         <h2 className="ap-title">Operation</h2>
         {props.caseLabel ? <span className="ap-subtitle" title={props.caseLabel}>{props.caseLabel}</span> : null}

@@ -37,4 +37,35 @@ export const steps = [
       await page.screenshot({ path: join(t.artifacts, "60-operation.png") });
     },
   },
+  {
+    name: "walks the expected devices with the arrow keys after one click on the pane, the canvas marking each step's device",
+    async run(t) {
+      const page = t.state.page;
+      // a case with a backup: the first row of the verdict matrix's failing cells whose pane lists two steps or more
+      await page.getByTestId("tab-verdicts").click();
+      const cells = page.locator("button.verdict-cell.is-fail");
+      const n = await cells.count();
+      let found = false;
+      for (let k = 0; k < n && !found; k++) {
+        await page.getByTestId("tab-verdicts").click();
+        await cells.nth(k).click();
+        await page.getByTestId("tab-chain").click();
+        await page.locator(".chain-pane .ap-title").waitFor();
+        await page.waitForFunction(() => document.querySelector('[data-testid="operation-summary"]') || document.querySelector(".chain-pane .ap-empty"));
+        found = (await page.locator(".chain-step").count()) >= 2;
+      }
+      assert.ok(found, "a failing case with a backup step");
+      // one click on the pane's title, then the keys
+      await page.locator(".chain-pane .ap-title").click();
+      await page.waitForFunction(() => document.activeElement?.classList.contains("chain-body"));
+      const before = (await page.locator(".chain-step.is-current").textContent()) ?? "";
+      await page.keyboard.press("ArrowDown");
+      await page.waitForFunction((b) => (document.querySelector(".chain-step.is-current")?.textContent ?? "") !== b, before);
+      const current = (await page.locator(".chain-step.is-current").textContent()) ?? "";
+      assert.match(current, /backup/);
+      // the step's device is marked on the one-line
+      await page.locator(".react-flow .device.is-selected").first().waitFor();
+      await page.screenshot({ path: join(t.artifacts, "60-operation-step.png") });
+    },
+  },
 ];

@@ -76,6 +76,13 @@ export async function blindingPass(args: {
   const out = new Map<string, Verdict[]>();
   for (const [infeed, items] of byInfeed) {
     const variant: Scenario = { ...scenario, outOfService: [...scenario.outOfService, infeed] };
+    // the infeed switched out is its terminal opened: one low-rank update of the scenario's network serves every
+    // location and fault type of its pairs (a solver without it builds the variant network)
+    const locIdxAll = [...new Set(items.map((x) => x.c.locIndex))].sort((a, b) => a - b);
+    const opened = solver.solveOpenedEach
+      ? solver.solveOpenedEach(scenario, [{ element: infeed, end: "terminal" }], locIdxAll.map((k) => args.locations[k]), args.types.filter((t) => items.some((x) => x.c.fc.faultType === t)), args.limit)
+      : null;
+    const openedAt = new Map(locIdxAll.map((k, j) => [k, j] as const));
     for (const type of args.types) {
       const ofType = items.filter((x) => x.c.fc.faultType === type);
       if (ofType.length === 0) continue;
@@ -83,7 +90,11 @@ export async function blindingPass(args: {
       const position = new Map(locIdx.map((k, j) => [k, j] as const));
       const wanted = [...new Set(ofType.map((x) => x.pair.device))];
       const locs = locIdx.map((k) => args.locations[k]);
-      const at = solver.solveEach ? solver.solveEach(variant, locs, type, args.limit, wanted) : ((s) => (j: number) => s[j])(solver.solveMany(variant, locs, type, args.limit, wanted));
+      const at = opened
+        ? (j: number) => opened(openedAt.get(locIdx[j])!, type)
+        : solver.solveEach
+          ? solver.solveEach(variant, locs, type, args.limit, wanted)
+          : ((s) => (j: number) => s[j])(solver.solveMany(variant, locs, type, args.limit, wanted));
       const snaps = new Map<number, ReturnType<typeof at>>();
       for (const j of [...new Set(ofType.map((x) => position.get(x.c.locIndex)!))].sort((a, b) => a - b)) snaps.set(j, at(j));
       for (const { c, pair } of ofType) {

@@ -72,8 +72,8 @@ const busOf = (loc: FaultLocation, project: Project): string => {
 };
 
 /** Cache sizes: compiled networks, whole or partial sweeps, re-solve contexts (each most recently used first). */
-const MAX_COMPILED = 8;
-const MAX_SWEEPS = 4;
+const MAX_COMPILED = 4;
+const MAX_SWEEPS = 2;
 const MAX_REOPEN = 2;
 /** Memory for the Z columns one re-solve context keeps. */
 const REOPEN_COLUMN_BYTES = 64 * 1024 * 1024;

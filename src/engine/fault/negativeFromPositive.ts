@@ -7,6 +7,7 @@
 // where X1_d = Z1 c1_d, X1_d[G] its rows at the nodes G of E, and dc_d = E^T (c2_d - c1_d) what the combination
 // itself changes between the sequences (only at those nodes: a machine terminal's own admittance). The all-bus
 // sweep then solves and stores two sequences instead of three.
+import { smallComplexInverse } from "../network/lowRankUpdate.ts";
 import type { LdltFactor } from "../sparse/ldlt.ts";
 import { solveLdltBlock } from "../sparse/ldlt.ts";
 import type { Combination } from "./deviceCombination.ts";
@@ -119,7 +120,7 @@ export function negativeCorrection(f1: LdltFactor, f2: LdltFactor, combos: (Comb
     m[(a * k + a) * 2] += dr[a] / d2;
     m[(a * k + a) * 2 + 1] -= di[a] / d2;
   }
-  const h = complexInverse(m, k);
+  const h = smallComplexInverse(m, k);
   if (!h) return null;
   const ihw = new Float64Array(k * k * 2);
   for (let a = 0; a < k; a++)
@@ -169,57 +170,3 @@ export function negativeAlpha(nc: NegativeCorrection, xr: Float64Array, xi: Floa
   }
 }
 
-/** Inverse of a small complex matrix (Gauss-Jordan, partial pivoting); null when singular. */
-function complexInverse(m: Float64Array, k: number): Float64Array | null {
-  const a = m.slice();
-  const r = new Float64Array(k * k * 2);
-  for (let i = 0; i < k; i++) r[(i * k + i) * 2] = 1;
-  const at = (i: number, j: number) => (i * k + j) * 2;
-  for (let col = 0; col < k; col++) {
-    let piv = col;
-    let best = -1;
-    for (let i = col; i < k; i++) {
-      const v = Math.hypot(a[at(i, col)], a[at(i, col) + 1]);
-      if (v > best) {
-        best = v;
-        piv = i;
-      }
-    }
-    if (!(best > 0)) return null;
-    if (piv !== col)
-      for (const x of [a, r])
-        for (let j = 0; j < k; j++)
-          for (let t = 0; t < 2; t++) {
-            const tmp = x[at(col, j) + t];
-            x[at(col, j) + t] = x[at(piv, j) + t];
-            x[at(piv, j) + t] = tmp;
-          }
-    const pr = a[at(col, col)];
-    const pi = a[at(col, col) + 1];
-    const p2 = pr * pr + pi * pi;
-    const ir = pr / p2;
-    const ii = -pi / p2;
-    for (const x of [a, r])
-      for (let j = 0; j < k; j++) {
-        const o = at(col, j);
-        const vr = x[o];
-        const vi = x[o + 1];
-        x[o] = vr * ir - vi * ii;
-        x[o + 1] = vr * ii + vi * ir;
-      }
-    for (let i = 0; i < k; i++) {
-      if (i === col) continue;
-      const fr = a[at(i, col)];
-      const fi = a[at(i, col) + 1];
-      if (fr === 0 && fi === 0) continue;
-      for (const x of [a, r])
-        for (let j = 0; j < k; j++) {
-          const o = at(i, j);
-          const q = at(col, j);
-          x[o] -= fr * x[q] - fi * x[q + 1];
-          x[o + 1] -= fr * x[q + 1] + fi * x[q];
-        }
-    }
-  }
-  return r;
-}

@@ -1,5 +1,6 @@
 // The studio shell: command bar, parts palette, one-line, properties and operating modes,
 // the lower panes, and the status area with the caution.
+import { ownValue } from "../../src/model/ownValue.ts";
 import { ReactFlowProvider, useReactFlow } from "@xyflow/react";
 import type { ElementKind } from "../../src/model/schema.ts";
 import { Toolbar } from "./Toolbar.tsx";
@@ -32,7 +33,7 @@ function Workspace({ panes }: { panes: PaneEntry[] }) {
     }
     // near the selected part (beside it), else the view's centre; then the nearest free spot
     const { doc } = useDocumentStore.getState();
-    const near = useSessionStore.getState().selection.map((id) => doc.layout[id]).find((p) => p !== undefined);
+    const near = useSessionStore.getState().selection.map((id) => ownValue(doc.layout, id)).find((p) => p !== undefined);
     const el = document.querySelector(".canvas-wrap")?.getBoundingClientRect();
     const want = near ? { x: near.x + (near.w ?? 0) / 2 + 80, y: near.y + 80 } : flow.screenToFlowPosition({ x: (el?.left ?? 0) + (el?.width ?? 800) / 2, y: (el?.top ?? 0) + (el?.height ?? 600) / 2 });
     addElement(kind, freeSpot(doc, want, newPartSize(kind), 10, kind === "bus"));

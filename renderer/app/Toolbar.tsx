@@ -1,4 +1,5 @@
 // The command bar: file, edit, arrange, fault and study commands, theme.
+import { ownValue } from "../../src/model/ownValue.ts";
 import { useEffect, useState, type MouseEvent } from "react";
 import { useStore } from "zustand";
 import type { FileRef } from "../../src/model/hostContract.ts";
@@ -95,7 +96,7 @@ function arrangeAll(): void {
 function align(mode: AlignMode): void {
   const { doc } = useDocumentStore.getState();
   const sizes: Record<string, { w: number; h: number }> = {};
-  for (const e of doc.elements) sizes[e.id] = nodeSize(e, doc.layout[e.id]?.w);
+  for (const e of doc.elements) sizes[e.id] = nodeSize(e, ownValue(doc.layout, e.id)?.w);
   alignSelection(mode, sizes);
 }
 

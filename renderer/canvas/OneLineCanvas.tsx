@@ -1,5 +1,6 @@
 // The one-line editor: nodes and ties built from the document, drags kept local until the drop
 // (one undo step), connections and palette drops turned into document changes.
+import { ownValue } from "../../src/model/ownValue.ts";
 import { useCallback, useEffect, useMemo, useRef, useState, type CSSProperties, type DragEvent } from "react";
 import {
   ReactFlow,
@@ -210,7 +211,7 @@ export function OneLineCanvas() {
       const size = newPartSize(kind);
       const bus = kind === "bus" ? undefined : flow.getIntersectingNodes({ x: p.x - 2, y: p.y - 2, width: 4, height: 4 }).find((n) => n.type === "bus");
       if (bus) {
-        const place = doc.layout[bus.id];
+        const place = ownValue(doc.layout, bus.id);
         const offset = BUS_HEIGHT / 2 + size.h / 2 + 30;
         const want = { x: snapped.x, y: (place?.y ?? snapped.y) + (kind === "grid" ? -offset : offset) };
         addElement(kind, freeSpot(doc, want, size), null, bus.id);

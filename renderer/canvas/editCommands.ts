@@ -1,5 +1,6 @@
 // Editing commands shared by the toolbar, the keyboard and the canvas. Each turns the session's
 // selection into document changes and sends them through the one write path.
+import { ownValue } from "../../src/model/ownValue.ts";
 import { isProtectiveDevice, type DeviceLocation, type Element, type ElementKind } from "../../src/model/schema.ts";
 import { useDocumentStore, undo } from "../store/documentStore.ts";
 import { removalNotice, removalSummary } from "../store/removalSummary.ts";
@@ -71,7 +72,10 @@ export function copySelection(): void {
   const elements = doc.elements.filter((e) => chosen.has(e.id));
   if (elements.length === 0) return;
   const places: Record<string, NodePlace> = {};
-  for (const e of elements) if (doc.layout[e.id]) places[e.id] = { ...doc.layout[e.id] };
+  for (const e of elements) {
+    const place = ownValue(doc.layout, e.id);
+    if (place) places[e.id] = { ...place } as NodePlace;
+  }
   session.set({ clipboard: { elements, places } });
 }
 
@@ -113,13 +117,13 @@ export type AlignMode = "left" | "center" | "top" | "middle";
 /** Aligns the selected nodes' boxes on the first selected node (layout positions are centres). */
 export function alignSelection(mode: AlignMode, sizes: Record<string, { w: number; h: number }>): void {
   const { doc, applyChanges } = useDocumentStore.getState();
-  const ids = useSessionStore.getState().selection.filter((id) => doc.layout[id]);
+  const ids = useSessionStore.getState().selection.filter((id) => ownValue(doc.layout, id));
   if (ids.length < 2) return;
-  const ref = doc.layout[ids[0]];
+  const ref = ownValue(doc.layout, ids[0])!;
   const refSize = sizes[ids[0]] ?? { w: 0, h: 0 };
   const places: Record<string, NodePlace> = {};
   for (const id of ids.slice(1)) {
-    const p = doc.layout[id];
+    const p = ownValue(doc.layout, id)!;
     const s = sizes[id] ?? { w: 0, h: 0 };
     if (mode === "left") places[id] = { x: ref.x - refSize.w / 2 + s.w / 2, y: p.y };
     if (mode === "center") places[id] = { x: ref.x, y: p.y };

@@ -1,5 +1,6 @@
 // Where a new part goes: the nearest spot to the wanted one (near the selection, the view's centre
 // or the drop point) where its box overlaps no other part's box. Layout positions are centres.
+import { ownValue } from "../../src/model/ownValue.ts";
 import type { Project } from "../../src/model/schema.ts";
 import { isProtectiveDevice } from "../../src/model/schema.ts";
 import { isHorizontal, nodeSize } from "./toFlow.ts";
@@ -32,7 +33,7 @@ export function occupiedBoxes(doc: Project): Box[] {
   const out: Box[] = [];
   for (const e of doc.elements) {
     if (isProtectiveDevice(e)) continue;
-    const p = doc.layout[e.id];
+    const p = ownValue(doc.layout, e.id);
     if (!p) continue;
     const s = nodeSize(e, p.w, isHorizontal(e, doc.layout));
     out.push(withCaption({ x: p.x, y: p.y, w: s.w, h: s.h }, e.kind === "bus"));

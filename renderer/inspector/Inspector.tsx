@@ -1,6 +1,7 @@
 // "Properties": the selected element's fields with units and the model's validation messages
 // beside them. Several elements of one kind are edited together (common fields); of mixed kinds,
 // only the fields they share. Every edit is one undoable change through the document store.
+import { ownValue } from "../../src/model/ownValue.ts";
 import { useMemo } from "react";
 import { isProtectiveDevice, type Element, type ElementKind } from "../../src/model/schema.ts";
 import { validationOf } from "../store/validation.ts";
@@ -132,12 +133,12 @@ export function Inspector() {
               <input
                 className="field-input num"
                 aria-label="Bar length on the drawing"
-                key={`${host.id}-${doc.layout[host.id]?.w ?? DEFAULT_BUS_WIDTH}`}
-                defaultValue={doc.layout[host.id]?.w ?? DEFAULT_BUS_WIDTH}
+                key={`${host.id}-${ownValue(doc.layout, host.id)?.w ?? DEFAULT_BUS_WIDTH}`}
+                defaultValue={ownValue(doc.layout, host.id)?.w ?? DEFAULT_BUS_WIDTH}
                 onKeyDown={(e) => e.key === "Enter" && e.currentTarget.blur()}
                 onBlur={(e) => {
                   const w = Number(e.target.value);
-                  const place = doc.layout[host.id];
+                  const place = ownValue(doc.layout, host.id);
                   if (!(w >= 40 && w <= 5000) || !place || w === place.w) return;
                   apply([{ type: "moveNodes", places: { [host.id]: { ...place, w } } }], { undoable: true });
                 }}

@@ -51,7 +51,8 @@ table.open td:nth-child(5) { width: 45%; }
 table.open td:nth-child(6) { width: 30%; }
 td.ref { white-space: nowrap; font-weight: 600; }
 table.data { font-size: 8.5pt; }
-table.verdicts td:nth-child(2), table.verdicts td:nth-child(3) { white-space: nowrap; }
+table.verdicts td:nth-child(2) { white-space: nowrap; }
+table.verdicts td:nth-child(3) { max-width: 38mm; }
 table.verdicts:not(.pass-summary) td:nth-child(4) { width: 55%; }
 table.verdicts:not(.pass-summary) td:nth-child(5) { width: 30%; font-size: 7pt; }
 table.pass-summary td:nth-child(4) { width: 60%; }

@@ -18,8 +18,20 @@ function numbers(v: Verdict): string {
     .join(", ");
 }
 
+/** `Name (id)` of an element, or its id where it has no name. */
+function nameAndId(project: Project, id: string | null): string {
+  if (id === null) return "";
+  const name = project.elements.find((e) => e.id === id)?.name;
+  return name ? `${name} (${id})` : id;
+}
+
+/** The device column: the device, and the other of a pair (its primary, or the infeed), by name. */
+function deviceCell(project: Project, v: Verdict): string {
+  return escapeHtml(nameAndId(project, v.device) + (v.other ? ` / ${nameAndId(project, v.other)}` : ""));
+}
+
 /** Passed verdicts by check and device: how many, and one of them as an example. */
-function passSummary(list: readonly Verdict[], refs: ReadonlyMap<string, string>): string {
+function passSummary(project: Project, list: readonly Verdict[], refs: ReadonlyMap<string, string>): string {
   const groups = new Map<string, Verdict[]>();
   for (const v of list) {
     const key = `${v.kind}|${v.device}|${v.other ?? ""}`;
@@ -28,7 +40,7 @@ function passSummary(list: readonly Verdict[], refs: ReadonlyMap<string, string>
   const rows = [...groups.values()];
   return htmlTable(
     ["Check", "Device", "Count", "Example", "Refs"],
-    rows.map((g) => [g[0].kind, escapeHtml(g[0].device + (g[0].other ? ` / ${g[0].other}` : "")), String(g.length), escapeHtml(g[0].explanation), `${refs.get(g[0].id)}…${refs.get(g[g.length - 1].id)}`]),
+    rows.map((g) => [g[0].kind, deviceCell(project, g[0]), String(g.length), escapeHtml(g[0].explanation), `${refs.get(g[0].id)}…${refs.get(g[g.length - 1].id)}`]),
     { className: "data verdicts pass-summary", columnClasses: ["", "", "num", "", "small"] },
   );
 }
@@ -57,13 +69,13 @@ export function verdictSection(project: Project, study: StudyResult, refs: Reado
     const list = study.verdicts.filter((v) => v.status === status);
     if (!list.length) return `<h3 id="verdicts-${status}">${title} (0)</h3><p class="note">None.</p>`;
     if (status === "pass" && !options.listPasses)
-      return `<h3 id="verdicts-${status}" class="status-${status}">${title} (${list.length})</h3>\n<p class="note">Summarised by check and device; every passed verdict with its numbers is in verdicts.csv.</p>\n${passSummary(list, refs)}`;
+      return `<h3 id="verdicts-${status}" class="status-${status}">${title} (${list.length})</h3>\n<p class="note">Summarised by check and device; every passed verdict with its numbers is in verdicts.csv.</p>\n${passSummary(project, list, refs)}`;
     const table = htmlTable(
       ["Ref", "Check", "Device", "Explanation (case and scenario at the end)", "Numbers"],
       list.map((v) => [
         `<a id="v-${refs.get(v.id)}"></a>${refs.get(v.id)}`,
         v.kind,
-        escapeHtml(v.device + (v.other ? ` / ${v.other}` : "")),
+        deviceCell(project, v),
         escapeHtml(v.explanation),
         numbers(v),
       ]),

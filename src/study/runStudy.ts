@@ -19,7 +19,7 @@ import { simulateScenario, StudyCancelled } from "./pipeline/simulateScenario.ts
 import type { StudySolver } from "./studySolver.ts";
 import { FAULT_TYPES, STUDY_CAUTION, type CaseResult, type ClearingTimeline, type FaultLimit, type FaultType, type StudyOptions, type StudyResult, type Verdict, type VerdictStatus } from "./types.ts";
 import { verdictIdsDistinct } from "./verdictIds.ts";
-import { loadVerdicts } from "./verdicts/sensitivity.ts";
+import { loadVerdicts } from "./verdicts/loadVerdicts.ts";
 import { judgeDuty } from "./judges/duty.ts";
 import { memoWithstand } from "./withstand.ts";
 import type { JudgeContext } from "./judges/judgedCase.ts";

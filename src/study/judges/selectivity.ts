@@ -9,6 +9,7 @@ import { verdictId } from "../keys.ts";
 import { pairCti_s } from "../verdicts/selectivity.ts";
 import type { Verdict, VerdictStatus } from "../types.ts";
 import { fmtA, fmtS, round } from "../verdicts/format.ts";
+import { faultNode } from "../faultNode.ts";
 import { zoneAcross } from "../operation/zones.ts";
 import { deviceWords, named, type JudgeContext, type JudgedCase } from "./judgedCase.ts";
 
@@ -44,7 +45,7 @@ function sideOfFault(ctx: JudgeContext, c: JudgedCase, id: string): "element" | 
   const edgeIndex = ctx.net.deviceEdge.get(id)!;
   const edge = ctx.net.edges[edgeIndex];
   const zones = ctx.isolation.zones;
-  const target = zones.zoneOf.get(c.fc.location.kind === "bus" ? `b:${c.fc.location.bus}` : `e:${c.fc.location.line}`);
+  const target = zones.zoneOf.get(faultNode(c.fc.location));
   // walk the zone graph from the element side without crossing the device's own edge
   const start = zones.zoneOf.get(edge.elementKey)!;
   const seen = new Set<number>([start]);

@@ -76,7 +76,7 @@ export function caseRecord(ctx: JudgeContext, c: SimulatedCase, atSensitivityLim
     zoneBuses: c.lp.zoneBuses,
     ideal: c.lp.plan.devices,
     backups: c.lp.plan.edges.map((edge, k) => ({
-      device: c.lp.plan.devices.find((d) => net.deviceEdge.get(d) === edge) ?? "",
+      device: expectedAt(c, edge, net),
       backups: backupDevices(c.lp.plan, c.lp.failures[k]),
     })),
     restrained: c.lp.plan.restrained,
@@ -89,7 +89,7 @@ export function caseRecord(ctx: JudgeContext, c: SimulatedCase, atSensitivityLim
     idealLoadLost_kW: round1(loadLost(c.lp.plan.edges)),
     withstand: c.outcome.withstand.filter((w) => w.used >= 0.01).map((w) => ({ element: w.element, used: Math.round(w.used * 1000) / 1000, peak_A: round1(w.peak_A) })),
     failures: failures.map((f, k) => ({
-      device: operationDevice(c, f.edge, net),
+      device: expectedAt(c, f.edge, net),
       backups: backupDevices(c.lp.plan, f.plan),
       operations: steps(f.outcome),
       isolated_s: f.outcome.isolated_s,
@@ -106,7 +106,8 @@ export function caseRecord(ctx: JudgeContext, c: SimulatedCase, atSensitivityLim
   const result: CaseResult = {
     faultCase: c.fc,
     iFault_A: c.iFault_A,
-    responses: keptResponses(c),
+    // the responses simulateScenario kept: devices that operate, are expected, or carry a real share of the current
+    responses: [...c.responses.values()],
     chains: chainsOf(c, failures, net),
     operation,
     verdictIds: verdicts.map((v) => v.id),
@@ -119,20 +120,6 @@ export function caseRecord(ctx: JudgeContext, c: SimulatedCase, atSensitivityLim
   return { result, verdicts };
 }
 
-/**
- * The responses a case keeps: every device that picks up, takes part in the isolation or its backups, or
- * carries at least KEEP_SHARE of the largest device current; the rest carry rounding residue of remote
- * infeeds and would only multiply a large study's memory.
- */
-const KEEP_SHARE = 0.01;
-function keptResponses(c: SimulatedCase): DeviceResponse[] {
-  let peak = 0;
-  for (const r of c.responses.values()) if (r.iPhase_A > peak) peak = r.iPhase_A;
-  const out: DeviceResponse[] = [];
-  for (const r of c.responses.values()) if (r.pickedUp || r.role !== "none" || r.iPhase_A >= KEEP_SHARE * peak || c.outcome.tripped.has(r.device)) out.push(r);
-  return out;
-}
-
 function setRole(c: SimulatedCase, device: string, role: DeviceResponse["role"], sources: string[]): void {
   const r = c.responses.get(device);
   if (!r || r.role === "primary") return;
@@ -140,6 +127,7 @@ function setRole(c: SimulatedCase, device: string, role: DeviceResponse["role"],
   if (sources.length) r.onPathsOf = sources;
 }
 
-function operationDevice(c: SimulatedCase, edge: number, net: ScenarioNetwork): string {
+/** The (first) expected device at an expected edge. */
+function expectedAt(c: SimulatedCase, edge: number, net: ScenarioNetwork): string {
   return c.lp.plan.devices.find((d) => net.deviceEdge.get(d) === edge) ?? "";
 }

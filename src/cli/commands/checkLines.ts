@@ -2,7 +2,7 @@
 // output is never one giant string and a large network's study need not be held whole. Line types:
 // header, case, verdict, warning, summary (README.md, section "islet check output"). A change to a line's
 // meaning raises CHECK_LINES_VERSION.
-import type { CaseResult, StudyResult, Verdict, VerdictKind, VerdictStatus } from "../../study/types.ts";
+import type { CaseResult, Verdict, VerdictKind, VerdictStatus } from "../../study/types.ts";
 import { VERDICT_KINDS } from "../../study/types.ts";
 
 /** Version of the line format; the header carries it. */
@@ -81,18 +81,4 @@ export class VerdictTally {
 
 export function summaryLine(t: VerdictTally, warnings: number): object {
   return { type: "summary", ok: t.failed === 0, cases: t.cases, verdicts: t.verdicts, failed: t.failed, warned: t.warned, warnings, totals: t.totals };
-}
-
-/** Every line of a finished study, in order (for callers holding the whole result). */
-export function* studyLines(file: string, result: StudyResult): Generator<object> {
-  yield headerLine(file, result.project, result.caution);
-  const tally = new VerdictTally();
-  for (const c of result.cases) {
-    tally.cases++;
-    yield caseLine(c);
-  }
-  for (const v of result.verdicts) yield verdictLine(v);
-  tally.add(result.verdicts);
-  for (const w of result.warnings) yield { type: "warning", text: w };
-  yield summaryLine(tally, result.warnings.length);
 }

@@ -162,13 +162,6 @@ export function isolationWithFailure(ctx: IsolationContext, plan: IsolationPlan,
   return planOf(ctx, inside, order, faultType, new Set(plan.restrained), new Set(plan.blind));
 }
 
-/** Backup devices of each expected edge: the devices of the failure plan that the plan itself does not hold. */
-export function backupsOf(ctx: IsolationContext, plan: IsolationPlan, faultType: FaultType): Map<number, IsolationPlan> {
-  const out = new Map<number, IsolationPlan>();
-  for (const edge of plan.edges) out.set(edge, isolationWithFailure(ctx, plan, edge, faultType));
-  return out;
-}
-
 /** The devices of `failure` that are not in `plan`: the backups. */
 export function backupDevices(plan: IsolationPlan, failure: IsolationPlan): string[] {
   const own = new Set(plan.devices);

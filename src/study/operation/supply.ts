@@ -1,5 +1,4 @@
-// What a set of open edges does to supply: which buses lose every energising source, the load on them,
-// and which energising sources still feed the fault.
+// What a set of open edges does to supply: which buses lose every energising source, and the load on them.
 import { elementNode, reachable, type ScenarioNetwork } from "../scenarioNetwork.ts";
 import { energisingSources } from "./sources.ts";
 
@@ -18,10 +17,4 @@ export function deenergised(net: ScenarioNetwork, cut: ReadonlySet<number>): { b
     if (e.kind === "motor" && dead.has(e.bus)) load_kW += e.pr_kW;
   }
   return { buses, load_kW };
-}
-
-/** Energising sources still connected to graph node `faultNode` with the `cut` edges open. */
-export function energisingFeeding(net: ScenarioNetwork, faultNode: string, cut: ReadonlySet<number>): string[] {
-  const seen = reachable(net, faultNode, cut);
-  return energisingSources(net).filter((s) => seen.has(elementNode(s)));
 }
